@@ -1,0 +1,7 @@
+//! The hydraulics core: pure functions of physical quantities.
+//!
+//! Invariant: nothing in here touches the DOM, storage, the network or the
+//! clock, and nothing here knows about units of display. Every formula names
+//! its source where it is defined.
+
+pub mod geometry;

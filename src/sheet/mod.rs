@@ -1,0 +1,8 @@
+//! The worksheet model: where typed text becomes quantities and results
+//! become text.
+//!
+//! Units appear only here, at the boundary; the hydraulics core below speaks
+//! of quantities.
+
+pub mod number;
+pub mod quick;

@@ -1,0 +1,286 @@
+//! End-to-end harness: serves `dist/` on 127.0.0.1, starts chromedriver on a
+//! free loopback port, and drives headless Chromium through WebDriver.
+//!
+//! Every test that uses it should end with [`Harness::finish`], which fails
+//! the test on any console error the page logged.
+
+#![allow(dead_code)]
+
+use std::net::{TcpListener, TcpStream};
+use std::path::{Component, Path, PathBuf};
+use std::process::{Child, Command, Stdio};
+use std::sync::{Arc, Mutex};
+use std::thread;
+use std::time::{Duration, Instant};
+
+use fantoccini::wd::{Capabilities, WebDriverCompatibleCommand};
+use fantoccini::{Client, ClientBuilder, Locator};
+use serde_json::{json, Value};
+
+/// The release build the tests drive.
+pub fn dist_dir() -> PathBuf {
+    std::env::var_os("HEADROOM_DIST")
+        .map(PathBuf::from)
+        .unwrap_or_else(|| Path::new(env!("CARGO_MANIFEST_DIR")).join("dist"))
+}
+
+/// Where screenshots and other artifacts go (under target/, never committed).
+pub fn artifact_dir() -> PathBuf {
+    let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("target/e2e-artifacts");
+    std::fs::create_dir_all(&dir).expect("create target/e2e-artifacts");
+    dir
+}
+
+fn free_port() -> u16 {
+    TcpListener::bind("127.0.0.1:0")
+        .and_then(|l| l.local_addr())
+        .map(|a| a.port())
+        .expect("a free loopback port")
+}
+
+fn content_type(path: &Path) -> &'static str {
+    match path.extension().and_then(|e| e.to_str()) {
+        Some("html") => "text/html; charset=utf-8",
+        Some("js") => "text/javascript; charset=utf-8",
+        Some("wasm") => "application/wasm",
+        Some("css") => "text/css; charset=utf-8",
+        Some("svg") => "image/svg+xml",
+        Some("json") | Some("webmanifest") => "application/manifest+json",
+        Some("png") => "image/png",
+        _ => "application/octet-stream",
+    }
+}
+
+/// A static file server for one folder, on a loopback port of its own.
+pub struct StaticServer {
+    server: Arc<tiny_http::Server>,
+    thread: Option<thread::JoinHandle<()>>,
+    pub port: u16,
+    /// Every path the browser asked for, in order.
+    pub requests: Arc<Mutex<Vec<String>>>,
+}
+
+impl StaticServer {
+    pub fn start(root: PathBuf) -> Self {
+        let server = Arc::new(tiny_http::Server::http("127.0.0.1:0").expect("bind 127.0.0.1"));
+        let port = server.server_addr().to_ip().expect("an IP address").port();
+        let requests = Arc::new(Mutex::new(Vec::new()));
+        let (srv, log) = (Arc::clone(&server), Arc::clone(&requests));
+        let thread = thread::spawn(move || {
+            for request in srv.incoming_requests() {
+                let url = request.url().to_owned();
+                log.lock().unwrap().push(url.clone());
+                let path = url.split(['?', '#']).next().unwrap_or("/");
+                let relative = path.trim_start_matches('/');
+                let relative = if relative.is_empty() { "index.html" } else { relative };
+                let safe = Path::new(relative)
+                    .components()
+                    .all(|c| matches!(c, Component::Normal(_)));
+                let file = root.join(relative);
+                let response = match std::fs::read(&file) {
+                    Ok(bytes) if safe => {
+                        let header = tiny_http::Header::from_bytes(
+                            "Content-Type",
+                            content_type(&file),
+                        )
+                        .unwrap();
+                        tiny_http::Response::from_data(bytes).with_header(header).boxed()
+                    }
+                    _ => tiny_http::Response::from_string("not found")
+                        .with_status_code(404)
+                        .boxed(),
+                };
+                let _ = request.respond(response);
+            }
+        });
+        StaticServer { server, thread: Some(thread), port, requests }
+    }
+
+    pub fn url(&self, path: &str) -> String {
+        format!("http://127.0.0.1:{}{}", self.port, path)
+    }
+}
+
+impl Drop for StaticServer {
+    fn drop(&mut self) {
+        self.server.unblock();
+        if let Some(t) = self.thread.take() {
+            let _ = t.join();
+        }
+    }
+}
+
+/// chromedriver as a child process; killed on drop.
+pub struct Driver {
+    child: Child,
+    pub port: u16,
+}
+
+impl Driver {
+    pub fn start() -> Self {
+        let binary = std::env::var("CHROMEDRIVER").unwrap_or_else(|_| "/usr/bin/chromedriver".into());
+        let port = free_port();
+        let child = Command::new(&binary)
+            .arg(format!("--port={port}"))
+            .stdout(Stdio::null())
+            .stderr(Stdio::null())
+            .spawn()
+            .unwrap_or_else(|e| panic!("cannot start {binary}: {e} (scripts/test installs it)"));
+        let deadline = Instant::now() + Duration::from_secs(30);
+        while TcpStream::connect(("127.0.0.1", port)).is_err() {
+            assert!(Instant::now() < deadline, "chromedriver did not listen on {port} within 30 s");
+            thread::sleep(Duration::from_millis(100));
+        }
+        Driver { child, port }
+    }
+}
+
+impl Drop for Driver {
+    fn drop(&mut self) {
+        let _ = self.child.kill();
+        let _ = self.child.wait();
+    }
+}
+
+/// The browser's console log since the last call (chromedriver's `se/log`).
+#[derive(Debug)]
+struct BrowserLog;
+
+impl WebDriverCompatibleCommand for BrowserLog {
+    fn endpoint(&self, base: &url::Url, session: Option<&str>) -> Result<url::Url, url::ParseError> {
+        base.join(&format!("session/{}/se/log", session.unwrap_or_default()))
+    }
+
+    fn method_and_body(&self, _: &url::Url) -> (http::Method, Option<String>) {
+        (http::Method::POST, Some(json!({"type": "browser"}).to_string()))
+    }
+}
+
+/// A served `dist/` (or the page at `HEADROOM_BASE_URL`), a chromedriver and
+/// one browser session.
+pub struct Harness {
+    /// `None` when the tests drive a page someone else serves.
+    pub server: Option<StaticServer>,
+    base_url: String,
+    pub client: Client,
+    _driver: Driver,
+    console: Vec<Value>,
+}
+
+impl Harness {
+    /// Starts everything with the browser window at `width`×`height`.
+    pub async fn start(width: u32, height: u32) -> Self {
+        // HEADROOM_BASE_URL points the tests at a running `scripts/serve`.
+        let (server, base_url) = match std::env::var("HEADROOM_BASE_URL") {
+            Ok(url) => (None, url.trim_end_matches('/').to_owned()),
+            Err(_) => {
+                let dist = dist_dir();
+                assert!(
+                    dist.join("index.html").is_file(),
+                    "{} has no index.html: run `trunk build --release` (scripts/test does)",
+                    dist.display()
+                );
+                let server = StaticServer::start(dist);
+                let base = server.url("");
+                (Some(server), base)
+            }
+        };
+        let driver = Driver::start();
+        let mut caps = Capabilities::new();
+        caps.insert(
+            "goog:chromeOptions".into(),
+            json!({
+                "binary": std::env::var("CHROMIUM").unwrap_or_else(|_| "/usr/bin/chromium".into()),
+                "args": [
+                    "--headless=new", "--no-sandbox", "--disable-gpu", "--disable-dev-shm-usage",
+                    "--disable-background-networking", "--disable-component-update",
+                    "--disable-sync", "--no-first-run", "--disable-quic",
+                    format!("--window-size={width},{height}"),
+                ]
+            }),
+        );
+        caps.insert("goog:loggingPrefs".into(), json!({"browser": "ALL"}));
+        let client = ClientBuilder::new(hyper_util::client::legacy::connect::HttpConnector::new())
+            .capabilities(caps)
+            .connect(&format!("http://127.0.0.1:{}", driver.port))
+            .await
+            .expect("a WebDriver session with headless Chromium");
+        Harness { server, base_url, client, _driver: driver, console: Vec::new() }
+    }
+
+    pub fn url(&self, path: &str) -> String {
+        format!("{}{}", self.base_url, path)
+    }
+
+    /// Opens `path` and waits until the app has mounted `ready_testid`.
+    pub async fn open(&mut self, path: &str, ready_testid: &str) {
+        self.client.goto(&self.url(path)).await.expect("navigate");
+        self.wait_for(ready_testid).await;
+    }
+
+    pub async fn wait_for(&self, testid: &str) -> fantoccini::elements::Element {
+        self.client
+            .wait()
+            .at_most(Duration::from_secs(30))
+            .for_element(Locator::Css(&format!("[data-testid={testid}]")))
+            .await
+            .unwrap_or_else(|e| panic!("[data-testid={testid}] never appeared: {e}"))
+    }
+
+    pub async fn text(&self, testid: &str) -> String {
+        self.wait_for(testid).await.text().await.expect("element text")
+    }
+
+    /// Replaces an input's text by typing, as a person would.
+    pub async fn type_into(&self, testid: &str, text: &str) {
+        let input = self.wait_for(testid).await;
+        input.clear().await.expect("clear input");
+        input.send_keys(text).await.expect("type into input");
+    }
+
+    /// Polls until the element's text equals `expected` (reactive updates are
+    /// fast, but WebDriver round trips are not synchronous with them).
+    pub async fn expect_text(&self, testid: &str, expected: &str) {
+        let deadline = Instant::now() + Duration::from_secs(10);
+        loop {
+            let got = self.text(testid).await;
+            if got == expected {
+                return;
+            }
+            assert!(Instant::now() < deadline, "[data-testid={testid}] shows {got:?}, expected {expected:?}");
+            tokio::time::sleep(Duration::from_millis(50)).await;
+        }
+    }
+
+    pub async fn screenshot(&self, name: &str) -> PathBuf {
+        let png = self.client.screenshot().await.expect("screenshot");
+        let path = artifact_dir().join(name);
+        std::fs::write(&path, png).expect("write screenshot");
+        path
+    }
+
+    /// Collects console entries logged so far (the driver hands each out once).
+    pub async fn drain_console(&mut self) -> &[Value] {
+        let log = self.client.issue_cmd(BrowserLog).await.expect("read the browser log");
+        if let Value::Array(entries) = log {
+            self.console.extend(entries);
+        }
+        &self.console
+    }
+
+    /// Fails on any console error, then ends the session.
+    pub async fn finish(mut self) {
+        self.drain_console().await;
+        for entry in &self.console {
+            eprintln!("console: {entry}");
+        }
+        let errors: Vec<&Value> = self
+            .console
+            .iter()
+            .filter(|e| e["level"] == "SEVERE")
+            .collect();
+        let client = self.client.clone();
+        let _ = client.close().await;
+        assert!(errors.is_empty(), "the page logged console errors: {errors:#?}");
+    }
+}
