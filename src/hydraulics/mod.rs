@@ -4,4 +4,9 @@
 //! clock, and nothing here knows about units of display. Every formula names
 //! its source where it is defined.
 
+pub mod fluid;
+pub mod friction;
 pub mod geometry;
+pub mod glycol;
+pub mod glycol_table;
+pub mod water;

@@ -1,0 +1,140 @@
+//! Fluid properties a line needs: density and dynamic viscosity, and the
+//! fluids we know (water, glycol solutions, or a fluid typed in directly).
+
+use uom::si::dynamic_viscosity::pascal_second;
+use uom::si::f64::{DynamicViscosity, MassDensity, Pressure, ThermodynamicTemperature};
+use uom::si::mass_density::kilogram_per_cubic_meter;
+
+/// Density and dynamic viscosity at the line's conditions.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Properties {
+    /// ρ.
+    pub density: MassDensity,
+    /// μ.
+    pub viscosity: DynamicViscosity,
+}
+
+impl Properties {
+    /// ρ in kg/m³ (for display and reference checks).
+    pub fn density_kg_m3(&self) -> f64 {
+        self.density.get::<kilogram_per_cubic_meter>()
+    }
+
+    /// μ in Pa·s (for display and reference checks).
+    pub fn viscosity_pa_s(&self) -> f64 {
+        self.viscosity.get::<pascal_second>()
+    }
+}
+
+/// Why a fluid's properties could not be given.
+#[derive(Debug, Clone, PartialEq)]
+pub enum FluidError {
+    /// Temperature outside the range of the formulation.
+    TemperatureRange {
+        /// What was asked, °C.
+        t_c: f64,
+        /// Lowest accepted, °C.
+        min_c: f64,
+        /// Highest accepted, °C.
+        max_c: f64,
+    },
+    /// The water would boil at this pressure.
+    Boils {
+        /// Temperature, °C.
+        t_c: f64,
+        /// Pressure asked, Pa absolute.
+        p_pa: f64,
+        /// Saturation pressure, Pa absolute.
+        p_sat_pa: f64,
+    },
+    /// A glycol mixture below its freezing point.
+    Freezes {
+        /// Temperature, °C.
+        t_c: f64,
+        /// Freezing point of the mixture, °C.
+        freeze_c: f64,
+    },
+    /// Glycol mass fraction outside the tabulated range.
+    Concentration {
+        /// What was asked, as a fraction.
+        fraction: f64,
+        /// Lowest accepted.
+        min: f64,
+        /// Highest accepted.
+        max: f64,
+    },
+    /// A custom property that is not a positive, finite number.
+    Custom(&'static str),
+}
+
+impl std::fmt::Display for FluidError {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        match *self {
+            FluidError::TemperatureRange { t_c, min_c, max_c } => {
+                write!(f, "temperature {t_c:.1} °C is outside {min_c}–{max_c} °C for this fluid")
+            }
+            FluidError::Boils { t_c, p_pa, p_sat_pa } => write!(
+                f,
+                "water at {t_c:.1} °C boils below {:.1} kPa absolute; {:.1} kPa is too low",
+                p_sat_pa / 1e3,
+                p_pa / 1e3
+            ),
+            FluidError::Freezes { t_c, freeze_c } => write!(
+                f,
+                "the mixture freezes at {freeze_c:.1} °C; {t_c:.1} °C is below that"
+            ),
+            FluidError::Concentration { fraction, min, max } => write!(
+                f,
+                "glycol strength {:.0} % is outside {:.0}–{:.0} % by mass",
+                fraction * 100.0,
+                min * 100.0,
+                max * 100.0
+            ),
+            FluidError::Custom(what) => write!(f, "{what} must be a positive number"),
+        }
+    }
+}
+
+impl std::error::Error for FluidError {}
+
+/// Which glycol is mixed with the water.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Glycol {
+    /// Ethylene glycol (monoethylene glycol, MEG).
+    Ethylene,
+    /// Propylene glycol (monopropylene glycol, MPG).
+    Propylene,
+}
+
+/// The fluid in a line.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum Fluid {
+    /// Liquid water (IAPWS).
+    Water,
+    /// A glycol in water, by mass fraction of glycol (0.3 = 30 %).
+    GlycolMix(Glycol, f64),
+    /// Properties typed in directly.
+    Custom(Properties),
+}
+
+impl Fluid {
+    /// Properties at a temperature and absolute pressure.
+    ///
+    /// # Errors
+    /// See [`FluidError`].
+    pub fn properties(&self, t: ThermodynamicTemperature, p: Pressure) -> Result<Properties, FluidError> {
+        match *self {
+            Fluid::Water => super::water::properties(t, p),
+            Fluid::GlycolMix(g, x) => super::glycol::properties(g, x, t),
+            Fluid::Custom(props) => {
+                if !(props.density_kg_m3().is_finite() && props.density_kg_m3() > 0.0) {
+                    return Err(FluidError::Custom("density"));
+                }
+                if !(props.viscosity_pa_s().is_finite() && props.viscosity_pa_s() > 0.0) {
+                    return Err(FluidError::Custom("viscosity"));
+                }
+                Ok(props)
+            }
+        }
+    }
+}

@@ -1,0 +1,130 @@
+//! Ethylene and propylene glycol solutions in water.
+//!
+//! Source: Melinder, Å. (2010). *Properties of Secondary Working Fluids for
+//! Indirect Systems*, 2nd ed., International Institute of Refrigeration —
+//! as implemented in CoolProp's incompressible mixtures INCOMP::MEG and
+//! INCOMP::MPG. We do not ship Melinder's polynomial coefficients: we ship a
+//! table tabulated from CoolProp 8.0.0 (`glycol_table.rs`, made by
+//! `tests/reference/glycol_table.py`) at 10–60 % by mass in 5 % steps and
+//! −50…100 °C in 2.5 K steps, and interpolate bilinearly in density and in
+//! ln μ. The test command measures the interpolation error against CoolProp
+//! off the grid (see the README).
+//!
+//! Below the mixture's freezing point (also from the table, linear between
+//! rows) the answer is an error, never a number.
+
+use uom::si::dynamic_viscosity::pascal_second;
+use uom::si::f64::{DynamicViscosity, MassDensity, ThermodynamicTemperature};
+use uom::si::mass_density::kilogram_per_cubic_meter;
+use uom::si::thermodynamic_temperature::degree_celsius;
+
+use super::fluid::{FluidError, Glycol, Properties};
+use super::glycol_table as table;
+
+/// Highest temperature tabulated, °C.
+pub const T_MAX_C: f64 = 100.0;
+
+fn tables(g: Glycol) -> (&'static [f64; 11], &'static [[f64; table::NT]; 11], &'static [[f64; table::NT]; 11]) {
+    match g {
+        Glycol::Ethylene => (&table::ETHYLENE_FREEZE_C, &table::ETHYLENE_RHO, &table::ETHYLENE_LN_MU),
+        Glycol::Propylene => (&table::PROPYLENE_FREEZE_C, &table::PROPYLENE_RHO, &table::PROPYLENE_LN_MU),
+    }
+}
+
+/// Row index and weight of `x` between rows (clamped into the table).
+fn bracket(x: f64) -> (usize, f64) {
+    let f = &table::FRACTIONS;
+    let step = f[1] - f[0];
+    let pos = ((x - f[0]) / step).clamp(0.0, (f.len() - 1) as f64);
+    let i = (pos.floor() as usize).min(f.len() - 2);
+    (i, pos - i as f64)
+}
+
+/// Freezing point of a mixture, °C (linear between tabulated strengths).
+///
+/// # Errors
+/// [`FluidError::Concentration`] outside 10–60 % by mass.
+pub fn freezing_point_c(g: Glycol, fraction: f64) -> Result<f64, FluidError> {
+    let (lo, hi) = (table::FRACTIONS[0], table::FRACTIONS[table::FRACTIONS.len() - 1]);
+    if !(fraction.is_finite() && (lo - 1e-9..=hi + 1e-9).contains(&fraction)) {
+        return Err(FluidError::Concentration { fraction, min: lo, max: hi });
+    }
+    let (freeze, _, _) = tables(g);
+    let (i, w) = bracket(fraction);
+    Ok(freeze[i] * (1.0 - w) + freeze[i + 1] * w)
+}
+
+/// Density and viscosity of a glycol solution.
+///
+/// # Errors
+/// [`FluidError::Concentration`] outside 10–60 %; [`FluidError::Freezes`]
+/// below the freezing point; [`FluidError::TemperatureRange`] above 100 °C or
+/// below the table's −50 °C.
+///
+/// # Examples
+/// ```
+/// use headroom::hydraulics::{fluid::Glycol, glycol};
+/// use uom::si::{f64::ThermodynamicTemperature, thermodynamic_temperature::degree_celsius};
+/// let p = glycol::properties(Glycol::Ethylene, 0.30, ThermodynamicTemperature::new::<degree_celsius>(20.0)).unwrap();
+/// // CoolProp 8.0.0 INCOMP::MEG-30% at 20 °C: 1038.05 kg/m³, 2.166 mPa·s.
+/// assert!((p.density_kg_m3() - 1038.05).abs() < 0.05);
+/// assert!((p.viscosity_pa_s() * 1e3 - 2.166).abs() < 0.002);
+/// ```
+pub fn properties(g: Glycol, fraction: f64, t: ThermodynamicTemperature) -> Result<Properties, FluidError> {
+    let t_c = t.get::<degree_celsius>();
+    let freeze_c = freezing_point_c(g, fraction)?;
+    if !t_c.is_finite() || t_c > T_MAX_C {
+        return Err(FluidError::TemperatureRange { t_c, min_c: freeze_c.max(table::T_MIN_C), max_c: T_MAX_C });
+    }
+    if t_c < freeze_c {
+        return Err(FluidError::Freezes { t_c, freeze_c });
+    }
+    if t_c < table::T_MIN_C {
+        return Err(FluidError::TemperatureRange { t_c, min_c: table::T_MIN_C, max_c: T_MAX_C });
+    }
+    let (_, rho, ln_mu) = tables(g);
+    let (i, wx) = bracket(fraction);
+    let pos = ((t_c - table::T_MIN_C) / table::T_STEP_C).clamp(0.0, (table::NT - 1) as f64);
+    let j = (pos.floor() as usize).min(table::NT - 2);
+    let wt = pos - j as f64;
+    let bilinear = |m: &[[f64; table::NT]; 11]| {
+        let a = m[i][j] * (1.0 - wt) + m[i][j + 1] * wt;
+        let b = m[i + 1][j] * (1.0 - wt) + m[i + 1][j + 1] * wt;
+        a * (1.0 - wx) + b * wx
+    };
+    Ok(Properties {
+        density: MassDensity::new::<kilogram_per_cubic_meter>(bilinear(rho)),
+        viscosity: DynamicViscosity::new::<pascal_second>(bilinear(ln_mu).exp()),
+    })
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn at(c: f64) -> ThermodynamicTemperature {
+        ThermodynamicTemperature::new::<degree_celsius>(c)
+    }
+
+    #[test]
+    fn below_freezing_is_an_error() {
+        // CoolProp 8.0.0: INCOMP::MEG-30% freezes at −14.58 °C.
+        let e = properties(Glycol::Ethylene, 0.30, at(-16.0)).unwrap_err();
+        assert!(matches!(e, FluidError::Freezes { freeze_c, .. } if (freeze_c + 14.58).abs() < 0.01));
+        assert!(properties(Glycol::Ethylene, 0.30, at(-14.0)).is_ok());
+    }
+
+    #[test]
+    fn strength_outside_the_table_is_an_error() {
+        assert!(properties(Glycol::Propylene, 0.05, at(20.0)).is_err());
+        assert!(properties(Glycol::Propylene, 0.70, at(20.0)).is_err());
+    }
+
+    #[test]
+    fn propylene_is_more_viscous_than_ethylene_at_the_same_strength() {
+        // Common knowledge of the trade, and what both tables say.
+        let e = properties(Glycol::Ethylene, 0.40, at(5.0)).unwrap();
+        let p = properties(Glycol::Propylene, 0.40, at(5.0)).unwrap();
+        assert!(p.viscosity_pa_s() > e.viscosity_pa_s());
+    }
+}
