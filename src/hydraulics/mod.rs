@@ -7,6 +7,10 @@
 pub mod fluid;
 pub mod friction;
 pub mod geometry;
+pub mod pipes;
+pub mod sizing;
 pub mod glycol;
 pub mod glycol_table;
+pub mod line;
+pub mod losses;
 pub mod water;

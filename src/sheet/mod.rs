@@ -6,3 +6,4 @@
 
 pub mod number;
 pub mod quick;
+pub mod units;

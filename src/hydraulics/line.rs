@@ -1,0 +1,363 @@
+//! One line's design data, evaluated at one bore and one flow.
+//!
+//! Pressure drop by Darcy–Weisbach,
+//! Δp/L = f ρ V² / (2 D)
+//! (Weisbach 1845, Darcy 1857; in the form of any fluid mechanics text, e.g.
+//! White, *Fluid Mechanics*, eq. 6.10), or by Hazen–Williams for water.
+//! Total drop = friction over (length + equivalent length) + ΣK ρV²/2 +
+//! ρ g Δz.
+
+use uom::si::f64::{Length, Pressure, ThermodynamicTemperature, Velocity, VolumeRate};
+use uom::si::length::meter;
+use uom::si::pressure::pascal;
+use uom::si::thermodynamic_temperature::degree_celsius;
+use uom::si::velocity::meter_per_second;
+use uom::si::{Quantity, ISQ, SI};
+use uom::typenum::{N2, P1, Z0};
+
+use super::fluid::{Fluid, FluidError, Properties};
+use super::friction::{self, Regime};
+use super::geometry::{flow_area, mean_velocity};
+use super::losses::{self, Fittings, G_N};
+use super::pipes::Series;
+
+/// Pressure per length (M L⁻² T⁻²), which `uom` has no name for.
+pub type PressureGradient = Quantity<ISQ<N2, P1, N2, Z0, Z0, Z0, Z0>, SI<f64>, f64>;
+
+/// Builds a [`PressureGradient`] from pascals per metre.
+pub fn pa_per_m(v: f64) -> PressureGradient {
+    Pressure::new::<pascal>(v) / Length::new::<meter>(1.0)
+}
+
+/// Reads a [`PressureGradient`] in pascals per metre.
+pub fn in_pa_per_m(g: PressureGradient) -> f64 {
+    g.value
+}
+
+/// How friction loss is computed.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum Method {
+    /// Darcy–Weisbach with the friction factor of [`friction::darcy`].
+    DarcyWeisbach,
+    /// Hazen–Williams with a C factor: water near room temperature only.
+    HazenWilliams {
+        /// The C factor.
+        c: f64,
+    },
+}
+
+/// The pipe the line is made of: a standard series, or one bore typed in.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum Pipe {
+    /// Every nominal size of a standard series is a candidate.
+    Series(&'static Series),
+    /// One inside diameter entered directly.
+    Custom(Length),
+}
+
+impl Pipe {
+    /// Candidate bores, smallest first, with their trade names.
+    pub fn bores(&self) -> Vec<(&'static str, Length)> {
+        match self {
+            Pipe::Series(s) => s.sizes.iter().map(|z| (z.nominal, z.bore())).collect(),
+            Pipe::Custom(d) => vec![("custom bore", *d)],
+        }
+    }
+}
+
+/// Design limits; any may be absent.
+#[derive(Debug, Clone, Copy, PartialEq, Default)]
+pub struct Limits {
+    /// Largest friction drop per length of straight pipe.
+    pub max_drop_per_length: Option<PressureGradient>,
+    /// Largest total drop over the line (friction, fittings and rise).
+    pub max_total_drop: Option<Pressure>,
+    /// Largest mean velocity.
+    pub max_velocity: Option<Velocity>,
+    /// Smallest mean velocity (to keep air or solids moving).
+    pub min_velocity: Option<Velocity>,
+}
+
+/// One of the limits.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+pub enum Limit {
+    /// Friction drop per length.
+    DropPerLength,
+    /// Total drop.
+    TotalDrop,
+    /// Largest velocity.
+    MaxVelocity,
+    /// Smallest velocity.
+    MinVelocity,
+}
+
+impl Limit {
+    /// A plain name.
+    pub fn name(self) -> &'static str {
+        match self {
+            Limit::DropPerLength => "drop per length",
+            Limit::TotalDrop => "total drop",
+            Limit::MaxVelocity => "maximum velocity",
+            Limit::MinVelocity => "minimum velocity",
+        }
+    }
+
+    /// Stable identifier for files.
+    pub fn id(self) -> &'static str {
+        match self {
+            Limit::DropPerLength => "drop_per_length",
+            Limit::TotalDrop => "total_drop",
+            Limit::MaxVelocity => "max_velocity",
+            Limit::MinVelocity => "min_velocity",
+        }
+    }
+}
+
+/// Why a line cannot be evaluated.
+#[derive(Debug, Clone, PartialEq)]
+pub enum LineError {
+    /// Fluid properties could not be found.
+    Fluid(FluidError),
+    /// A value that must be positive and finite is not.
+    NotPositive(&'static str),
+    /// A value that must be finite is not.
+    NotFinite(&'static str),
+    /// The pipe roughness is negative or not finite.
+    Roughness,
+    /// The series has no sizes.
+    NoSizes,
+}
+
+impl std::fmt::Display for LineError {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        match self {
+            LineError::Fluid(e) => write!(f, "{e}"),
+            LineError::NotPositive(what) => write!(f, "{what} must be greater than zero"),
+            LineError::NotFinite(what) => write!(f, "{what} must be a finite number"),
+            LineError::Roughness => write!(f, "roughness must be zero or more"),
+            LineError::NoSizes => write!(f, "the pipe series has no sizes"),
+        }
+    }
+}
+
+impl std::error::Error for LineError {}
+
+/// All the design data of one line.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Line {
+    /// Volume flow.
+    pub flow: VolumeRate,
+    /// The fluid.
+    pub fluid: Fluid,
+    /// Fluid temperature.
+    pub temperature: ThermodynamicTemperature,
+    /// Absolute pressure the fluid is at (water: must keep it liquid).
+    pub pressure: Pressure,
+    /// Pipe series or custom bore.
+    pub pipe: Pipe,
+    /// Absolute roughness ε.
+    pub roughness: Length,
+    /// Length of straight pipe.
+    pub length: Length,
+    /// Fittings, ΣK and equivalent length.
+    pub fittings: Fittings,
+    /// Rise from start to end (negative for a fall).
+    pub rise: Length,
+    /// Friction method.
+    pub method: Method,
+    /// Design limits.
+    pub limits: Limits,
+}
+
+/// The hydraulic state of a line at one bore and one flow.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Point {
+    /// Inside diameter.
+    pub bore: Length,
+    /// Mean velocity.
+    pub velocity: Velocity,
+    /// Re = ρ V D / μ.
+    pub reynolds: f64,
+    /// ε / D.
+    pub relative_roughness: f64,
+    /// Regime of Re.
+    pub regime: Regime,
+    /// Darcy friction factor (for Hazen–Williams, the equivalent f).
+    pub friction_factor: f64,
+    /// Friction drop per length of straight pipe.
+    pub drop_per_length: PressureGradient,
+    /// ΣK of the fittings at this Re and bore.
+    pub sum_k: f64,
+    /// Friction over length + equivalent length.
+    pub friction_drop: Pressure,
+    /// ΣK ρ V² / 2.
+    pub fittings_drop: Pressure,
+    /// ρ g Δz.
+    pub static_drop: Pressure,
+    /// The sum of the three.
+    pub total_drop: Pressure,
+}
+
+fn positive(v: f64, what: &'static str) -> Result<(), LineError> {
+    if v.is_finite() && v > 0.0 {
+        Ok(())
+    } else {
+        Err(LineError::NotPositive(what))
+    }
+}
+
+impl Line {
+    /// Density and viscosity at the line's temperature and pressure.
+    ///
+    /// # Errors
+    /// [`LineError::Fluid`].
+    pub fn properties(&self) -> Result<Properties, LineError> {
+        self.fluid.properties(self.temperature, self.pressure).map_err(LineError::Fluid)
+    }
+
+    /// Checks every input that the core cannot work without.
+    ///
+    /// # Errors
+    /// The first bad input, as a [`LineError`].
+    pub fn validate(&self) -> Result<Properties, LineError> {
+        positive(self.flow.value, "flow")?;
+        if !(self.length.value.is_finite() && self.length.value >= 0.0) {
+            return Err(LineError::NotFinite("length"));
+        }
+        if !(self.roughness.value.is_finite() && self.roughness.value >= 0.0) {
+            return Err(LineError::Roughness);
+        }
+        if !self.rise.value.is_finite() {
+            return Err(LineError::NotFinite("rise"));
+        }
+        if !(self.fittings.extra_k.is_finite() && self.fittings.extra_k >= 0.0) {
+            return Err(LineError::NotFinite("ΣK"));
+        }
+        if let Some(le) = self.fittings.equivalent_length {
+            if !(le.value.is_finite() && le.value >= 0.0) {
+                return Err(LineError::NotFinite("equivalent length"));
+            }
+        }
+        if let Method::HazenWilliams { c } = self.method {
+            positive(c, "Hazen–Williams C")?;
+        }
+        let bores = self.pipe.bores();
+        if bores.is_empty() {
+            return Err(LineError::NoSizes);
+        }
+        for (_, d) in bores {
+            positive(d.value, "inside diameter")?;
+        }
+        let l = &self.limits;
+        for (v, what) in [
+            (l.max_drop_per_length.map(|g| g.value), "drop-per-length limit"),
+            (l.max_total_drop.map(|p| p.value), "total-drop limit"),
+            (l.max_velocity.map(|v| v.value), "maximum velocity"),
+            (l.min_velocity.map(|v| v.value), "minimum velocity"),
+        ] {
+            if let Some(v) = v {
+                positive(v, what)?;
+            }
+        }
+        self.properties()
+    }
+
+    /// The hydraulic state at `bore` carrying `flow`. Inputs must have
+    /// passed [`Line::validate`]; `props` is what it returned.
+    pub fn point(&self, props: &Properties, bore: Length, flow: VolumeRate) -> Point {
+        let velocity = mean_velocity(flow, bore);
+        let v = velocity.get::<meter_per_second>();
+        let d = bore.get::<meter>();
+        let rho = props.density_kg_m3();
+        let mu = props.viscosity_pa_s();
+        let reynolds = rho * v * d / mu;
+        let relative_roughness = (self.roughness.get::<meter>() / d).min(0.099);
+        let regime = Regime::of(reynolds.max(f64::MIN_POSITIVE));
+        let (friction_factor, dpl) = match self.method {
+            Method::DarcyWeisbach => {
+                let f = friction::darcy(reynolds.max(f64::MIN_POSITIVE), relative_roughness)
+                    .map(|fr| fr.f)
+                    .unwrap_or(f64::NAN);
+                (f, f * rho * v * v / (2.0 * d))
+            }
+            Method::HazenWilliams { c } => {
+                let s = hazen_williams_slope(v, d, c);
+                let dpl = rho * G_N * s;
+                let f = if v > 0.0 { 2.0 * G_N * d * s / (v * v) } else { 0.0 };
+                (f, dpl)
+            }
+        };
+        let drop_per_length = pa_per_m(dpl);
+        let run = self.length + self.fittings.equivalent_length.unwrap_or(Length::new::<meter>(0.0));
+        let friction_drop = drop_per_length * run;
+        let sum_k = self.fittings.sum_k(reynolds.max(1.0), bore);
+        let fittings_drop = losses::minor_loss(sum_k, props.density, velocity);
+        let static_drop = losses::static_pressure(self.rise, props.density);
+        Point {
+            bore,
+            velocity,
+            reynolds,
+            relative_roughness,
+            regime,
+            friction_factor,
+            drop_per_length,
+            sum_k,
+            friction_drop,
+            fittings_drop,
+            static_drop,
+            total_drop: friction_drop + fittings_drop + static_drop,
+        }
+    }
+
+    /// Cautions about the method for this line, as plain sentences.
+    pub fn method_warnings(&self) -> Vec<&'static str> {
+        let mut out = Vec::new();
+        if let Method::HazenWilliams { .. } = self.method {
+            let t = self.temperature.get::<degree_celsius>();
+            if !matches!(self.fluid, Fluid::Water) || !(5.0..=25.0).contains(&t) {
+                out.push(
+                    "Hazen–Williams is an empirical fit for water near room temperature \
+                     (about 5–25 °C); for this fluid or temperature use Darcy–Weisbach",
+                );
+            }
+        }
+        out
+    }
+}
+
+/// Hydraulic gradient (head loss per length, m/m) by Hazen–Williams in SI:
+/// V = k C R^0.63 S^0.54, k = 0.849, R = D/4, so S = (V / (k C R^0.63))^(1/0.54).
+///
+/// Williams, G. S., Hazen, A. (1905, 1920). *Hydraulic Tables*. Wiley. The SI
+/// constant 0.849 is 1.318 (US units) × 0.3048^0.37 (common practice).
+pub fn hazen_williams_slope(v: f64, d: f64, c: f64) -> f64 {
+    let r = d / 4.0;
+    (v / (0.849 * c * r.powf(0.63))).powf(1.0 / 0.54)
+}
+
+/// Flow area as a convenience for callers working in flow and bore.
+pub fn area_of(bore: Length) -> uom::si::f64::Area {
+    flow_area(bore)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn hazen_williams_si_constant_matches_the_us_form() {
+        // 1.318 · 0.3048^0.37 = 0.8492: the SI constant is the US one converted.
+        assert!((1.318 * 0.3048f64.powf(0.37) - 0.849).abs() < 5e-4);
+    }
+
+    #[test]
+    fn hazen_williams_against_the_usual_si_head_loss_form() {
+        // hf/L = 10.67 Q^1.852 / (C^1.852 D^4.8704), the SI form printed in
+        // water-supply texts (common practice). Q = 0.01 m³/s, D = 0.1 m, C = 130.
+        let (q, d, c) = (0.01f64, 0.1f64, 130.0f64);
+        let v = q / (std::f64::consts::FRAC_PI_4 * d * d);
+        let s = hazen_williams_slope(v, d, c);
+        let printed = 10.67 * q.powf(1.852) / (c.powf(1.852) * d.powf(4.8704));
+        assert!(((s - printed) / printed).abs() < 0.01, "{s} vs {printed}");
+    }
+}

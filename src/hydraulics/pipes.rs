@@ -1,0 +1,427 @@
+//! Pipe standards: real nominal sizes with outside diameter and wall, so the
+//! bore is the real one; and the materials they are made of, with roughness
+//! and Hazen–Williams C.
+//!
+//! Every table names its standard. All dimensions were typed from memory of
+//! the standards; `tests/reference.rs` compares each size against the tables
+//! in the `fluids` package (PyPI) where it has that standard (ASME B36.10M,
+//! B36.19M, ASTM D1785, BS 1387 for EN 10255) and says which it could not
+//! check (ASTM B88 copper, ISO 4065 PE, which `fluids` does not carry).
+//!
+//! US-customary tables are kept in inches as the standards print them and
+//! converted with 1 in = 25.4 mm exactly (NIST SP 811, appendix B.8).
+
+use uom::si::f64::Length;
+use uom::si::length::millimeter;
+
+/// One nominal size of a series.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Size {
+    /// Trade designation: "2", "1-1/2", "DN50", "63".
+    pub nominal: &'static str,
+    /// Outside diameter, mm.
+    pub od_mm: f64,
+    /// Wall thickness, mm.
+    pub wall_mm: f64,
+}
+
+impl Size {
+    /// Inside diameter, D = OD − 2t.
+    pub fn bore(&self) -> Length {
+        Length::new::<millimeter>(self.od_mm - 2.0 * self.wall_mm)
+    }
+}
+
+/// What a pipe is made of: sets default roughness and Hazen–Williams C.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+pub enum Material {
+    /// Carbon steel.
+    CarbonSteel,
+    /// Austenitic stainless steel.
+    StainlessSteel,
+    /// Drawn copper tube.
+    Copper,
+    /// PVC.
+    Pvc,
+    /// Polyethylene (PE80/PE100).
+    Polyethylene,
+}
+
+/// Roughness of a material, with where the numbers come from.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Roughness {
+    /// New, clean pipe, mm.
+    pub new_mm: f64,
+    /// Aged pipe in water service, mm, where a published source gives it.
+    pub aged_mm: Option<f64>,
+    /// Source of the numbers.
+    pub source: &'static str,
+}
+
+impl Material {
+    /// A plain name for display.
+    pub fn name(self) -> &'static str {
+        match self {
+            Material::CarbonSteel => "carbon steel",
+            Material::StainlessSteel => "stainless steel",
+            Material::Copper => "copper",
+            Material::Pvc => "PVC",
+            Material::Polyethylene => "polyethylene",
+        }
+    }
+
+    /// Absolute roughness ε.
+    pub fn roughness(self) -> Roughness {
+        match self {
+            Material::CarbonSteel => Roughness {
+                new_mm: 0.045,
+                aged_mm: Some(0.2),
+                source: "new: Moody (1944), Trans. ASME 66, commercial steel 0.00015 ft; aged: \
+                         Idelchik, Handbook of Hydraulic Resistance, seamless steel, water heating \
+                         system pipelines, 0.2 mm (as tabulated in fluids 1.3.1, HHR_roughness)",
+            },
+            Material::StainlessSteel => Roughness {
+                new_mm: 0.015,
+                aged_mm: None,
+                source: "common practice for drawn or cold-finished stainless pipe (value from memory)",
+            },
+            Material::Copper => Roughness {
+                new_mm: 0.0015,
+                aged_mm: None,
+                source: "Moody (1944), drawn tubing 0.000005 ft; within Idelchik's 0.0015–0.01 mm for \
+                         commercially smooth copper (fluids 1.3.1, HHR_roughness)",
+            },
+            Material::Pvc => Roughness {
+                new_mm: 0.0015,
+                aged_mm: None,
+                source: "common practice for smooth plastic pipe (value from memory)",
+            },
+            Material::Polyethylene => Roughness {
+                new_mm: 0.007,
+                aged_mm: None,
+                source: "common practice for PE pressure pipe (value from memory)",
+            },
+        }
+    }
+
+    /// Hazen–Williams C for new pipe, and its source.
+    pub fn hazen_williams_c(self) -> (f64, &'static str) {
+        const NFPA: &str = "NFPA 13 table of Hazen–Williams C values (from memory)";
+        match self {
+            Material::CarbonSteel => (120.0, NFPA),
+            Material::StainlessSteel => (150.0, NFPA),
+            Material::Copper => (150.0, NFPA),
+            Material::Pvc => (150.0, NFPA),
+            Material::Polyethylene => (150.0, NFPA),
+        }
+    }
+}
+
+/// A series: one standard at one wall class (schedule, type or SDR).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Series {
+    /// Stable identifier used in sheet files: never change one once shipped.
+    pub id: &'static str,
+    /// Name for display.
+    pub label: &'static str,
+    /// The standard, cited.
+    pub standard: &'static str,
+    /// Material.
+    pub material: Material,
+    /// Sizes, smallest bore first.
+    pub sizes: &'static [Size],
+}
+
+impl Series {
+    /// Finds a size by its nominal designation.
+    pub fn size(&self, nominal: &str) -> Option<&'static Size> {
+        self.sizes.iter().find(|s| s.nominal == nominal)
+    }
+}
+
+macro_rules! inch_sizes {
+    ($( $nps:literal : $od:literal , $t:literal );* $(;)?) => {
+        &[ $( Size { nominal: $nps, od_mm: $od * 25.4, wall_mm: $t * 25.4 } ),* ]
+    };
+}
+
+macro_rules! mm_sizes {
+    ($( $dn:literal : $od:literal , $t:literal );* $(;)?) => {
+        &[ $( Size { nominal: $dn, od_mm: $od, wall_mm: $t } ),* ]
+    };
+}
+
+const B36_10M: &str = "ASME B36.10M, Welded and Seamless Wrought Steel Pipe";
+const B36_19M: &str = "ASME B36.19M, Stainless Steel Pipe";
+const B88: &str = "ASTM B88, Seamless Copper Water Tube (OD = nominal + 1/8 in)";
+const D1785: &str = "ASTM D1785, PVC Plastic Pipe, Schedules 40, 80 and 120";
+
+/// Every series Headroom knows.
+pub const SERIES: &[Series] = &[
+    Series {
+        id: "steel-sch40",
+        label: "Carbon steel, Sch 40",
+        standard: B36_10M,
+        material: Material::CarbonSteel,
+        sizes: inch_sizes! {
+            "1/8": 0.405, 0.068; "1/4": 0.540, 0.088; "3/8": 0.675, 0.091; "1/2": 0.840, 0.109;
+            "3/4": 1.050, 0.113; "1": 1.315, 0.133; "1-1/4": 1.660, 0.140; "1-1/2": 1.900, 0.145;
+            "2": 2.375, 0.154; "2-1/2": 2.875, 0.203; "3": 3.500, 0.216; "3-1/2": 4.000, 0.226;
+            "4": 4.500, 0.237; "5": 5.563, 0.258; "6": 6.625, 0.280; "8": 8.625, 0.322;
+            "10": 10.750, 0.365; "12": 12.750, 0.406; "14": 14.000, 0.438; "16": 16.000, 0.500;
+            "18": 18.000, 0.562; "20": 20.000, 0.594; "24": 24.000, 0.688;
+        },
+    },
+    Series {
+        id: "steel-sch80",
+        label: "Carbon steel, Sch 80",
+        standard: B36_10M,
+        material: Material::CarbonSteel,
+        sizes: inch_sizes! {
+            "1/8": 0.405, 0.095; "1/4": 0.540, 0.119; "3/8": 0.675, 0.126; "1/2": 0.840, 0.147;
+            "3/4": 1.050, 0.154; "1": 1.315, 0.179; "1-1/4": 1.660, 0.191; "1-1/2": 1.900, 0.200;
+            "2": 2.375, 0.218; "2-1/2": 2.875, 0.276; "3": 3.500, 0.300; "3-1/2": 4.000, 0.318;
+            "4": 4.500, 0.337; "5": 5.563, 0.375; "6": 6.625, 0.432; "8": 8.625, 0.500;
+            "10": 10.750, 0.594; "12": 12.750, 0.688; "14": 14.000, 0.750; "16": 16.000, 0.844;
+            "18": 18.000, 0.938; "20": 20.000, 1.031; "24": 24.000, 1.219;
+        },
+    },
+    Series {
+        id: "steel-std",
+        label: "Carbon steel, STD",
+        standard: B36_10M,
+        material: Material::CarbonSteel,
+        sizes: inch_sizes! {
+            "1/8": 0.405, 0.068; "1/4": 0.540, 0.088; "3/8": 0.675, 0.091; "1/2": 0.840, 0.109;
+            "3/4": 1.050, 0.113; "1": 1.315, 0.133; "1-1/4": 1.660, 0.140; "1-1/2": 1.900, 0.145;
+            "2": 2.375, 0.154; "2-1/2": 2.875, 0.203; "3": 3.500, 0.216; "3-1/2": 4.000, 0.226;
+            "4": 4.500, 0.237; "5": 5.563, 0.258; "6": 6.625, 0.280; "8": 8.625, 0.322;
+            "10": 10.750, 0.365; "12": 12.750, 0.375; "14": 14.000, 0.375; "16": 16.000, 0.375;
+            "18": 18.000, 0.375; "20": 20.000, 0.375; "24": 24.000, 0.375;
+        },
+    },
+    Series {
+        id: "steel-xs",
+        label: "Carbon steel, XS",
+        standard: B36_10M,
+        material: Material::CarbonSteel,
+        sizes: inch_sizes! {
+            "1/8": 0.405, 0.095; "1/4": 0.540, 0.119; "3/8": 0.675, 0.126; "1/2": 0.840, 0.147;
+            "3/4": 1.050, 0.154; "1": 1.315, 0.179; "1-1/4": 1.660, 0.191; "1-1/2": 1.900, 0.200;
+            "2": 2.375, 0.218; "2-1/2": 2.875, 0.276; "3": 3.500, 0.300; "3-1/2": 4.000, 0.318;
+            "4": 4.500, 0.337; "5": 5.563, 0.375; "6": 6.625, 0.432; "8": 8.625, 0.500;
+            "10": 10.750, 0.500; "12": 12.750, 0.500; "14": 14.000, 0.500; "16": 16.000, 0.500;
+            "18": 18.000, 0.500; "20": 20.000, 0.500; "24": 24.000, 0.500;
+        },
+    },
+    Series {
+        id: "stainless-5s",
+        label: "Stainless steel, Sch 5S",
+        standard: B36_19M,
+        material: Material::StainlessSteel,
+        sizes: inch_sizes! {
+            "1/2": 0.840, 0.065; "3/4": 1.050, 0.065; "1": 1.315, 0.065; "1-1/4": 1.660, 0.065;
+            "1-1/2": 1.900, 0.065; "2": 2.375, 0.065; "2-1/2": 2.875, 0.083; "3": 3.500, 0.083;
+            "3-1/2": 4.000, 0.083; "4": 4.500, 0.083; "5": 5.563, 0.109; "6": 6.625, 0.109;
+            "8": 8.625, 0.109; "10": 10.750, 0.134; "12": 12.750, 0.156; "14": 14.000, 0.156;
+            "16": 16.000, 0.165; "18": 18.000, 0.165; "20": 20.000, 0.188; "24": 24.000, 0.218;
+        },
+    },
+    Series {
+        id: "stainless-10s",
+        label: "Stainless steel, Sch 10S",
+        standard: B36_19M,
+        material: Material::StainlessSteel,
+        sizes: inch_sizes! {
+            "1/8": 0.405, 0.049; "1/4": 0.540, 0.065; "3/8": 0.675, 0.065; "1/2": 0.840, 0.083;
+            "3/4": 1.050, 0.083; "1": 1.315, 0.109; "1-1/4": 1.660, 0.109; "1-1/2": 1.900, 0.109;
+            "2": 2.375, 0.109; "2-1/2": 2.875, 0.120; "3": 3.500, 0.120; "3-1/2": 4.000, 0.120;
+            "4": 4.500, 0.120; "5": 5.563, 0.134; "6": 6.625, 0.134; "8": 8.625, 0.148;
+            "10": 10.750, 0.165; "12": 12.750, 0.180; "14": 14.000, 0.188; "16": 16.000, 0.188;
+            "18": 18.000, 0.188; "20": 20.000, 0.218; "24": 24.000, 0.250;
+        },
+    },
+    Series {
+        id: "stainless-40s",
+        label: "Stainless steel, Sch 40S",
+        standard: B36_19M,
+        material: Material::StainlessSteel,
+        sizes: inch_sizes! {
+            "1/8": 0.405, 0.068; "1/4": 0.540, 0.088; "3/8": 0.675, 0.091; "1/2": 0.840, 0.109;
+            "3/4": 1.050, 0.113; "1": 1.315, 0.133; "1-1/4": 1.660, 0.140; "1-1/2": 1.900, 0.145;
+            "2": 2.375, 0.154; "2-1/2": 2.875, 0.203; "3": 3.500, 0.216; "3-1/2": 4.000, 0.226;
+            "4": 4.500, 0.237; "5": 5.563, 0.258; "6": 6.625, 0.280; "8": 8.625, 0.322;
+            "10": 10.750, 0.365; "12": 12.750, 0.375;
+        },
+    },
+    Series {
+        id: "stainless-80s",
+        label: "Stainless steel, Sch 80S",
+        standard: B36_19M,
+        material: Material::StainlessSteel,
+        sizes: inch_sizes! {
+            "1/8": 0.405, 0.095; "1/4": 0.540, 0.119; "3/8": 0.675, 0.126; "1/2": 0.840, 0.147;
+            "3/4": 1.050, 0.154; "1": 1.315, 0.179; "1-1/4": 1.660, 0.191; "1-1/2": 1.900, 0.200;
+            "2": 2.375, 0.218; "2-1/2": 2.875, 0.276; "3": 3.500, 0.300; "3-1/2": 4.000, 0.318;
+            "4": 4.500, 0.337; "5": 5.563, 0.375; "6": 6.625, 0.432; "8": 8.625, 0.500;
+            "10": 10.750, 0.500; "12": 12.750, 0.500;
+        },
+    },
+    Series {
+        id: "copper-k",
+        label: "Copper tube, Type K",
+        standard: B88,
+        material: Material::Copper,
+        sizes: inch_sizes! {
+            "1/4": 0.375, 0.035; "3/8": 0.500, 0.049; "1/2": 0.625, 0.049; "5/8": 0.750, 0.049;
+            "3/4": 0.875, 0.065; "1": 1.125, 0.065; "1-1/4": 1.375, 0.065; "1-1/2": 1.625, 0.072;
+            "2": 2.125, 0.083; "2-1/2": 2.625, 0.095; "3": 3.125, 0.109; "3-1/2": 3.625, 0.120;
+            "4": 4.125, 0.134; "5": 5.125, 0.160; "6": 6.125, 0.192; "8": 8.125, 0.271;
+            "10": 10.125, 0.338; "12": 12.125, 0.405;
+        },
+    },
+    Series {
+        id: "copper-l",
+        label: "Copper tube, Type L",
+        standard: B88,
+        material: Material::Copper,
+        sizes: inch_sizes! {
+            "1/4": 0.375, 0.030; "3/8": 0.500, 0.035; "1/2": 0.625, 0.040; "5/8": 0.750, 0.042;
+            "3/4": 0.875, 0.045; "1": 1.125, 0.050; "1-1/4": 1.375, 0.055; "1-1/2": 1.625, 0.060;
+            "2": 2.125, 0.070; "2-1/2": 2.625, 0.080; "3": 3.125, 0.090; "3-1/2": 3.625, 0.100;
+            "4": 4.125, 0.110; "5": 5.125, 0.125; "6": 6.125, 0.140; "8": 8.125, 0.200;
+            "10": 10.125, 0.250; "12": 12.125, 0.280;
+        },
+    },
+    Series {
+        id: "copper-m",
+        label: "Copper tube, Type M",
+        standard: B88,
+        material: Material::Copper,
+        sizes: inch_sizes! {
+            "3/8": 0.500, 0.025; "1/2": 0.625, 0.028; "3/4": 0.875, 0.032; "1": 1.125, 0.035;
+            "1-1/4": 1.375, 0.042; "1-1/2": 1.625, 0.049; "2": 2.125, 0.058; "2-1/2": 2.625, 0.065;
+            "3": 3.125, 0.072; "3-1/2": 3.625, 0.083; "4": 4.125, 0.095; "5": 5.125, 0.109;
+            "6": 6.125, 0.122; "8": 8.125, 0.170; "10": 10.125, 0.212; "12": 12.125, 0.254;
+        },
+    },
+    Series {
+        id: "pvc-sch40",
+        label: "PVC, Sch 40",
+        standard: D1785,
+        material: Material::Pvc,
+        // D1785 Sch 40 minimum walls equal B36.10M Sch 40 in these sizes.
+        sizes: inch_sizes! {
+            "1/2": 0.840, 0.109; "3/4": 1.050, 0.113; "1": 1.315, 0.133; "1-1/4": 1.660, 0.140;
+            "1-1/2": 1.900, 0.145; "2": 2.375, 0.154; "2-1/2": 2.875, 0.203; "3": 3.500, 0.216;
+            "4": 4.500, 0.237; "6": 6.625, 0.280; "8": 8.625, 0.322; "10": 10.750, 0.365;
+            "12": 12.750, 0.406;
+        },
+    },
+    Series {
+        id: "pvc-sch80",
+        label: "PVC, Sch 80",
+        standard: D1785,
+        material: Material::Pvc,
+        sizes: inch_sizes! {
+            "1/2": 0.840, 0.147; "3/4": 1.050, 0.154; "1": 1.315, 0.179; "1-1/4": 1.660, 0.191;
+            "1-1/2": 1.900, 0.200; "2": 2.375, 0.218; "2-1/2": 2.875, 0.276; "3": 3.500, 0.300;
+            "4": 4.500, 0.337; "6": 6.625, 0.432; "8": 8.625, 0.500; "10": 10.750, 0.594;
+            "12": 12.750, 0.688;
+        },
+    },
+    Series {
+        id: "en10255-medium",
+        label: "Steel tube, EN 10255 medium",
+        standard: "EN 10255, Non-alloy steel tubes suitable for welding and threading, medium series (M)",
+        material: Material::CarbonSteel,
+        sizes: mm_sizes! {
+            "DN8": 13.5, 2.3; "DN10": 17.2, 2.3; "DN15": 21.3, 2.6; "DN20": 26.9, 2.6;
+            "DN25": 33.7, 3.2; "DN32": 42.4, 3.2; "DN40": 48.3, 3.2; "DN50": 60.3, 3.6;
+            "DN65": 76.1, 3.6; "DN80": 88.9, 4.0; "DN100": 114.3, 4.5; "DN125": 139.7, 5.0;
+            "DN150": 165.1, 5.0;
+        },
+    },
+    Series {
+        id: "pe100-sdr11",
+        label: "PE100, SDR 11",
+        standard: "ISO 4065 / EN 12201-2 polyethylene pressure pipe, SDR 11 (outside diameter dn, wall ≈ dn/11)",
+        material: Material::Polyethylene,
+        sizes: mm_sizes! {
+            "20": 20.0, 2.0; "25": 25.0, 2.3; "32": 32.0, 2.9; "40": 40.0, 3.7; "50": 50.0, 4.6;
+            "63": 63.0, 5.8; "75": 75.0, 6.8; "90": 90.0, 8.2; "110": 110.0, 10.0; "125": 125.0, 11.4;
+            "140": 140.0, 12.7; "160": 160.0, 14.6; "180": 180.0, 16.4; "200": 200.0, 18.2;
+            "225": 225.0, 20.5; "250": 250.0, 22.7; "280": 280.0, 25.4; "315": 315.0, 28.6;
+            "355": 355.0, 32.2; "400": 400.0, 36.3; "450": 450.0, 40.9; "500": 500.0, 45.4;
+        },
+    },
+];
+
+/// Finds a series by its identifier.
+pub fn series(id: &str) -> Option<&'static Series> {
+    SERIES.iter().find(|s| s.id == id)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn every_series_runs_smallest_bore_first_with_unique_names() {
+        for s in SERIES {
+            for pair in s.sizes.windows(2) {
+                assert!(pair[0].bore() < pair[1].bore(), "{}: {} then {}", s.id, pair[0].nominal, pair[1].nominal);
+            }
+            let mut names: Vec<_> = s.sizes.iter().map(|z| z.nominal).collect();
+            names.sort_unstable();
+            names.dedup();
+            assert_eq!(names.len(), s.sizes.len(), "{}", s.id);
+        }
+        let mut ids: Vec<_> = SERIES.iter().map(|s| s.id).collect();
+        ids.sort_unstable();
+        ids.dedup();
+        assert_eq!(ids.len(), SERIES.len());
+    }
+
+    #[test]
+    fn copper_tube_od_is_nominal_plus_an_eighth() {
+        // ASTM B88's defining rule for water tube sizes.
+        for s in SERIES.iter().filter(|s| s.material == Material::Copper) {
+            for z in s.sizes {
+                let nominal_in: f64 = match z.nominal.split_once('-') {
+                    Some((whole, frac)) => whole.parse::<f64>().unwrap() + fraction(frac),
+                    None if z.nominal.contains('/') => fraction(z.nominal),
+                    None => z.nominal.parse().unwrap(),
+                };
+                assert!((z.od_mm / 25.4 - nominal_in - 0.125).abs() < 1e-9, "{} {}", s.id, z.nominal);
+            }
+        }
+        fn fraction(t: &str) -> f64 {
+            let (a, b) = t.split_once('/').unwrap();
+            a.parse::<f64>().unwrap() / b.parse::<f64>().unwrap()
+        }
+    }
+
+    #[test]
+    fn copper_type_l_bores_match_the_copper_tube_handbook() {
+        // Copper Development Association, Copper Tube Handbook, table of
+        // Type L dimensions (inside diameters from memory): 3/4 → 0.785 in,
+        // 1 → 1.025 in, 2 → 1.985 in, 4 → 3.905 in.
+        let l = series("copper-l").unwrap();
+        for (n, id_in) in [("3/4", 0.785), ("1", 1.025), ("2", 1.985), ("4", 3.905)] {
+            let got = l.size(n).unwrap().bore().get::<millimeter>() / 25.4;
+            assert!((got - id_in).abs() < 5e-4, "{n}: {got}");
+        }
+    }
+
+    #[test]
+    fn pe_walls_follow_the_sdr_rule() {
+        // ISO 4065: e ≈ dn / SDR; the tabulated walls are that value rounded
+        // to a 0.1 mm step (never less than 2.0 mm for SDR 11).
+        let pe = series("pe100-sdr11").unwrap();
+        for z in pe.sizes {
+            let e = (z.od_mm / 11.0).max(2.0);
+            assert!((z.wall_mm - e).abs() <= 0.1 + 1e-9, "{}: {} vs {e:.2}", z.nominal, z.wall_mm);
+        }
+    }
+}

@@ -1,0 +1,300 @@
+//! The sizing search: every nominal size of the line's series, smallest
+//! first, each judged against every limit; the answer is the smallest that
+//! meets them all. Also check mode (one named size), capacity (the largest
+//! flow each size can carry within the limits) and the explain trace.
+
+use uom::si::f64::{Length, Pressure, Velocity, VolumeRate};
+use uom::si::volume_rate::cubic_meter_per_second;
+
+use super::fluid::Properties;
+use super::friction::Regime;
+use super::line::{Limit, Line, LineError, Method, Point};
+
+/// One limit checked at one size.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Check {
+    /// Which limit.
+    pub limit: Limit,
+    /// The line's value, SI (Pa/m, Pa or m/s).
+    pub value: f64,
+    /// The limit, SI.
+    pub allowed: f64,
+    /// Headroom as a fraction of the limit: positive inside, negative
+    /// outside. For maxima (allowed − value)/allowed; for the minimum
+    /// velocity (value − allowed)/allowed.
+    pub headroom: f64,
+}
+
+impl Check {
+    /// Whether the limit is met.
+    pub fn met(&self) -> bool {
+        self.headroom >= 0.0
+    }
+}
+
+/// One nominal size evaluated.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Candidate {
+    /// Trade designation of the size.
+    pub nominal: &'static str,
+    /// Hydraulic state at the design flow.
+    pub point: Point,
+    /// Every limit the line has, checked.
+    pub checks: Vec<Check>,
+    /// The limit closest to failing (when all are met) or furthest broken.
+    pub binding: Option<Limit>,
+}
+
+impl Candidate {
+    /// True when every limit is met.
+    pub fn passes(&self) -> bool {
+        self.checks.iter().all(Check::met)
+    }
+
+    /// True when the friction factor is uncertain (transition zone).
+    pub fn uncertain(&self) -> bool {
+        self.point.regime == Regime::Transition
+    }
+}
+
+/// The answer for one line.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Sizing {
+    /// Fluid properties used.
+    pub properties: Properties,
+    /// Every size, smallest first.
+    pub candidates: Vec<Candidate>,
+    /// Index into `candidates` of the proposed size, if any meets every limit.
+    pub proposed: Option<usize>,
+    /// When none does: the limits the largest size still fails.
+    pub failing_at_largest: Vec<Limit>,
+    /// Cautions about the method for this line.
+    pub warnings: Vec<&'static str>,
+}
+
+impl Sizing {
+    /// The proposed candidate.
+    pub fn proposal(&self) -> Option<&Candidate> {
+        self.proposed.map(|i| &self.candidates[i])
+    }
+}
+
+/// Checks a point against the line's limits.
+pub fn judge(line: &Line, p: &Point) -> (Vec<Check>, Option<Limit>) {
+    let l = &line.limits;
+    let mut checks = Vec::with_capacity(4);
+    let max = |limit, value: f64, allowed: f64| Check { limit, value, allowed, headroom: (allowed - value) / allowed };
+    if let Some(g) = l.max_drop_per_length {
+        checks.push(max(Limit::DropPerLength, p.drop_per_length.value, g.value));
+    }
+    if let Some(dp) = l.max_total_drop {
+        checks.push(max(Limit::TotalDrop, p.total_drop.value, dp.value));
+    }
+    if let Some(v) = l.max_velocity {
+        checks.push(max(Limit::MaxVelocity, p.velocity.value, v.value));
+    }
+    if let Some(v) = l.min_velocity {
+        checks.push(Check {
+            limit: Limit::MinVelocity,
+            value: p.velocity.value,
+            allowed: v.value,
+            headroom: (p.velocity.value - v.value) / v.value,
+        });
+    }
+    let binding = checks
+        .iter()
+        .min_by(|a, b| a.headroom.total_cmp(&b.headroom))
+        .map(|c| c.limit);
+    (checks, binding)
+}
+
+fn candidate(line: &Line, props: &Properties, nominal: &'static str, bore: Length) -> Candidate {
+    let point = line.point(props, bore, line.flow);
+    let (checks, binding) = judge(line, &point);
+    Candidate { nominal, point, checks, binding }
+}
+
+/// Evaluates every size and proposes the smallest that meets every limit.
+///
+/// # Errors
+/// A [`LineError`] for input the core cannot work with.
+pub fn size(line: &Line) -> Result<Sizing, LineError> {
+    let props = line.validate()?;
+    let candidates: Vec<Candidate> = line
+        .pipe
+        .bores()
+        .into_iter()
+        .map(|(n, d)| candidate(line, &props, n, d))
+        .collect();
+    let proposed = candidates.iter().position(Candidate::passes);
+    let failing_at_largest = match proposed {
+        Some(_) => Vec::new(),
+        None => candidates
+            .last()
+            .map(|c| c.checks.iter().filter(|k| !k.met()).map(|k| k.limit).collect())
+            .unwrap_or_default(),
+    };
+    Ok(Sizing { properties: props, candidates, proposed, failing_at_largest, warnings: line.method_warnings() })
+}
+
+/// Check mode: the results at one named size.
+///
+/// # Errors
+/// A [`LineError`] for bad input; `Ok(None)` when the series has no such size.
+pub fn check(line: &Line, nominal: &str) -> Result<Option<Candidate>, LineError> {
+    let props = line.validate()?;
+    Ok(line
+        .pipe
+        .bores()
+        .into_iter()
+        .find(|(n, _)| *n == nominal)
+        .map(|(n, d)| candidate(line, &props, n, d)))
+}
+
+/// The largest flow a bore can carry within the line's maximum limits.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Capacity {
+    /// The flow; `None` when the line sets no maximum limit at all.
+    pub max_flow: Option<VolumeRate>,
+    /// The limit reached at that flow.
+    pub limited_by: Option<Limit>,
+}
+
+/// Largest `q` in [0, ∞) with `g(q) ≤ 0`, for `g` non-decreasing with
+/// `g(0) ≤ 0`: expands a bracket by doubling, then bisects (with a secant
+/// guess when it falls inside the bracket) to a relative width of 1e-12.
+/// Returns the low end, which always satisfies the limit; `g` may jump (the
+/// laminar–turbulent switch), which bisection handles where secant alone
+/// would not.
+fn largest_within(mut g: impl FnMut(f64) -> f64, start: f64) -> Option<f64> {
+    let (mut lo, mut glo) = (0.0, g(0.0));
+    if glo > 0.0 {
+        return Some(0.0);
+    }
+    let mut hi = start.max(1e-12);
+    let mut ghi = g(hi);
+    let mut expansions = 0;
+    while ghi <= 0.0 {
+        lo = hi;
+        glo = ghi;
+        hi *= 2.0;
+        ghi = g(hi);
+        expansions += 1;
+        if expansions > 200 || !ghi.is_finite() {
+            return None;
+        }
+    }
+    for _ in 0..200 {
+        if hi - lo <= 1e-12 * hi {
+            break;
+        }
+        let secant = lo - glo * (hi - lo) / (ghi - glo);
+        let mid = 0.5 * (lo + hi);
+        // Alternate: take the secant guess only if it lands well inside.
+        let x = if secant.is_finite() && secant > lo + 0.05 * (hi - lo) && secant < hi - 0.05 * (hi - lo) {
+            secant
+        } else {
+            mid
+        };
+        let gx = g(x);
+        if gx <= 0.0 {
+            lo = x;
+            glo = gx;
+        } else {
+            hi = x;
+            ghi = gx;
+        }
+    }
+    Some(lo)
+}
+
+/// Capacity of one bore for this line's fluid, fittings and limits.
+///
+/// # Errors
+/// A [`LineError`] for bad input.
+pub fn capacity(line: &Line, bore: Length) -> Result<Capacity, LineError> {
+    let props = line.validate()?;
+    let area = super::geometry::flow_area(bore);
+    let l = &line.limits;
+    let mut best: Option<(f64, Limit)> = None;
+    let mut consider = |q: f64, limit: Limit| {
+        if best.is_none_or(|(b, _)| q < b) {
+            best = Some((q, limit));
+        }
+    };
+    let flow = |q: f64| VolumeRate::new::<cubic_meter_per_second>(q);
+    let start = (area * Velocity::new::<uom::si::velocity::meter_per_second>(1.0)).value;
+    if let Some(v) = l.max_velocity {
+        consider((area * v).value, Limit::MaxVelocity);
+    }
+    if let Some(g) = l.max_drop_per_length {
+        if let Some(q) = largest_within(|q| line.point(&props, bore, flow(q)).drop_per_length.value - g.value, start) {
+            consider(q, Limit::DropPerLength);
+        }
+    }
+    if let Some(dp) = l.max_total_drop {
+        if let Some(q) = largest_within(|q| line.point(&props, bore, flow(q)).total_drop.value - dp.value, start) {
+            consider(q, Limit::TotalDrop);
+        }
+    }
+    Ok(Capacity { max_flow: best.map(|(q, _)| flow(q)), limited_by: best.map(|(_, l)| l) })
+}
+
+/// One step of the explain trace: what was computed, how, from where.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Step {
+    /// Symbol, e.g. "Re".
+    pub symbol: &'static str,
+    /// What it is.
+    pub name: &'static str,
+    /// The formula used.
+    pub formula: &'static str,
+    /// The value in SI units.
+    pub value: f64,
+    /// The SI unit of `value` ("" when dimensionless).
+    pub unit: &'static str,
+    /// The source of the formula or data.
+    pub source: &'static str,
+}
+
+/// The explain trace for one candidate of a line.
+pub fn trace(line: &Line, props: &Properties, c: &Candidate) -> Vec<Step> {
+    use super::fluid::Fluid;
+    let p = &c.point;
+    let fluid_source = match line.fluid {
+        Fluid::Water => "IAPWS-IF97 region 1 (density); IAPWS 2008 (viscosity)",
+        Fluid::GlycolMix(..) => "Melinder (2010) via CoolProp INCOMP tables, interpolated",
+        Fluid::Custom(_) => "entered by the user",
+    };
+    let (f_formula, f_source) = match (line.method, p.regime) {
+        (Method::HazenWilliams { .. }, _) => (
+            "f = 2 g D S / V², S from V = 0.849 C (D/4)^0.63 S^0.54",
+            "Williams & Hazen (1905), Hydraulic Tables (equivalent f shown for comparison)",
+        ),
+        (_, Regime::Laminar) => ("f = 64 / Re", "Hagen–Poiseuille laminar flow"),
+        (_, Regime::Transition) => (
+            "1/√f = −2 log10(ε/(3.7 D) + 2.51/(Re √f)) — transition zone: uncertain",
+            "Colebrook (1939), taken through the transition zone as the safe-side value",
+        ),
+        (_, Regime::Turbulent) => (
+            "1/√f = −2 log10(ε/(3.7 D) + 2.51/(Re √f))",
+            "Colebrook (1939), J. ICE 11, solved by Newton's method to 1e-12",
+        ),
+    };
+    let zero = Pressure::default();
+    vec![
+        Step { symbol: "ρ", name: "density", formula: "fluid property at T, p", value: props.density.value, unit: "kg/m³", source: fluid_source },
+        Step { symbol: "μ", name: "dynamic viscosity", formula: "fluid property at T, p", value: props.viscosity.value, unit: "Pa·s", source: fluid_source },
+        Step { symbol: "D", name: "inside diameter", formula: "D = OD − 2t", value: p.bore.value, unit: "m", source: "the pipe standard's table" },
+        Step { symbol: "V", name: "mean velocity", formula: "V = Q / (π D² / 4)", value: p.velocity.value, unit: "m/s", source: "continuity" },
+        Step { symbol: "Re", name: "Reynolds number", formula: "Re = ρ V D / μ", value: p.reynolds, unit: "", source: "Reynolds (1883)" },
+        Step { symbol: "ε/D", name: "relative roughness", formula: "ε / D", value: p.relative_roughness, unit: "", source: "roughness of the material" },
+        Step { symbol: "f", name: "Darcy friction factor", formula: f_formula, value: p.friction_factor, unit: "", source: f_source },
+        Step { symbol: "Δp/L", name: "friction drop per length", formula: "Δp/L = f ρ V² / (2 D)", value: p.drop_per_length.value, unit: "Pa/m", source: "Darcy–Weisbach" },
+        Step { symbol: "Δp_f", name: "friction drop", formula: "(Δp/L) · (L + L_eq)", value: p.friction_drop.value, unit: "Pa", source: "Darcy–Weisbach" },
+        Step { symbol: "ΣK", name: "fittings", formula: "Σ n (K1/Re + Ki (1 + Kd/D^0.3)) + K_extra", value: p.sum_k, unit: "", source: "Darby (2001) 3-K method" },
+        Step { symbol: "Δp_K", name: "fittings drop", formula: "ΣK ρ V² / 2", value: p.fittings_drop.value, unit: "Pa", source: "velocity-head method" },
+        Step { symbol: "Δp_z", name: "static (rise)", formula: "ρ g Δz, g = 9.80665 m/s²", value: if line.rise.value == 0.0 { zero.value } else { p.static_drop.value }, unit: "Pa", source: "hydrostatics" },
+        Step { symbol: "Δp", name: "total drop", formula: "Δp_f + Δp_K + Δp_z", value: p.total_drop.value, unit: "Pa", source: "sum" },
+    ]
+}

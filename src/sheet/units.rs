@@ -1,0 +1,396 @@
+//! Units at the boundary: what engineers type, read into SI; SI written
+//! back in the unit a sheet asks for.
+//!
+//! Conversion factors are exact by definition unless noted, from NIST
+//! SP 811 (2008), appendix B.8 and B.9: 1 in = 0.0254 m, 1 ft = 0.3048 m,
+//! 1 lb = 0.45359237 kg, US gallon = 231 in³ = 3.785411784 L, UK
+//! (imperial) gallon = 4.54609 L, 1 bar = 1e5 Pa, 1 lbf = 4.4482216152605 N
+//! (so 1 psi = 6894.757293168 Pa), °F: T/K = (t/°F + 459.67)·5/9.
+//!
+//! Heads ("m", "ft" of the line's fluid) and mass flows need the fluid's
+//! density, so a parsed value stays a [`Measure`] until [`Measure::to_si`]
+//! is given one.
+
+use std::fmt;
+
+use super::number::{parse_decimal, NumberError};
+
+/// What a field measures.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+pub enum Dimension {
+    /// Flow (volume or mass); SI m³/s.
+    Flow,
+    /// Pressure or head; SI Pa.
+    Pressure,
+    /// Pressure drop per length; SI Pa/m.
+    DropPerLength,
+    /// Length; SI m.
+    Length,
+    /// Velocity; SI m/s.
+    Velocity,
+    /// Temperature; SI K.
+    Temperature,
+    /// Absolute roughness; SI m.
+    Roughness,
+}
+
+impl Dimension {
+    fn name(self) -> &'static str {
+        match self {
+            Dimension::Flow => "flow",
+            Dimension::Pressure => "pressure",
+            Dimension::DropPerLength => "drop per length",
+            Dimension::Length => "length",
+            Dimension::Velocity => "velocity",
+            Dimension::Temperature => "temperature",
+            Dimension::Roughness => "roughness",
+        }
+    }
+}
+
+/// How a unit maps to SI.
+#[derive(Debug, Clone, Copy, PartialEq)]
+enum Scale {
+    /// SI = value × factor.
+    Linear(f64),
+    /// K = (value + offset) × factor.
+    Affine(f64, f64),
+    /// Mass flow: kg/s = value × factor; m³/s = kg/s ÷ ρ.
+    Mass(f64),
+    /// Head of the line's fluid: Pa = value × factor (m) × ρ g.
+    Head(f64),
+    /// Head per length: Pa/m = value × factor (m/m) × ρ g.
+    HeadPerLength(f64),
+}
+
+/// A unit a person can type.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Unit {
+    /// How it is written on the page.
+    pub symbol: &'static str,
+    /// What it measures.
+    pub dimension: Dimension,
+    scale: Scale,
+    /// Other spellings accepted (compared after [`normalise`]).
+    aliases: &'static [&'static str],
+}
+
+const IN: f64 = 0.0254;
+const FT: f64 = 0.3048;
+const LB: f64 = 0.453_592_37;
+const US_GAL: f64 = 3.785_411_784e-3;
+const UK_GAL: f64 = 4.546_09e-3;
+const PSI: f64 = 6_894.757_293_168;
+const G_N: f64 = crate::hydraulics::losses::G_N;
+
+macro_rules! unit {
+    ($sym:literal, $dim:ident, $scale:expr, [$($alias:literal),*]) => {
+        Unit { symbol: $sym, dimension: Dimension::$dim, scale: $scale, aliases: &[$($alias),*] }
+    };
+}
+
+/// Every unit Headroom reads and writes.
+pub const UNITS: &[Unit] = &[
+    unit!("L/s", Flow, Scale::Linear(1e-3), ["l/s", "lps"]),
+    unit!("L/min", Flow, Scale::Linear(1e-3 / 60.0), ["l/min", "lpm"]),
+    unit!("m³/h", Flow, Scale::Linear(1.0 / 3600.0), ["m3/h", "m3/hr", "cmh"]),
+    unit!("m³/s", Flow, Scale::Linear(1.0), ["m3/s"]),
+    unit!("US gpm", Flow, Scale::Linear(US_GAL / 60.0), ["gpm", "usgpm", "gal/min"]),
+    unit!("UK gpm", Flow, Scale::Linear(UK_GAL / 60.0), ["ukgpm", "igpm"]),
+    unit!("ft³/min", Flow, Scale::Linear(FT * FT * FT / 60.0), ["ft3/min", "cfm"]),
+    unit!("kg/s", Flow, Scale::Mass(1.0), []),
+    unit!("kg/h", Flow, Scale::Mass(1.0 / 3600.0), ["kg/hr"]),
+    unit!("lb/h", Flow, Scale::Mass(LB / 3600.0), ["lb/hr", "lbm/h", "pph"]),
+    unit!("Pa", Pressure, Scale::Linear(1.0), []),
+    unit!("kPa", Pressure, Scale::Linear(1e3), []),
+    unit!("bar", Pressure, Scale::Linear(1e5), []),
+    unit!("psi", Pressure, Scale::Linear(PSI), ["lbf/in2"]),
+    unit!("m head", Pressure, Scale::Head(1.0), ["m", "mhead", "mhd", "mwc"]),
+    unit!("ft head", Pressure, Scale::Head(FT), ["ft", "fthead", "fthd", "ftwc"]),
+    unit!("Pa/m", DropPerLength, Scale::Linear(1.0), []),
+    unit!("kPa/100 m", DropPerLength, Scale::Linear(10.0), ["kpa/100m"]),
+    unit!("psi/100 ft", DropPerLength, Scale::Linear(PSI / (100.0 * FT)), ["psi/100ft"]),
+    unit!("ft/100 ft", DropPerLength, Scale::HeadPerLength(0.01), ["ft/100ft", "ftper100ft", "ft/100'"]),
+    unit!("m/100 m", DropPerLength, Scale::HeadPerLength(0.01), ["m/100m", "mper100m"]),
+    unit!("m", Length, Scale::Linear(1.0), []),
+    unit!("mm", Length, Scale::Linear(1e-3), []),
+    unit!("km", Length, Scale::Linear(1e3), []),
+    unit!("ft", Length, Scale::Linear(FT), ["'", "feet"]),
+    unit!("in", Length, Scale::Linear(IN), ["\"", "inch"]),
+    unit!("m/s", Velocity, Scale::Linear(1.0), []),
+    unit!("ft/s", Velocity, Scale::Linear(FT), ["fps"]),
+    unit!("°C", Temperature, Scale::Affine(273.15, 1.0), ["c", "degc"]),
+    unit!("°F", Temperature, Scale::Affine(459.67, 5.0 / 9.0), ["f", "degf"]),
+    unit!("K", Temperature, Scale::Affine(0.0, 1.0), ["k"]),
+    unit!("mm", Roughness, Scale::Linear(1e-3), []),
+    unit!("µm", Roughness, Scale::Linear(1e-6), ["um", "micron"]),
+    unit!("in", Roughness, Scale::Linear(IN), ["\"", "inch"]),
+];
+
+/// Lower-cases and strips what people vary: spaces, superscripts, "per".
+pub fn normalise(s: &str) -> String {
+    s.trim()
+        .to_lowercase()
+        .replace(" per ", "/")
+        .chars()
+        .filter(|c| !c.is_whitespace() && *c != '°' && *c != '·')
+        .map(|c| match c {
+            '³' => '3',
+            '²' => '2',
+            'µ' | 'μ' => 'u',
+            other => other,
+        })
+        .collect()
+}
+
+/// Finds a unit of a dimension by any of its spellings.
+pub fn find(dimension: Dimension, text: &str) -> Option<&'static Unit> {
+    let key = normalise(text);
+    UNITS
+        .iter()
+        .filter(|u| u.dimension == dimension)
+        .find(|u| normalise(u.symbol) == key || u.aliases.iter().any(|a| normalise(a) == key))
+}
+
+/// The units of one dimension, in listing order.
+pub fn of(dimension: Dimension) -> impl Iterator<Item = &'static Unit> {
+    UNITS.iter().filter(move |u| u.dimension == dimension)
+}
+
+/// Why text is not a value of the field's dimension.
+#[derive(Debug, Clone, PartialEq)]
+pub enum UnitError {
+    /// The number part is wrong.
+    Number(NumberError),
+    /// A comma followed by exactly three digits: 1,000 could be a thousand
+    /// or one, so we ask.
+    AmbiguousComma(String),
+    /// The unit is not one of this dimension's.
+    UnknownUnit {
+        /// The field's dimension.
+        dimension: Dimension,
+        /// The unit text typed.
+        unit: String,
+    },
+    /// A head or mass flow needs a density that is not known.
+    NeedsDensity(&'static str),
+}
+
+impl fmt::Display for UnitError {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            UnitError::Number(e) => write!(f, "{e}"),
+            UnitError::AmbiguousComma(t) => write!(
+                f,
+                "'{t}' is ambiguous: write it without the comma for thousands, or with a point for decimals"
+            ),
+            UnitError::UnknownUnit { dimension, unit } => {
+                let list: Vec<&str> = of(*dimension).map(|u| u.symbol).collect();
+                write!(f, "'{unit}' is not a unit of {}; use one of {}", dimension.name(), list.join(", "))
+            }
+            UnitError::NeedsDensity(u) => write!(f, "{u} needs the fluid's density, which is not known yet"),
+        }
+    }
+}
+
+impl std::error::Error for UnitError {}
+
+/// A number with its unit, as typed.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Measure {
+    /// The number in `unit`.
+    pub value: f64,
+    /// The unit.
+    pub unit: &'static Unit,
+}
+
+impl Measure {
+    /// The value in SI units of the unit's dimension. `density` (kg/m³) is
+    /// needed for heads and mass flows.
+    ///
+    /// # Errors
+    /// [`UnitError::NeedsDensity`] when it is needed and `None` or not positive.
+    pub fn to_si(&self, density: Option<f64>) -> Result<f64, UnitError> {
+        let rho = || density.filter(|d| d.is_finite() && *d > 0.0).ok_or(UnitError::NeedsDensity(self.unit.symbol));
+        Ok(match self.unit.scale {
+            Scale::Linear(k) => self.value * k,
+            Scale::Affine(offset, k) => (self.value + offset) * k,
+            Scale::Mass(k) => self.value * k / rho()?,
+            Scale::Head(k) => self.value * k * rho()? * G_N,
+            Scale::HeadPerLength(k) => self.value * k * rho()? * G_N,
+        })
+    }
+
+    /// Whether converting needs a density.
+    pub fn needs_density(&self) -> bool {
+        matches!(self.unit.scale, Scale::Mass(_) | Scale::Head(_) | Scale::HeadPerLength(_))
+    }
+}
+
+/// Converts an SI value into `unit`.
+///
+/// # Errors
+/// [`UnitError::NeedsDensity`] as for [`Measure::to_si`].
+pub fn from_si(si: f64, unit: &'static Unit, density: Option<f64>) -> Result<f64, UnitError> {
+    let rho = || density.filter(|d| d.is_finite() && *d > 0.0).ok_or(UnitError::NeedsDensity(unit.symbol));
+    Ok(match unit.scale {
+        Scale::Linear(k) => si / k,
+        Scale::Affine(offset, k) => si / k - offset,
+        Scale::Mass(k) => si * rho()? / k,
+        Scale::Head(k) | Scale::HeadPerLength(k) => si / (k * rho()? * G_N),
+    })
+}
+
+/// Splits "95 gpm" or "2,5L/s" into its number and unit text.
+fn split(text: &str) -> (&str, &str) {
+    let t = text.trim();
+    let bytes: Vec<(usize, char)> = t.char_indices().collect();
+    let mut end = t.len();
+    for (k, &(i, c)) in bytes.iter().enumerate() {
+        let numeric = c.is_ascii_digit() || matches!(c, '.' | ',' | '-' | '+' | '\u{2212}');
+        // An exponent: e or E followed by a digit or a signed digit.
+        let exponent = (c == 'e' || c == 'E')
+            && k > 0
+            && bytes[k - 1].1.is_ascii_digit()
+            && match bytes.get(k + 1).map(|x| x.1) {
+                Some(d) if d.is_ascii_digit() => true,
+                Some('-' | '+') => bytes.get(k + 2).is_some_and(|x| x.1.is_ascii_digit()),
+                _ => false,
+            };
+        if !(numeric || exponent) {
+            end = i;
+            break;
+        }
+    }
+    (t[..end].trim(), t[end..].trim())
+}
+
+/// Reads "95 gpm", "2,5 L/s" or a bare number (taken in `default`).
+///
+/// # Errors
+/// A [`UnitError`] saying what was expected.
+///
+/// # Examples
+/// ```
+/// use headroom::sheet::units::{parse, find, Dimension};
+/// let lps = find(Dimension::Flow, "L/s").unwrap();
+/// let m = parse(Dimension::Flow, "95 gpm", lps).unwrap();
+/// // 95 × 3.785411784 L / 60 s = 5.993568658 L/s
+/// assert!((m.to_si(None).unwrap() - 5.993_568_658e-3).abs() < 1e-12);
+/// assert_eq!(parse(Dimension::Flow, "2,5", lps).unwrap().value, 2.5);
+/// ```
+pub fn parse(dimension: Dimension, text: &str, default: &'static Unit) -> Result<Measure, UnitError> {
+    let (number, unit_text) = split(text);
+    if let Some((_, after)) = number.split_once(',') {
+        if !number.contains('.') && after.len() == 3 && after.chars().all(|c| c.is_ascii_digit()) {
+            return Err(UnitError::AmbiguousComma(number.to_owned()));
+        }
+    }
+    let value = parse_decimal(number).map_err(UnitError::Number)?;
+    let unit = if unit_text.is_empty() {
+        default
+    } else {
+        find(dimension, unit_text)
+            .ok_or_else(|| UnitError::UnknownUnit { dimension, unit: unit_text.to_owned() })?
+    };
+    Ok(Measure { value, unit })
+}
+
+/// Writes a value with a given number of significant figures and its unit
+/// symbol. Never prints NaN or infinity: those come out as "—".
+pub fn format(value: f64, unit: &Unit, significant: usize) -> String {
+    format!("{} {}", format_number(value, significant), unit.symbol)
+}
+
+/// A number to `significant` figures, plain decimal notation for everyday
+/// magnitudes, scientific outside them. "—" for NaN and infinities.
+pub fn format_number(value: f64, significant: usize) -> String {
+    if !value.is_finite() {
+        return "—".to_owned();
+    }
+    if value == 0.0 {
+        return "0".to_owned();
+    }
+    let significant = significant.clamp(1, 17);
+    let magnitude = value.abs().log10().floor() as i32;
+    if !(-4..9).contains(&magnitude) {
+        return format!("{:.*e}", significant - 1, value);
+    }
+    let decimals = (significant as i32 - 1 - magnitude).max(0) as usize;
+    format!("{value:.decimals$}")
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn si(dim: Dimension, text: &str, rho: Option<f64>) -> f64 {
+        let d = of(dim).next().unwrap();
+        parse(dim, text, d).unwrap().to_si(rho).unwrap()
+    }
+
+    fn close(a: f64, b: f64) -> bool {
+        ((a - b) / b).abs() < 1e-12
+    }
+
+    #[test]
+    fn nist_sp811_factors() {
+        // NIST SP 811 (2008) appendix B.8: US gallon per minute = 6.309020e-5 m³/s,
+        // ft³/min = 4.719474e-4 m³/s, psi = 6.894757e3 Pa, ft = 0.3048 m, lb/h = 1.259979e-4 kg/s.
+        assert!((si(Dimension::Flow, "1 gpm", None) - 6.309_020e-5).abs() < 5e-11);
+        assert!((si(Dimension::Flow, "1 cfm", None) - 4.719_474e-4).abs() < 5e-10);
+        assert!((si(Dimension::Pressure, "1 psi", None) - 6.894_757e3).abs() < 5e-4);
+        assert!(close(si(Dimension::Length, "1 ft", None), 0.3048));
+        assert!((si(Dimension::Flow, "1 lb/h", Some(1.0)) - 1.259_979e-4).abs() < 5e-10);
+        // UK gallon: exactly 4.54609 L (Weights and Measures Act 1985).
+        assert!(close(si(Dimension::Flow, "60 UK gpm", None), 4.546_09e-3));
+    }
+
+    #[test]
+    fn temperatures() {
+        assert!(close(si(Dimension::Temperature, "32 °F", None), 273.15));
+        assert!(close(si(Dimension::Temperature, "212 F", None), 373.15));
+        assert!(close(si(Dimension::Temperature, "-40 degC", None), 233.15));
+        assert!(close(si(Dimension::Temperature, "300 K", None), 300.0));
+    }
+
+    #[test]
+    fn heads_need_and_use_density() {
+        let m = parse(Dimension::Pressure, "10 m", of(Dimension::Pressure).next().unwrap()).unwrap();
+        assert!(matches!(m.to_si(None), Err(UnitError::NeedsDensity(_))));
+        assert!(close(m.to_si(Some(1000.0)).unwrap(), 98_066.5));
+        // 4 ft per 100 ft of water at 1000 kg/m³ = 0.04 · 9806.65 Pa/m.
+        assert!(close(si(Dimension::DropPerLength, "4 ft/100 ft", Some(1000.0)), 392.266));
+    }
+
+    #[test]
+    fn forms_people_type() {
+        assert!(close(si(Dimension::Flow, "2,5 L/s", None), 2.5e-3));
+        assert!(close(si(Dimension::Flow, "2.5l/s", None), 2.5e-3));
+        assert!(close(si(Dimension::Flow, "12 m3/h", None), 12.0 / 3600.0));
+        assert!(close(si(Dimension::Flow, "1.2e1 m³/h", None), 12.0 / 3600.0));
+        assert!(close(si(Dimension::DropPerLength, "40 kPa / 100 m", None), 400.0));
+        assert!(close(si(Dimension::Roughness, "45 µm", None), 45e-6));
+        assert!(close(si(Dimension::Roughness, "45 um", None), 45e-6));
+    }
+
+    #[test]
+    fn errors_say_what_was_expected() {
+        let d = of(Dimension::Flow).next().unwrap();
+        let e = parse(Dimension::Flow, "12 furlongs", d).unwrap_err().to_string();
+        assert!(e.starts_with("'furlongs' is not a unit of flow; use one of L/s, L/min"), "{e}");
+        assert!(matches!(parse(Dimension::Flow, "1,000 gpm", d), Err(UnitError::AmbiguousComma(_))));
+        assert!(parse(Dimension::Flow, "gpm", d).is_err());
+        assert!(parse(Dimension::Flow, "", d).is_err());
+        // The same symbol means different things in different fields.
+        assert!(parse(Dimension::Velocity, "3 psi", of(Dimension::Velocity).next().unwrap()).is_err());
+    }
+
+    #[test]
+    fn format_never_shows_nan() {
+        assert_eq!(format_number(f64::NAN, 3), "—");
+        assert_eq!(format_number(f64::INFINITY, 3), "—");
+        assert_eq!(format_number(1234.5678, 4), "1235");
+        assert_eq!(format_number(0.012345, 3), "0.0123");
+    }
+}
