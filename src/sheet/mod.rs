@@ -4,6 +4,8 @@
 //! Units appear only here, at the boundary; the hydraulics core below speaks
 //! of quantities.
 
+pub mod file;
 pub mod number;
 pub mod quick;
+pub mod report;
 pub mod units;

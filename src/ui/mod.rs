@@ -7,10 +7,7 @@ use leptos::prelude::*;
 
 use crate::sheet::quick::{velocity_m_per_s, Field};
 
-/// The caution shown on every screen and printout.
-pub const CAUTION: &str = "Design guidance only. Check every result against the governing \
-     code, manufacturer data and the judgement of a licensed professional before anything is \
-     built.";
+pub use crate::sheet::report::CAUTION;
 
 /// The root of the page: header, the quick bore check and the caution.
 #[component]

@@ -1,0 +1,87 @@
+//! headroom-batch: sizes every line of a sheet file and prints the results.
+//!
+//! ```text
+//! headroom-batch SHEET.json [--format table|csv|json]
+//! ```
+//! Exit codes: 0 every line evaluated; 1 the file or a line has bad values
+//! (the other lines are still printed); 2 usage or unreadable file.
+
+use std::process::ExitCode;
+
+use headroom::sheet::file::SheetFile;
+use headroom::sheet::report;
+
+const USAGE: &str = "usage: headroom-batch SHEET.json [--format table|csv|json]";
+
+fn main() -> ExitCode {
+    let mut path = None;
+    let mut format = "table".to_owned();
+    let mut args = std::env::args().skip(1);
+    while let Some(a) = args.next() {
+        match a.as_str() {
+            "--format" | "-f" => match args.next() {
+                Some(f) if ["table", "csv", "json"].contains(&f.as_str()) => format = f,
+                _ => {
+                    eprintln!("headroom-batch: --format takes table, csv or json\n{USAGE}");
+                    return ExitCode::from(2);
+                }
+            },
+            "--help" | "-h" => {
+                println!("{USAGE}");
+                return ExitCode::SUCCESS;
+            }
+            _ if path.is_none() && !a.starts_with('-') => path = Some(a),
+            other => {
+                eprintln!("headroom-batch: unexpected argument '{other}'\n{USAGE}");
+                return ExitCode::from(2);
+            }
+        }
+    }
+    let Some(path) = path else {
+        eprintln!("{USAGE}");
+        return ExitCode::from(2);
+    };
+    let bytes = match std::fs::read(&path) {
+        Ok(b) => b,
+        Err(e) => {
+            eprintln!("headroom-batch: cannot read {path}: {e}");
+            return ExitCode::from(2);
+        }
+    };
+    let text = match String::from_utf8(bytes) {
+        Ok(t) => t,
+        Err(_) => {
+            eprintln!("headroom-batch: {path} is not UTF-8 text");
+            return ExitCode::from(1);
+        }
+    };
+    let sheet = match SheetFile::from_json(&text) {
+        Ok(s) => s,
+        Err(e) => {
+            eprintln!("headroom-batch: {path}: {e}");
+            return ExitCode::from(1);
+        }
+    };
+    let reports = report::evaluate(&sheet);
+    let out = match format.as_str() {
+        "csv" => report::csv(&sheet, &reports),
+        "json" => report::json(&sheet, &reports),
+        _ => report::table(&sheet, &reports),
+    };
+    print!("{out}");
+    let mut bad = false;
+    for r in &reports {
+        if let Err(errs) = &r.outcome {
+            bad = true;
+            for e in errs {
+                let name = if r.name.is_empty() { String::new() } else { format!(" ({})", r.name) };
+                eprintln!("headroom-batch: {path}: line {}{name}, {e}", r.number);
+            }
+        }
+    }
+    if bad {
+        ExitCode::from(1)
+    } else {
+        ExitCode::SUCCESS
+    }
+}

@@ -1,0 +1,662 @@
+//! The sheet file: one versioned JSON format for a whole worksheet, read by
+//! the native batch command and (later) saved and exported by the page.
+//!
+//! Design choices:
+//! - Every value is kept as the text the engineer typed ("12.5 L/s",
+//!   "2,5", "7 °C"), so nothing typed is ever lost or silently rounded, and
+//!   a bare number is read in the sheet's unit for that field.
+//! - `format` and `version` come first; a reader refuses a version it does
+//!   not know rather than guessing. Unknown fields are refused too, so a
+//!   typo in a hand-edited file is reported, not ignored.
+//!
+//! The format is documented field by field in `docs/sheet-format.md`.
+
+use serde::{Deserialize, Serialize};
+use uom::si::f64::{Length, Pressure, ThermodynamicTemperature, Velocity, VolumeRate};
+use uom::si::length::meter;
+use uom::si::pressure::pascal;
+use uom::si::thermodynamic_temperature::kelvin;
+use uom::si::velocity::meter_per_second;
+use uom::si::volume_rate::cubic_meter_per_second;
+
+use super::number::parse_decimal;
+use super::units::{self, Dimension, Unit};
+use crate::hydraulics::fluid::{Fluid, Glycol, Properties};
+use crate::hydraulics::line::{pa_per_m, Limits, Line, Method, Pipe};
+use crate::hydraulics::losses::{Fitting, Fittings};
+use crate::hydraulics::pipes;
+
+/// The value of the `format` field.
+pub const FORMAT: &str = "headroom-sheet";
+/// The version this build writes and the newest it reads.
+pub const VERSION: u32 = 1;
+
+/// A whole worksheet.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct SheetFile {
+    /// Always "headroom-sheet".
+    pub format: String,
+    /// Format version.
+    pub version: u32,
+    /// Project name.
+    #[serde(default)]
+    pub project: String,
+    /// Date of the worksheet, as written (ISO 8601 recommended).
+    #[serde(default)]
+    pub date: String,
+    /// Unit system and per-field unit choices.
+    #[serde(default)]
+    pub units: UnitChoice,
+    /// The lines.
+    pub lines: Vec<LineFile>,
+}
+
+/// SI or US customary, the base for per-field defaults.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize, Default)]
+#[serde(rename_all = "lowercase")]
+pub enum System {
+    /// SI.
+    #[default]
+    Si,
+    /// US customary.
+    Us,
+}
+
+/// Which unit a bare number in each field is read in (and results are
+/// written in). Absent fields take the system's default.
+#[derive(Debug, Clone, PartialEq, Eq, Serialize, Deserialize, Default)]
+#[serde(deny_unknown_fields)]
+pub struct UnitChoice {
+    /// SI or US customary.
+    #[serde(default)]
+    pub system: System,
+    /// Flow unit.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub flow: Option<String>,
+    /// Pressure unit.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub pressure: Option<String>,
+    /// Drop-per-length unit.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub drop_per_length: Option<String>,
+    /// Length unit.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub length: Option<String>,
+    /// Velocity unit.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub velocity: Option<String>,
+    /// Temperature unit.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub temperature: Option<String>,
+    /// Roughness unit.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub roughness: Option<String>,
+}
+
+/// The unit of each field, resolved.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Units {
+    /// Flow.
+    pub flow: &'static Unit,
+    /// Pressure.
+    pub pressure: &'static Unit,
+    /// Drop per length.
+    pub drop_per_length: &'static Unit,
+    /// Length.
+    pub length: &'static Unit,
+    /// Velocity.
+    pub velocity: &'static Unit,
+    /// Temperature.
+    pub temperature: &'static Unit,
+    /// Roughness.
+    pub roughness: &'static Unit,
+}
+
+impl Units {
+    /// The defaults of a unit system.
+    pub fn defaults(system: System) -> Units {
+        let f = |d, s| units::find(d, s).expect("default units exist");
+        match system {
+            System::Si => Units {
+                flow: f(Dimension::Flow, "L/s"),
+                pressure: f(Dimension::Pressure, "kPa"),
+                drop_per_length: f(Dimension::DropPerLength, "Pa/m"),
+                length: f(Dimension::Length, "m"),
+                velocity: f(Dimension::Velocity, "m/s"),
+                temperature: f(Dimension::Temperature, "°C"),
+                roughness: f(Dimension::Roughness, "mm"),
+            },
+            System::Us => Units {
+                flow: f(Dimension::Flow, "US gpm"),
+                pressure: f(Dimension::Pressure, "psi"),
+                drop_per_length: f(Dimension::DropPerLength, "ft/100 ft"),
+                length: f(Dimension::Length, "ft"),
+                velocity: f(Dimension::Velocity, "ft/s"),
+                temperature: f(Dimension::Temperature, "°F"),
+                roughness: f(Dimension::Roughness, "in"),
+            },
+        }
+    }
+}
+
+impl UnitChoice {
+    /// Resolves the choices against the system's defaults.
+    ///
+    /// # Errors
+    /// A [`FieldError`] naming the unit field that is not a known unit.
+    pub fn resolve(&self) -> Result<Units, FieldError> {
+        let mut u = Units::defaults(self.system);
+        let pick = |slot: &mut &'static Unit, choice: &Option<String>, d: Dimension, field: &'static str| {
+            if let Some(text) = choice {
+                *slot = units::find(d, text).ok_or_else(|| FieldError {
+                    field,
+                    message: format!("'{text}' is not a unit of {field}"),
+                })?;
+            }
+            Ok::<(), FieldError>(())
+        };
+        pick(&mut u.flow, &self.flow, Dimension::Flow, "units.flow")?;
+        pick(&mut u.pressure, &self.pressure, Dimension::Pressure, "units.pressure")?;
+        pick(&mut u.drop_per_length, &self.drop_per_length, Dimension::DropPerLength, "units.drop_per_length")?;
+        pick(&mut u.length, &self.length, Dimension::Length, "units.length")?;
+        pick(&mut u.velocity, &self.velocity, Dimension::Velocity, "units.velocity")?;
+        pick(&mut u.temperature, &self.temperature, Dimension::Temperature, "units.temperature")?;
+        pick(&mut u.roughness, &self.roughness, Dimension::Roughness, "units.roughness")?;
+        Ok(u)
+    }
+}
+
+/// One line as stored.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct LineFile {
+    /// Line name, e.g. "CHW riser B2".
+    #[serde(default)]
+    pub name: String,
+    /// Design flow.
+    pub flow: String,
+    /// The fluid.
+    pub fluid: FluidFile,
+    /// The pipe: a series id or a custom bore.
+    pub pipe: PipeFile,
+    /// Roughness; absent means the material's.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub roughness: Option<String>,
+    /// Use the material's aged roughness where one is published.
+    #[serde(default, skip_serializing_if = "is_false")]
+    pub aged: bool,
+    /// Length of straight pipe.
+    #[serde(default)]
+    pub length: String,
+    /// Counted fittings.
+    #[serde(default, skip_serializing_if = "Vec::is_empty")]
+    pub fittings: Vec<FittingCount>,
+    /// Extra ΣK.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub extra_k: Option<String>,
+    /// Equivalent length of straight pipe for other losses.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub equivalent_length: Option<String>,
+    /// Rise from start to end (negative for a fall).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub rise: Option<String>,
+    /// Friction method.
+    #[serde(default)]
+    pub method: MethodName,
+    /// Hazen–Williams C; absent means the material's.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub hazen_williams_c: Option<String>,
+    /// Design limits.
+    #[serde(default)]
+    pub limits: LimitsFile,
+    /// Check mode: the size to report instead of the proposal.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub check_size: Option<String>,
+}
+
+fn is_false(b: &bool) -> bool {
+    !*b
+}
+
+/// The fluid of a line.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(tag = "kind", rename_all = "lowercase", deny_unknown_fields)]
+pub enum FluidFile {
+    /// Liquid water.
+    Water {
+        /// Temperature.
+        temperature: String,
+        /// Absolute pressure; absent means 101.325 kPa.
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        pressure: Option<String>,
+    },
+    /// Glycol in water.
+    Glycol {
+        /// Which glycol.
+        glycol: GlycolName,
+        /// Strength, percent by mass.
+        percent: String,
+        /// Temperature.
+        temperature: String,
+    },
+    /// Properties entered directly.
+    Custom {
+        /// Density, kg/m³.
+        density_kg_m3: String,
+        /// Dynamic viscosity, mPa·s (cP). Give this or the kinematic one.
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        viscosity_mpa_s: Option<String>,
+        /// Kinematic viscosity, mm²/s (cSt).
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        kinematic_viscosity_mm2_s: Option<String>,
+    },
+}
+
+/// Which glycol.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(rename_all = "lowercase")]
+pub enum GlycolName {
+    /// Ethylene glycol.
+    Ethylene,
+    /// Propylene glycol.
+    Propylene,
+}
+
+/// The pipe of a line.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(rename_all = "lowercase", deny_unknown_fields)]
+pub enum PipeFile {
+    /// A series id from the catalogue, e.g. "steel-sch40".
+    Series(String),
+    /// A custom inside diameter with the material it is made of.
+    Bore {
+        /// Inside diameter.
+        diameter: String,
+        /// Material id: "carbon-steel", "stainless", "copper", "pvc", "pe".
+        material: String,
+    },
+}
+
+/// One kind of fitting and how many.
+#[derive(Debug, Clone, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct FittingCount {
+    /// Fitting id, e.g. "elbow90-welded".
+    pub fitting: String,
+    /// How many.
+    pub count: u32,
+}
+
+/// Friction method name.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize, Default)]
+#[serde(rename_all = "kebab-case")]
+pub enum MethodName {
+    /// Darcy–Weisbach (default).
+    #[default]
+    DarcyWeisbach,
+    /// Hazen–Williams.
+    HazenWilliams,
+}
+
+/// Design limits as stored; each may be absent.
+#[derive(Debug, Clone, PartialEq, Eq, Serialize, Deserialize, Default)]
+#[serde(deny_unknown_fields)]
+pub struct LimitsFile {
+    /// Largest friction drop per length.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub max_drop_per_length: Option<String>,
+    /// Largest total drop.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub max_total_drop: Option<String>,
+    /// Largest velocity.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub max_velocity: Option<String>,
+    /// Smallest velocity.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub min_velocity: Option<String>,
+}
+
+/// A bad value in one field.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct FieldError {
+    /// The field, as named in the file ("flow", "limits.max_velocity").
+    pub field: &'static str,
+    /// What is wrong and what is expected.
+    pub message: String,
+}
+
+impl std::fmt::Display for FieldError {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        write!(f, "{}: {}", self.field, self.message)
+    }
+}
+
+/// Why a sheet file cannot be read.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub enum SheetError {
+    /// Not JSON, or not of this format's shape.
+    Syntax(String),
+    /// Not a Headroom sheet.
+    NotASheet(String),
+    /// A version this build cannot read.
+    Version(u32),
+    /// A bad unit choice at sheet level.
+    Units(FieldError),
+}
+
+impl std::fmt::Display for SheetError {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        match self {
+            SheetError::Syntax(e) => write!(f, "not a readable sheet file: {e}"),
+            SheetError::NotASheet(found) => write!(f, "format is '{found}', expected '{FORMAT}'"),
+            SheetError::Version(v) => write!(
+                f,
+                "sheet format version {v} is newer than this Headroom reads (up to {VERSION}); update Headroom"
+            ),
+            SheetError::Units(e) => write!(f, "{e}"),
+        }
+    }
+}
+
+impl std::error::Error for SheetError {}
+
+/// Largest sheet file accepted, bytes: far above any real worksheet, low
+/// enough that a hostile file cannot exhaust a tablet's memory.
+pub const MAX_FILE_BYTES: usize = 4 * 1024 * 1024;
+
+impl SheetFile {
+    /// Reads a sheet from JSON text.
+    ///
+    /// # Errors
+    /// A [`SheetError`]; never panics, whatever the input.
+    pub fn from_json(text: &str) -> Result<SheetFile, SheetError> {
+        if text.len() > MAX_FILE_BYTES {
+            return Err(SheetError::Syntax(format!("file is larger than {MAX_FILE_BYTES} bytes")));
+        }
+        // Look at format and version before the full shape, so a newer file
+        // is reported as newer rather than as malformed.
+        #[derive(Deserialize)]
+        struct Head {
+            format: Option<String>,
+            version: Option<u32>,
+        }
+        let head: Head = serde_json::from_str(text).map_err(|e| SheetError::Syntax(e.to_string()))?;
+        match head.format.as_deref() {
+            Some(FORMAT) => {}
+            other => return Err(SheetError::NotASheet(other.unwrap_or("missing").to_owned())),
+        }
+        match head.version {
+            Some(v) if v > VERSION => return Err(SheetError::Version(v)),
+            Some(v) if v >= 1 => {}
+            _ => return Err(SheetError::Syntax("version must be a whole number from 1".to_owned())),
+        }
+        let sheet: SheetFile = serde_json::from_str(text).map_err(|e| SheetError::Syntax(e.to_string()))?;
+        sheet.units.resolve().map_err(SheetError::Units)?;
+        Ok(sheet)
+    }
+
+    /// Writes the sheet as pretty JSON.
+    pub fn to_json(&self) -> String {
+        serde_json::to_string_pretty(self).unwrap_or_default()
+    }
+
+    /// Resolved units (defaults where the file chose none).
+    pub fn units(&self) -> Units {
+        self.units.resolve().unwrap_or_else(|_| Units::defaults(self.units.system))
+    }
+}
+
+fn measure(
+    errors: &mut Vec<FieldError>,
+    field: &'static str,
+    text: &str,
+    dim: Dimension,
+    unit: &'static Unit,
+    density: Option<f64>,
+) -> Option<f64> {
+    match units::parse(dim, text, unit).and_then(|m| m.to_si(density)) {
+        Ok(v) => Some(v),
+        Err(e) => {
+            errors.push(FieldError { field, message: e.to_string() });
+            None
+        }
+    }
+}
+
+fn optional(
+    errors: &mut Vec<FieldError>,
+    field: &'static str,
+    text: &Option<String>,
+    dim: Dimension,
+    unit: &'static Unit,
+    density: Option<f64>,
+) -> Option<f64> {
+    match text.as_deref().map(str::trim) {
+        None | Some("") => None,
+        Some(t) => measure(errors, field, t, dim, unit, density),
+    }
+}
+
+fn plain_number(errors: &mut Vec<FieldError>, field: &'static str, text: &str) -> Option<f64> {
+    match parse_decimal(text) {
+        Ok(v) => Some(v),
+        Err(e) => {
+            errors.push(FieldError { field, message: e.to_string() });
+            None
+        }
+    }
+}
+
+/// Material ids accepted for a custom bore.
+pub fn material_from_id(id: &str) -> Option<pipes::Material> {
+    Some(match id {
+        "carbon-steel" => pipes::Material::CarbonSteel,
+        "stainless" => pipes::Material::StainlessSteel,
+        "copper" => pipes::Material::Copper,
+        "pvc" => pipes::Material::Pvc,
+        "pe" => pipes::Material::Polyethylene,
+        _ => return None,
+    })
+}
+
+impl LineFile {
+    /// Turns the stored text into the core's [`Line`], reporting every bad
+    /// field, not just the first.
+    ///
+    /// # Errors
+    /// Every [`FieldError`] found.
+    pub fn to_line(&self, units: &Units) -> Result<Line, Vec<FieldError>> {
+        let mut errors = Vec::new();
+        let e = &mut errors;
+        let kelvin_of = |e: &mut Vec<FieldError>, t: &str| {
+            measure(e, "fluid.temperature", t, Dimension::Temperature, units.temperature, None)
+        };
+        let (fluid, temperature, pressure) = match &self.fluid {
+            FluidFile::Water { temperature, pressure } => {
+                let t = kelvin_of(e, temperature);
+                let p = optional(e, "fluid.pressure", pressure, Dimension::Pressure, units.pressure, Some(1000.0));
+                (Some(Fluid::Water), t, p.or(Some(101_325.0)))
+            }
+            FluidFile::Glycol { glycol, percent, temperature } => {
+                let g = match glycol {
+                    GlycolName::Ethylene => Glycol::Ethylene,
+                    GlycolName::Propylene => Glycol::Propylene,
+                };
+                let pct = plain_number(e, "fluid.percent", percent.trim().trim_end_matches('%'));
+                let t = kelvin_of(e, temperature);
+                (pct.map(|p| Fluid::GlycolMix(g, p / 100.0)), t, Some(101_325.0))
+            }
+            FluidFile::Custom { density_kg_m3, viscosity_mpa_s, kinematic_viscosity_mm2_s } => {
+                let rho = plain_number(e, "fluid.density_kg_m3", density_kg_m3);
+                let mu = match (viscosity_mpa_s, kinematic_viscosity_mm2_s, rho) {
+                    (Some(mu), None, _) => plain_number(e, "fluid.viscosity_mpa_s", mu).map(|v| v * 1e-3),
+                    (None, Some(nu), Some(r)) => {
+                        plain_number(e, "fluid.kinematic_viscosity_mm2_s", nu).map(|v| v * 1e-6 * r)
+                    }
+                    (None, Some(_), None) => None,
+                    _ => {
+                        e.push(FieldError {
+                            field: "fluid.viscosity_mpa_s",
+                            message: "give the dynamic viscosity (mPa·s) or the kinematic (mm²/s), not both".into(),
+                        });
+                        None
+                    }
+                };
+                let fluid = match (rho, mu) {
+                    (Some(r), Some(m)) => Some(Fluid::Custom(Properties {
+                        density: uom::si::f64::MassDensity::new::<uom::si::mass_density::kilogram_per_cubic_meter>(r),
+                        viscosity: uom::si::f64::DynamicViscosity::new::<uom::si::dynamic_viscosity::pascal_second>(m),
+                    })),
+                    _ => None,
+                };
+                (fluid, Some(293.15), Some(101_325.0))
+            }
+        };
+        // Properties first: mass flows and heads need the density.
+        let props = match (fluid, temperature, pressure) {
+            (Some(f), Some(t), Some(p)) => match f.properties(
+                ThermodynamicTemperature::new::<kelvin>(t),
+                Pressure::new::<pascal>(p),
+            ) {
+                Ok(props) => Some(props),
+                Err(err) => {
+                    e.push(FieldError { field: "fluid", message: err.to_string() });
+                    None
+                }
+            },
+            _ => None,
+        };
+        let rho = props.map(|p| p.density_kg_m3());
+        let needs_rho = |text: &str, dim, unit| {
+            units::parse(dim, text, unit).map(|m| m.needs_density()).unwrap_or(false)
+        };
+        let flow = if rho.is_none() && needs_rho(&self.flow, Dimension::Flow, units.flow) {
+            None // the fluid error is already reported
+        } else {
+            measure(e, "flow", &self.flow, Dimension::Flow, units.flow, rho)
+        };
+        let (pipe, material) = match &self.pipe {
+            PipeFile::Series(id) => match pipes::series(id) {
+                Some(s) => (Some(Pipe::Series(s)), Some(s.material)),
+                None => {
+                    e.push(FieldError { field: "pipe.series", message: format!("'{id}' is not a pipe series Headroom knows") });
+                    (None, None)
+                }
+            },
+            PipeFile::Bore { diameter, material } => {
+                let d = measure(e, "pipe.diameter", diameter, Dimension::Length, units::find(Dimension::Length, "mm").unwrap(), None);
+                let m = material_from_id(material);
+                if m.is_none() {
+                    e.push(FieldError {
+                        field: "pipe.material",
+                        message: format!("'{material}' is not one of carbon-steel, stainless, copper, pvc, pe"),
+                    });
+                }
+                (d.map(|d| Pipe::Custom(Length::new::<meter>(d))), m)
+            }
+        };
+        let roughness = match (&self.roughness, material) {
+            (Some(t), _) if !t.trim().is_empty() => {
+                measure(e, "roughness", t, Dimension::Roughness, units.roughness, None)
+            }
+            (_, Some(m)) => {
+                let r = m.roughness();
+                Some(if self.aged { r.aged_mm.unwrap_or(r.new_mm) } else { r.new_mm } * 1e-3)
+            }
+            _ => None,
+        };
+        let length = if self.length.trim().is_empty() {
+            e.push(FieldError { field: "length", message: "enter the length of straight pipe".into() });
+            None
+        } else {
+            measure(e, "length", &self.length, Dimension::Length, units.length, None)
+        };
+        let mut counts = Vec::new();
+        for fc in &self.fittings {
+            match Fitting::from_id(&fc.fitting) {
+                Some(f) => counts.push((f, fc.count)),
+                None => e.push(FieldError { field: "fittings", message: format!("'{}' is not a fitting Headroom knows", fc.fitting) }),
+            }
+        }
+        let extra_k = match self.extra_k.as_deref().map(str::trim) {
+            None | Some("") => Some(0.0),
+            Some(t) => plain_number(e, "extra_k", t),
+        };
+        let equivalent_length = optional(e, "equivalent_length", &self.equivalent_length, Dimension::Length, units.length, None);
+        let rise = optional(e, "rise", &self.rise, Dimension::Length, units.length, None).unwrap_or(0.0);
+        let method = match self.method {
+            MethodName::DarcyWeisbach => Some(Method::DarcyWeisbach),
+            MethodName::HazenWilliams => match (self.hazen_williams_c.as_deref().map(str::trim), material) {
+                (Some(t), _) if !t.is_empty() => plain_number(e, "hazen_williams_c", t).map(|c| Method::HazenWilliams { c }),
+                (_, Some(m)) => Some(Method::HazenWilliams { c: m.hazen_williams_c().0 }),
+                _ => None,
+            },
+        };
+        let lim = &self.limits;
+        let limits = Limits {
+            max_drop_per_length: optional(e, "limits.max_drop_per_length", &lim.max_drop_per_length, Dimension::DropPerLength, units.drop_per_length, rho).map(pa_per_m),
+            max_total_drop: optional(e, "limits.max_total_drop", &lim.max_total_drop, Dimension::Pressure, units.pressure, rho).map(|p| Pressure::new::<pascal>(p)),
+            max_velocity: optional(e, "limits.max_velocity", &lim.max_velocity, Dimension::Velocity, units.velocity, None).map(Velocity::new::<meter_per_second>),
+            min_velocity: optional(e, "limits.min_velocity", &lim.min_velocity, Dimension::Velocity, units.velocity, None).map(Velocity::new::<meter_per_second>),
+        };
+        if let (Some(lo), Some(hi)) = (limits.min_velocity, limits.max_velocity) {
+            if lo >= hi {
+                e.push(FieldError { field: "limits.min_velocity", message: "minimum velocity must be below the maximum".into() });
+            }
+        }
+        if limits == Limits::default() {
+            e.push(FieldError { field: "limits", message: "set at least one limit to size against".into() });
+        }
+        match (flow, fluid, temperature, pressure, pipe, roughness, length, extra_k, method) {
+            (Some(q), Some(fluid), Some(t), Some(p), Some(pipe), Some(r), Some(l), Some(k), Some(method)) if errors.is_empty() => {
+                let line = Line {
+                    flow: VolumeRate::new::<cubic_meter_per_second>(q),
+                    fluid,
+                    temperature: ThermodynamicTemperature::new::<kelvin>(t),
+                    pressure: Pressure::new::<pascal>(p),
+                    pipe,
+                    roughness: Length::new::<meter>(r),
+                    length: Length::new::<meter>(l),
+                    fittings: Fittings {
+                        counts,
+                        extra_k: k,
+                        equivalent_length: equivalent_length.map(Length::new::<meter>),
+                    },
+                    rise: Length::new::<meter>(rise),
+                    method,
+                    limits,
+                };
+                // The core's own checks (positive flow, finite values …),
+                // reported against the field they concern.
+                match line.validate() {
+                    Ok(_) => Ok(line),
+                    Err(err) => Err(vec![FieldError { field: core_field(&err), message: err.to_string() }]),
+                }
+            }
+            _ => Err(errors),
+        }
+    }
+}
+
+fn core_field(err: &crate::hydraulics::line::LineError) -> &'static str {
+    use crate::hydraulics::line::LineError as E;
+    match err {
+        E::Fluid(_) => "fluid",
+        E::NotPositive("flow") => "flow",
+        E::NotPositive("inside diameter") => "pipe.diameter",
+        E::NotPositive("Hazen–Williams C") => "hazen_williams_c",
+        E::NotPositive("drop-per-length limit") => "limits.max_drop_per_length",
+        E::NotPositive("total-drop limit") => "limits.max_total_drop",
+        E::NotPositive("maximum velocity") => "limits.max_velocity",
+        E::NotPositive("minimum velocity") => "limits.min_velocity",
+        E::NotPositive(_) => "line",
+        E::NotFinite("length") => "length",
+        E::NotFinite("rise") => "rise",
+        E::NotFinite("ΣK") => "extra_k",
+        E::NotFinite("equivalent length") => "equivalent_length",
+        E::NotFinite(_) => "line",
+        E::Roughness => "roughness",
+        E::NoSizes => "pipe",
+    }
+}

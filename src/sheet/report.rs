@@ -1,0 +1,341 @@
+//! Results of a whole sheet, and their three written forms: a readable
+//! table, CSV and JSON. Units are the sheet's own.
+
+use serde::Serialize;
+
+use super::file::{FieldError, LineFile, SheetFile, Units};
+use super::units::{format_number, from_si, Unit};
+use crate::hydraulics::friction::Regime;
+use crate::hydraulics::line::Line;
+use crate::hydraulics::sizing::{self, Candidate, Capacity, Sizing};
+
+/// Shown on every result, export and printout.
+pub const CAUTION: &str = "Design guidance only. Check every result against the governing \
+     code, manufacturer data and the judgement of a licensed professional before anything is \
+     built.";
+
+/// A line's result.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Outcome {
+    /// The core's line.
+    pub line: Line,
+    /// Every candidate size and the proposal.
+    pub sizing: Sizing,
+    /// The candidate reported: the checked size in check mode, else the
+    /// proposal; `None` when no size meets the limits.
+    pub shown: Option<usize>,
+    /// Whether `shown` is a pinned size (check mode).
+    pub checked: bool,
+    /// Capacity of the shown size.
+    pub capacity: Option<Capacity>,
+}
+
+/// One line of the sheet, evaluated.
+#[derive(Debug, Clone, PartialEq)]
+pub struct LineReport {
+    /// 1-based position in the sheet.
+    pub number: usize,
+    /// The line's name.
+    pub name: String,
+    /// The result, or every bad field.
+    pub outcome: Result<Outcome, Vec<FieldError>>,
+}
+
+/// Evaluates one stored line.
+pub fn evaluate_line(number: usize, lf: &LineFile, units: &Units) -> LineReport {
+    let outcome = lf.to_line(units).and_then(|line| {
+        let sizing = sizing::size(&line).map_err(|e| vec![FieldError { field: "line", message: e.to_string() }])?;
+        let (shown, checked) = match lf.check_size.as_deref().map(str::trim).filter(|s| !s.is_empty()) {
+            Some(n) => match sizing.candidates.iter().position(|c| c.nominal == n) {
+                Some(i) => (Some(i), true),
+                None => {
+                    return Err(vec![FieldError {
+                        field: "check_size",
+                        message: format!("'{n}' is not a size of this pipe series"),
+                    }])
+                }
+            },
+            None => (sizing.proposed, false),
+        };
+        let capacity = shown.and_then(|i| sizing::capacity(&line, sizing.candidates[i].point.bore).ok());
+        Ok(Outcome { line, sizing, shown, checked, capacity })
+    });
+    LineReport { number, name: lf.name.clone(), outcome }
+}
+
+/// Evaluates every line of a sheet.
+pub fn evaluate(sheet: &SheetFile) -> Vec<LineReport> {
+    let units = sheet.units();
+    sheet.lines.iter().enumerate().map(|(i, lf)| evaluate_line(i + 1, lf, &units)).collect()
+}
+
+fn conv(si: f64, unit: &'static Unit, rho: f64, sig: usize) -> String {
+    from_si(si, unit, Some(rho)).map(|v| format_number(v, sig)).unwrap_or_else(|_| "—".into())
+}
+
+fn headroom_pct(c: &Candidate) -> String {
+    c.binding
+        .and_then(|b| c.checks.iter().find(|k| k.limit == b))
+        .map(|k| format!("{:+.0} %", k.headroom * 100.0))
+        .unwrap_or_default()
+}
+
+fn regime_name(r: Regime) -> &'static str {
+    match r {
+        Regime::Laminar => "laminar",
+        Regime::Transition => "transition (uncertain)",
+        Regime::Turbulent => "turbulent",
+    }
+}
+
+/// The row of figures for one result, in the sheet's units.
+fn figures(o: &Outcome, c: &Candidate, u: &Units) -> [String; 9] {
+    let rho = o.sizing.properties.density_kg_m3();
+    let p = &c.point;
+    let mm = super::units::find(super::units::Dimension::Length, "mm").expect("mm");
+    let inch = super::units::find(super::units::Dimension::Length, "in").expect("in");
+    let bore_unit = if u.length.symbol == "ft" { inch } else { mm };
+    [
+        c.nominal.to_owned(),
+        format!("{} {}", conv(p.bore.value, bore_unit, rho, 4), bore_unit.symbol),
+        format!("{} {}", conv(p.velocity.value, u.velocity, rho, 3), u.velocity.symbol),
+        format!("{} {}", conv(p.drop_per_length.value, u.drop_per_length, rho, 3), u.drop_per_length.symbol),
+        format!("{} {}", conv(p.total_drop.value, u.pressure, rho, 3), u.pressure.symbol),
+        format_number(p.reynolds, 3),
+        format_number(p.friction_factor, 4),
+        c.binding.map(|b| b.name()).unwrap_or("").to_owned(),
+        headroom_pct(c),
+    ]
+}
+
+/// A fixed-width table for a terminal.
+pub fn table(sheet: &SheetFile, reports: &[LineReport]) -> String {
+    let u = sheet.units();
+    let mut rows: Vec<[String; 11]> = vec![[
+        "#", "line", "size", "bore", "velocity", "drop/length", "total drop", "Re", "f", "binding limit", "headroom",
+    ]
+    .map(String::from)];
+    let mut notes = Vec::new();
+    for r in reports {
+        match &r.outcome {
+            Ok(o) => match o.shown {
+                Some(i) => {
+                    let c = &o.sizing.candidates[i];
+                    let f = figures(o, c, &u);
+                    let mut size = f[0].clone();
+                    if o.checked {
+                        size.push_str(if c.passes() { " (checked)" } else { " (checked: FAILS)" });
+                    }
+                    rows.push([
+                        r.number.to_string(), r.name.clone(), size, f[1].clone(), f[2].clone(), f[3].clone(),
+                        f[4].clone(), f[5].clone(), f[6].clone(), f[7].clone(), f[8].clone(),
+                    ]);
+                    if c.uncertain() {
+                        notes.push(format!("line {}: flow is in the transition zone; the friction factor is uncertain", r.number));
+                    }
+                }
+                None => {
+                    let fails: Vec<&str> = o.sizing.failing_at_largest.iter().map(|l| l.name()).collect();
+                    rows.push([
+                        r.number.to_string(), r.name.clone(), "NO SIZE".into(), String::new(), String::new(),
+                        String::new(), String::new(), String::new(), String::new(),
+                        format!("largest size fails {}", fails.join(", ")), String::new(),
+                    ]);
+                }
+            },
+            Err(errs) => {
+                for e in errs {
+                    notes.push(format!("line {} ({}): {e}", r.number, r.name));
+                }
+                rows.push([r.number.to_string(), r.name.clone(), "ERROR".into(), String::new(), String::new(), String::new(), String::new(), String::new(), String::new(), "see below".into(), String::new()]);
+            }
+        }
+        if let Ok(o) = &r.outcome {
+            for w in &o.sizing.warnings {
+                notes.push(format!("line {}: {w}", r.number));
+            }
+        }
+    }
+    let widths: Vec<usize> = (0..11).map(|k| rows.iter().map(|r| r[k].chars().count()).max().unwrap_or(0)).collect();
+    let mut out = String::new();
+    if !sheet.project.is_empty() || !sheet.date.is_empty() {
+        out.push_str(&format!("{}  {}\n\n", sheet.project, sheet.date));
+    }
+    for row in &rows {
+        let cells: Vec<String> = row.iter().zip(&widths).map(|(c, w)| format!("{c:<w$}")).collect();
+        out.push_str(cells.join("  ").trim_end());
+        out.push('\n');
+    }
+    for n in notes {
+        out.push_str(&format!("\n{n}"));
+    }
+    out.push_str(&format!("\n\nCaution: {CAUTION}\n"));
+    out
+}
+
+fn csv_field(s: &str) -> String {
+    // Quote everything that could split a field, and defuse leading
+    // characters that spreadsheets would run as a formula.
+    let s = if s.starts_with(['=', '+', '-', '@']) && s.parse::<f64>().is_err() { format!("'{s}") } else { s.to_owned() };
+    if s.contains([',', '"', '\n', '\r']) {
+        format!("\"{}\"", s.replace('"', "\"\""))
+    } else {
+        s
+    }
+}
+
+/// CSV: one row per line, the shown size.
+pub fn csv(sheet: &SheetFile, reports: &[LineReport]) -> String {
+    let u = sheet.units();
+    let mut out = String::new();
+    out.push_str(&format!(
+        "line,name,status,size,bore,velocity ({}),drop per length ({}),total drop ({}),Re,f,regime,binding limit,headroom %,message\n",
+        u.velocity.symbol, u.drop_per_length.symbol, u.pressure.symbol
+    ));
+    for r in reports {
+        let name = csv_field(&r.name);
+        match &r.outcome {
+            Ok(o) => match o.shown {
+                Some(i) => {
+                    let c = &o.sizing.candidates[i];
+                    let rho = o.sizing.properties.density_kg_m3();
+                    let p = &c.point;
+                    let status = match (o.checked, c.passes()) {
+                        (false, _) => "proposed",
+                        (true, true) => "checked: meets limits",
+                        (true, false) => "checked: fails limits",
+                    };
+                    let bore_mm = p.bore.value * 1e3;
+                    let headroom = c.binding.and_then(|b| c.checks.iter().find(|k| k.limit == b)).map(|k| format!("{:.1}", k.headroom * 100.0)).unwrap_or_default();
+                    out.push_str(&format!(
+                        "{},{name},{status},{},{} mm,{},{},{},{},{},{},{},{headroom},{}\n",
+                        r.number,
+                        csv_field(c.nominal),
+                        format_number(bore_mm, 5),
+                        conv(p.velocity.value, u.velocity, rho, 4),
+                        conv(p.drop_per_length.value, u.drop_per_length, rho, 4),
+                        conv(p.total_drop.value, u.pressure, rho, 4),
+                        format_number(p.reynolds, 5),
+                        format_number(p.friction_factor, 5),
+                        regime_name(p.regime),
+                        c.binding.map(|b| b.name()).unwrap_or(""),
+                        csv_field(&o.sizing.warnings.join("; ")),
+                    ));
+                }
+                None => {
+                    let fails: Vec<&str> = o.sizing.failing_at_largest.iter().map(|l| l.name()).collect();
+                    out.push_str(&format!("{},{name},no size meets the limits,,,,,,,,,,,{}\n", r.number, csv_field(&format!("largest size fails {}", fails.join(", ")))));
+                }
+            },
+            Err(errs) => {
+                let msg: Vec<String> = errs.iter().map(|e| e.to_string()).collect();
+                out.push_str(&format!("{},{name},error,,,,,,,,,,,{}\n", r.number, csv_field(&msg.join("; "))));
+            }
+        }
+    }
+    out.push_str(&format!("# {CAUTION}\n"));
+    out
+}
+
+#[derive(Serialize)]
+struct JsonCandidate<'a> {
+    size: &'a str,
+    bore_m: f64,
+    velocity_m_s: f64,
+    reynolds: f64,
+    relative_roughness: f64,
+    regime: &'static str,
+    friction_factor: f64,
+    drop_per_length_pa_m: f64,
+    total_drop_pa: f64,
+    meets_limits: bool,
+    binding_limit: Option<&'static str>,
+    headroom: Vec<(&'static str, f64)>,
+}
+
+#[derive(Serialize)]
+struct JsonLine<'a> {
+    line: usize,
+    name: &'a str,
+    errors: Vec<String>,
+    density_kg_m3: Option<f64>,
+    viscosity_pa_s: Option<f64>,
+    proposed_size: Option<&'a str>,
+    checked_size: Option<&'a str>,
+    failing_at_largest: Vec<&'static str>,
+    capacity_m3_s: Option<f64>,
+    warnings: Vec<&'static str>,
+    candidates: Vec<JsonCandidate<'a>>,
+}
+
+#[derive(Serialize)]
+struct JsonReport<'a> {
+    format: &'static str,
+    version: u32,
+    project: &'a str,
+    date: &'a str,
+    caution: &'static str,
+    lines: Vec<JsonLine<'a>>,
+}
+
+/// JSON: every candidate of every line, in SI units.
+pub fn json(sheet: &SheetFile, reports: &[LineReport]) -> String {
+    let lines = reports
+        .iter()
+        .map(|r| match &r.outcome {
+            Ok(o) => JsonLine {
+                line: r.number,
+                name: &r.name,
+                errors: Vec::new(),
+                density_kg_m3: Some(o.sizing.properties.density_kg_m3()),
+                viscosity_pa_s: Some(o.sizing.properties.viscosity_pa_s()),
+                proposed_size: o.sizing.proposal().map(|c| c.nominal),
+                checked_size: if o.checked { o.shown.map(|i| o.sizing.candidates[i].nominal) } else { None },
+                failing_at_largest: o.sizing.failing_at_largest.iter().map(|l| l.id()).collect(),
+                capacity_m3_s: o.capacity.and_then(|c| c.max_flow).map(|q| q.value),
+                warnings: o.sizing.warnings.clone(),
+                candidates: o
+                    .sizing
+                    .candidates
+                    .iter()
+                    .map(|c| JsonCandidate {
+                        size: c.nominal,
+                        bore_m: c.point.bore.value,
+                        velocity_m_s: c.point.velocity.value,
+                        reynolds: c.point.reynolds,
+                        relative_roughness: c.point.relative_roughness,
+                        regime: regime_name(c.point.regime),
+                        friction_factor: c.point.friction_factor,
+                        drop_per_length_pa_m: c.point.drop_per_length.value,
+                        total_drop_pa: c.point.total_drop.value,
+                        meets_limits: c.passes(),
+                        binding_limit: c.binding.map(|b| b.id()),
+                        headroom: c.checks.iter().map(|k| (k.limit.id(), k.headroom)).collect(),
+                    })
+                    .collect(),
+            },
+            Err(errs) => JsonLine {
+                line: r.number,
+                name: &r.name,
+                errors: errs.iter().map(|e| e.to_string()).collect(),
+                density_kg_m3: None,
+                viscosity_pa_s: None,
+                proposed_size: None,
+                checked_size: None,
+                failing_at_largest: Vec::new(),
+                capacity_m3_s: None,
+                warnings: Vec::new(),
+                candidates: Vec::new(),
+            },
+        })
+        .collect();
+    let report = JsonReport {
+        format: "headroom-results",
+        version: 1,
+        project: &sheet.project,
+        date: &sheet.date,
+        caution: CAUTION,
+        lines,
+    };
+    serde_json::to_string_pretty(&report).unwrap_or_default()
+}

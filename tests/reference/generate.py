@@ -1,0 +1,109 @@
+"""Reference values from general-purpose libraries on PyPI, for
+tests/reference.rs. scripts/test runs this inside .venv with the pinned
+versions of tests/reference/requirements.txt and writes
+target/reference/*.json; nothing here is committed output.
+
+- fluids (Caleb Bell): Colebrook, pipe schedules, Darby 3-K constants.
+- CoolProp: water (IAPWS-95) and INCOMP::MEG / INCOMP::MPG glycols.
+- iapws (J. Romera): IAPWS-IF97 region 1 and IAPWS 2008 viscosity.
+"""
+import json
+import math
+import os
+import sys
+
+import CoolProp
+import CoolProp.CoolProp as CP
+import fluids
+import iapws
+from fluids.friction import Colebrook
+from fluids.fittings import Darby
+from fluids.piping import nearest_pipe
+from iapws import IAPWS97
+from iapws._iapws import _Viscosity
+
+out = sys.argv[1] if len(sys.argv) > 1 else "target/reference"
+os.makedirs(out, exist_ok=True)
+
+
+def dump(name, data):
+    with open(os.path.join(out, name), "w") as f:
+        json.dump(data, f, indent=1)
+
+
+versions = {"fluids": fluids.__version__, "CoolProp": CoolProp.__version__, "iapws": iapws.__version__}
+
+# Colebrook over Re 1e3..1e8 and eps/D 0..0.05.
+grid = []
+for i in range(0, 51):
+    re = 10 ** (3 + 5 * i / 50)
+    for rr in [0.0, 1e-6, 1e-5, 1e-4, 3e-4, 1e-3, 3e-3, 1e-2, 2e-2, 5e-2]:
+        grid.append([re, rr, Colebrook(re, rr)])
+dump("colebrook.json", {"versions": versions, "points": grid})
+
+# Pipe schedules: our series id -> fluids schedule name. fluids works in m.
+schedules = {
+    "steel-sch40": "40", "steel-sch80": "80", "steel-std": "STD", "steel-xs": "XS",
+    "stainless-5s": "5S", "stainless-10s": "10S", "stainless-40s": "40S", "stainless-80s": "80S",
+    "pvc-sch40": "40D1785", "pvc-sch80": "80D1785",
+}
+nps_values = {"1/8": 0.125, "1/4": 0.25, "3/8": 0.375, "1/2": 0.5, "3/4": 0.75, "1": 1, "1-1/4": 1.25,
+              "1-1/2": 1.5, "2": 2, "2-1/2": 2.5, "3": 3, "3-1/2": 3.5, "4": 4, "5": 5, "6": 6, "8": 8,
+              "10": 10, "12": 12, "14": 14, "16": 16, "18": 18, "20": 20, "24": 24}
+pipes = {}
+for sid, sch in schedules.items():
+    rows = {}
+    for name, nps in nps_values.items():
+        try:
+            got_nps, di, do, t = nearest_pipe(NPS=nps, schedule=sch)
+        except Exception:
+            continue
+        if abs(got_nps - nps) < 1e-9:
+            rows[name] = {"od_mm": do * 1e3, "wall_mm": t * 1e3, "id_mm": di * 1e3}
+    pipes[sid] = rows
+# EN 10255 medium carries the dimensions of BS 1387 medium, which fluids has by DN.
+dn = {}
+for name, d in [("DN8", 8), ("DN10", 10), ("DN15", 15), ("DN20", 20), ("DN25", 25), ("DN32", 32), ("DN40", 40),
+                ("DN50", 50), ("DN65", 65), ("DN80", 80), ("DN100", 100), ("DN125", 125), ("DN150", 150)]:
+    for i, v in enumerate(fluids.piping.DN_MEDIUM_BS1387):
+        if abs(v - d) < 1e-9:
+            dn[name] = {"od_mm": fluids.piping.MEDIUMo_BS1387[i], "wall_mm": fluids.piping.MEDIUMt_BS1387[i],
+                        "id_mm": fluids.piping.MEDIUMi_BS1387[i]}
+pipes["en10255-medium"] = dn
+dump("pipes.json", {"versions": versions, "series": pipes})
+
+# Darby 3-K constants, by fluids' name for each row.
+dump("darby.json", {"versions": versions, "rows": {k: list(v) for k, v in Darby.items()}})
+
+# Water: CoolProp (IAPWS-95) and iapws (IF97 + IAPWS 2008) at 0.5..95 degC.
+water = []
+for t_c in [0.5, 4, 10, 15, 20, 25, 30, 40, 50, 60, 70, 80, 90, 95]:
+    T = t_c + 273.15
+    for p in [101325.0, 500e3]:
+        w = IAPWS97(T=T, P=p / 1e6)
+        water.append({
+            "t_c": t_c, "p_pa": p,
+            "coolprop_rho": CP.PropsSI("D", "T", T, "P", p, "Water"),
+            "coolprop_mu": CP.PropsSI("V", "T", T, "P", p, "Water"),
+            "if97_rho": w.rho,
+            "iapws2008_mu": _Viscosity(w.rho, T),
+        })
+dump("water.json", {"versions": versions, "points": water})
+
+# Glycols: CoolProp off the shipped grid (odd strengths, odd temperatures).
+glycol = []
+for code, name in [("MEG", "ethylene"), ("MPG", "propylene")]:
+    for pct in [12.0, 22.5, 33.0, 41.0, 48.0, 57.0]:
+        fl = "INCOMP::%s-%g%%" % (code, pct)
+        tf = CP.PropsSI("T_freeze", "T", 300, "P", 101325, fl) - 273.15
+        for t_c in [-41.3, -27.7, -12.2, -3.1, 1.3, 8.8, 17.4, 33.3, 48.9, 66.6, 81.2, 97.5]:
+            if t_c < tf + 0.5:
+                continue
+            T = t_c + 273.15
+            glycol.append({
+                "glycol": name, "percent": pct, "t_c": t_c, "freeze_c": tf,
+                "rho": CP.PropsSI("D", "T", T, "P", 101325, fl),
+                "mu": CP.PropsSI("V", "T", T, "P", 101325, fl),
+            })
+dump("glycol.json", {"versions": versions, "points": glycol})
+print("reference values written to %s (%s)" % (out, ", ".join("%s %s" % kv for kv in versions.items())))
