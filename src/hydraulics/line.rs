@@ -126,6 +126,18 @@ pub enum LineError {
     Roughness,
     /// The series has no sizes.
     NoSizes,
+    /// A value outside the range the methods are meant for.
+    OutOfRange {
+        /// What.
+        what: &'static str,
+        /// Lowest accepted, SI.
+        min: f64,
+        /// Highest accepted, SI.
+        max: f64,
+    },
+    /// The numbers could not be computed for these inputs (an overflow);
+    /// reported rather than shown as NaN.
+    NotComputable,
 }
 
 impl std::fmt::Display for LineError {
@@ -136,6 +148,10 @@ impl std::fmt::Display for LineError {
             LineError::NotFinite(what) => write!(f, "{what} must be a finite number"),
             LineError::Roughness => write!(f, "roughness must be zero or more"),
             LineError::NoSizes => write!(f, "the pipe series has no sizes"),
+            LineError::OutOfRange { what, min, max } => {
+                write!(f, "{what} must be between {min} and {max} (SI units)")
+            }
+            LineError::NotComputable => write!(f, "these inputs are beyond what the methods can compute"),
         }
     }
 }
@@ -198,6 +214,14 @@ pub struct Point {
     pub total_drop: Pressure,
 }
 
+fn within(v: f64, what: &'static str, min: f64, max: f64) -> Result<(), LineError> {
+    if v.is_finite() && (min..=max).contains(&v) {
+        Ok(())
+    } else {
+        Err(LineError::OutOfRange { what, min, max })
+    }
+}
+
 fn positive(v: f64, what: &'static str) -> Result<(), LineError> {
     if v.is_finite() && v > 0.0 {
         Ok(())
@@ -221,6 +245,13 @@ impl Line {
     /// The first bad input, as a [`LineError`].
     pub fn validate(&self) -> Result<Properties, LineError> {
         positive(self.flow.value, "flow")?;
+        // Bounds far outside any pipe a person would size, so that no input
+        // can overflow the arithmetic (they are not design advice).
+        within(self.flow.value, "flow (m³/s)", 1e-12, 1e3)?;
+        within(self.length.value, "length (m)", 0.0, 1e6)?;
+        within(self.rise.value, "rise (m)", -1e4, 1e4)?;
+        within(self.roughness.value, "roughness (m)", 0.0, 0.1)?;
+        within(self.fittings.extra_k, "ΣK", 0.0, 1e5)?;
         if !(self.length.value.is_finite() && self.length.value >= 0.0) {
             return Err(LineError::NotFinite("length"));
         }
@@ -240,6 +271,7 @@ impl Line {
         }
         if let Method::HazenWilliams { c } = self.method {
             positive(c, "Hazen–Williams C")?;
+            within(c, "Hazen–Williams C", 1.0, 250.0)?;
         }
         let bores = self.pipe.bores();
         if bores.is_empty() {
@@ -247,6 +279,7 @@ impl Line {
         }
         for (_, d) in bores {
             positive(d.value, "inside diameter")?;
+            within(d.value, "inside diameter (m)", 1e-4, 20.0)?;
         }
         let l = &self.limits;
         for (v, what) in [
@@ -259,7 +292,10 @@ impl Line {
                 positive(v, what)?;
             }
         }
-        self.properties()
+        let props = self.properties()?;
+        within(props.density_kg_m3(), "density (kg/m³)", 1.0, 3e4)?;
+        within(props.viscosity_pa_s(), "viscosity (Pa·s)", 1e-7, 1e3)?;
+        Ok(props)
     }
 
     /// The hydraulic state at `bore` carrying `flow`. Inputs must have

@@ -126,6 +126,16 @@ pub fn size(line: &Line) -> Result<Sizing, LineError> {
         .into_iter()
         .map(|(n, d)| candidate(line, &props, n, d))
         .collect();
+    let finite = candidates.iter().all(|c| {
+        let p = &c.point;
+        [p.velocity.value, p.reynolds, p.friction_factor, p.drop_per_length.value, p.total_drop.value, p.sum_k]
+            .iter()
+            .all(|v| v.is_finite())
+            && c.checks.iter().all(|k| k.headroom.is_finite())
+    });
+    if !finite {
+        return Err(LineError::NotComputable);
+    }
     let proposed = candidates.iter().position(Candidate::passes);
     let failing_at_largest = match proposed {
         Some(_) => Vec::new(),

@@ -658,5 +658,14 @@ fn core_field(err: &crate::hydraulics::line::LineError) -> &'static str {
         E::NotFinite(_) => "line",
         E::Roughness => "roughness",
         E::NoSizes => "pipe",
+        E::OutOfRange { what, .. } if what.starts_with("flow") => "flow",
+        E::OutOfRange { what, .. } if what.starts_with("length") => "length",
+        E::OutOfRange { what, .. } if what.starts_with("rise") => "rise",
+        E::OutOfRange { what, .. } if what.starts_with("rough") => "roughness",
+        E::OutOfRange { what, .. } if what.starts_with("inside") => "pipe.diameter",
+        E::OutOfRange { what, .. } if what.starts_with("Hazen") => "hazen_williams_c",
+        E::OutOfRange { what, .. } if what.starts_with("ΣK") => "extra_k",
+        E::OutOfRange { .. } => "fluid",
+        E::NotComputable => "line",
     }
 }

@@ -1,0 +1,82 @@
+//! The native batch command, run as a user would: files in, text out, exit
+//! codes checked.
+#![cfg(not(target_arch = "wasm32"))]
+
+use std::path::Path;
+use std::process::Command;
+
+fn batch(args: &[&str]) -> (i32, String, String) {
+    let out = Command::new(env!("CARGO_BIN_EXE_headroom-batch"))
+        .args(args)
+        .current_dir(env!("CARGO_MANIFEST_DIR"))
+        .output()
+        .expect("run headroom-batch");
+    (
+        out.status.code().unwrap_or(-1),
+        String::from_utf8_lossy(&out.stdout).into_owned(),
+        String::from_utf8_lossy(&out.stderr).into_owned(),
+    )
+}
+
+fn temp_file(name: &str, text: &str) -> String {
+    let dir = Path::new(env!("CARGO_TARGET_TMPDIR"));
+    let path = dir.join(name);
+    std::fs::write(&path, text).unwrap();
+    path.display().to_string()
+}
+
+#[test]
+fn the_demo_sheet_sizes_every_line_in_all_three_forms() {
+    let (code, table, _) = batch(&["examples/clinic-chilled-water.json"]);
+    assert_eq!(code, 0);
+    assert!(table.contains("CHW riser B2"), "{table}");
+    assert!(table.contains("Caution: Design guidance only"), "{table}");
+    let (code, csv, _) = batch(&["examples/clinic-chilled-water.json", "--format", "csv"]);
+    assert_eq!(code, 0);
+    assert_eq!(csv.lines().filter(|l| l.contains(",proposed,")).count(), 4, "{csv}");
+    let (code, json, _) = batch(&["examples/clinic-chilled-water.json", "--format", "json"]);
+    assert_eq!(code, 0);
+    let v: serde_json::Value = serde_json::from_str(&json).unwrap();
+    assert_eq!(v["lines"].as_array().unwrap().len(), 4);
+    assert!(v["caution"].as_str().unwrap().contains("licensed professional"));
+    // The JSON and table agree on the proposal of line 2.
+    let size = v["lines"][1]["proposed_size"].as_str().unwrap();
+    let row = table.lines().find(|l| l.starts_with("2 ")).unwrap();
+    assert!(row.contains(&format!("  {size}  ")), "{row} vs {size}");
+}
+
+#[test]
+fn a_bad_value_names_the_line_and_field_and_exits_non_zero() {
+    let path = temp_file(
+        "bad-value.json",
+        r#"{"format":"headroom-sheet","version":1,"lines":[
+            {"name":"good","flow":"2 L/s","fluid":{"kind":"water","temperature":"10"},"pipe":{"series":"copper-l"},"length":"10","limits":{"max_velocity":"1.5"}},
+            {"name":"Boiler feed","flow":"-3 L/s","fluid":{"kind":"water","temperature":"10"},"pipe":{"series":"copper-l"},"length":"10","limits":{"max_velocity":"1.5"}}
+        ]}"#,
+    );
+    let (code, out, err) = batch(&[&path]);
+    assert_eq!(code, 1);
+    assert!(err.contains("line 2 (Boiler feed), flow: flow must be greater than zero"), "{err}");
+    // The good line is still reported.
+    assert!(out.lines().any(|l| l.starts_with("1 ") && l.contains("good")), "{out}");
+}
+
+#[test]
+fn broken_and_foreign_files_are_refused_clearly() {
+    for (name, text, expect) in [
+        ("trunc.json", r#"{"format":"headroom-sheet","version":1,"lines":[{"#, "not a readable sheet file"),
+        ("other.json", r#"{"format":"spreadsheet","version":1,"lines":[]}"#, "format is 'spreadsheet'"),
+        ("future.json", r#"{"format":"headroom-sheet","version":9,"lines":[]}"#, "version 9 is newer"),
+        ("typo.json", r#"{"format":"headroom-sheet","version":1,"lines":[{"flow":"1","fluid":{"kind":"water","temperature":"5"},"pipe":{"series":"copper-l"},"lenght":"3"}]}"#, "unknown field `lenght`"),
+    ] {
+        let (code, _, err) = batch(&[&temp_file(name, text)]);
+        assert_eq!(code, 1, "{name}");
+        assert!(err.contains(expect), "{name}: {err}");
+        assert!(!err.contains("panicked"), "{name}: {err}");
+    }
+    let (code, _, err) = batch(&["no/such/file.json"]);
+    assert_eq!(code, 2);
+    assert!(err.contains("cannot read"));
+    let (code, _, _) = batch(&[]);
+    assert_eq!(code, 2);
+}

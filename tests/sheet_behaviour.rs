@@ -1,0 +1,101 @@
+//! Behaviour of a line read from sheet text: methods, units that need the
+//! fluid's density, fluid errors, the explain trace.
+#![cfg(not(target_arch = "wasm32"))]
+
+use headroom::hydraulics::sizing;
+use headroom::sheet::file::{FieldError, SheetFile};
+use headroom::sheet::report::{evaluate, Outcome};
+
+fn sheet(line: &str) -> String {
+    format!(r#"{{"format":"headroom-sheet","version":1,"lines":[{line}]}}"#)
+}
+
+fn outcome(line: &str) -> Result<Outcome, Vec<FieldError>> {
+    let s = SheetFile::from_json(&sheet(line)).unwrap();
+    evaluate(&s).remove(0).outcome
+}
+
+#[test]
+fn hazen_williams_matches_the_printed_si_form_and_warns_out_of_range() {
+    // hf/L = 10.67 Q^1.852 / (C^1.852 D^4.8704) (SI form, common practice).
+    let o = outcome(r#"{"flow":"1.5 L/s","fluid":{"kind":"water","temperature":"12 °C"},
+        "pipe":{"series":"copper-l"},"length":"30 m","method":"hazen-williams",
+        "limits":{"max_velocity":"1.5 m/s"}}"#)
+    .unwrap();
+    assert!(o.sizing.warnings.is_empty());
+    let c = o.sizing.proposal().unwrap();
+    let (q, d, cf) = (1.5e-3f64, c.point.bore.value, 150.0f64);
+    let printed = 10.67 * q.powf(1.852) / (cf.powf(1.852) * d.powf(4.8704));
+    let rho = o.sizing.properties.density_kg_m3();
+    let ours = c.point.drop_per_length.value / (rho * 9.80665);
+    assert!(((ours - printed) / printed).abs() < 0.01, "{ours} vs {printed}");
+    // Hot water: the method is flagged.
+    let hot = outcome(r#"{"flow":"1.5 L/s","fluid":{"kind":"water","temperature":"70 °C"},
+        "pipe":{"series":"copper-l"},"length":"30 m","method":"hazen-williams",
+        "limits":{"max_velocity":"1.5 m/s"}}"#)
+    .unwrap();
+    assert_eq!(hot.sizing.warnings.len(), 1);
+    assert!(hot.sizing.warnings[0].contains("water near room temperature"));
+}
+
+#[test]
+fn mass_flow_and_head_limits_use_the_fluids_density() {
+    // 5 kg/s of water at 20 °C (ρ 998.2) is 5.009 L/s; a limit of 4 m per
+    // 100 m of water is 0.04 · 998.2 · 9.80665 = 391.6 Pa/m.
+    let by_mass = outcome(r#"{"flow":"5 kg/s","fluid":{"kind":"water","temperature":"20"},
+        "pipe":{"series":"steel-sch40"},"length":"10","limits":{"max_drop_per_length":"4 m/100 m"}}"#)
+    .unwrap();
+    assert!((by_mass.line.flow.value - 5.0 / 998.2).abs() < 5e-7);
+    let lim = by_mass.line.limits.max_drop_per_length.unwrap().value;
+    assert!((lim - 0.04 * 998.2 * 9.80665).abs() < 0.05);
+}
+
+#[test]
+fn fluid_errors_land_on_the_fluid_field() {
+    let e = outcome(r#"{"flow":"1","fluid":{"kind":"glycol","glycol":"ethylene","percent":"20","temperature":"-15"},
+        "pipe":{"series":"steel-sch40"},"length":"10","limits":{"max_velocity":"2"}}"#)
+    .unwrap_err();
+    assert_eq!(e[0].field, "fluid");
+    assert!(e[0].message.contains("freezes at -7.9"), "{}", e[0].message);
+    let e = outcome(r#"{"flow":"1","fluid":{"kind":"water","temperature":"130"},
+        "pipe":{"series":"steel-sch40"},"length":"10","limits":{"max_velocity":"2"}}"#)
+    .unwrap_err();
+    assert!(e[0].message.contains("boils below"), "{}", e[0].message);
+}
+
+#[test]
+fn every_bad_field_is_reported_at_once() {
+    let e = outcome(r#"{"flow":"lots","fluid":{"kind":"water","temperature":"hot"},
+        "pipe":{"series":"steel-sch99"},"length":"","limits":{}}"#)
+    .unwrap_err();
+    let fields: Vec<&str> = e.iter().map(|f| f.field).collect();
+    for want in ["fluid.temperature", "pipe.series", "length", "limits"] {
+        assert!(fields.contains(&want), "{fields:?}");
+    }
+}
+
+#[test]
+fn the_explain_trace_names_formula_and_source_for_each_step() {
+    let o = outcome(r#"{"flow":"6 L/s","fluid":{"kind":"water","temperature":"10"},
+        "pipe":{"series":"steel-sch40"},"length":"20","rise":"3",
+        "fittings":[{"fitting":"valve-globe","count":1}],"limits":{"max_drop_per_length":"300"}}"#)
+    .unwrap();
+    let c = o.sizing.proposal().unwrap();
+    let steps = sizing::trace(&o.line, &o.sizing.properties, c);
+    let symbols: Vec<&str> = steps.iter().map(|s| s.symbol).collect();
+    assert_eq!(symbols, ["ρ", "μ", "D", "V", "Re", "ε/D", "f", "Δp/L", "Δp_f", "ΣK", "Δp_K", "Δp_z", "Δp"]);
+    assert!(steps.iter().all(|s| !s.formula.is_empty() && !s.source.is_empty() && s.value.is_finite()));
+    // The steps add up: Δp = Δp_f + Δp_K + Δp_z.
+    let v = |sym: &str| steps.iter().find(|s| s.symbol == sym).unwrap().value;
+    assert!((v("Δp") - (v("Δp_f") + v("Δp_K") + v("Δp_z"))).abs() < 1e-9 * v("Δp"));
+    // And Re is recomputable from the steps before it.
+    assert!((v("Re") - v("ρ") * v("V") * v("D") / v("μ")).abs() < 1e-9 * v("Re"));
+}
+
+#[test]
+fn a_sheet_round_trips_through_its_json() {
+    let text = std::fs::read_to_string(concat!(env!("CARGO_MANIFEST_DIR"), "/examples/clinic-chilled-water.json")).unwrap();
+    let s = SheetFile::from_json(&text).unwrap();
+    let again = SheetFile::from_json(&s.to_json()).unwrap();
+    assert_eq!(s, again);
+}
