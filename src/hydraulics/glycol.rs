@@ -24,7 +24,7 @@ use super::glycol_table as table;
 /// Highest temperature tabulated, °C.
 pub const T_MAX_C: f64 = 100.0;
 
-fn tables(g: Glycol) -> (&'static [f64; 11], &'static [[f64; table::NT]; 11], &'static [[f64; table::NT]; 11]) {
+fn tables(g: Glycol) -> (&'static [f64; 11], &'static [[f32; table::NT]; 11], &'static [[f32; table::NT]; 11]) {
     match g {
         Glycol::Ethylene => (&table::ETHYLENE_FREEZE_C, &table::ETHYLENE_RHO, &table::ETHYLENE_LN_MU),
         Glycol::Propylene => (&table::PROPYLENE_FREEZE_C, &table::PROPYLENE_RHO, &table::PROPYLENE_LN_MU),
@@ -87,9 +87,10 @@ pub fn properties(g: Glycol, fraction: f64, t: ThermodynamicTemperature) -> Resu
     let pos = ((t_c - table::T_MIN_C) / table::T_STEP_C).clamp(0.0, (table::NT - 1) as f64);
     let j = (pos.floor() as usize).min(table::NT - 2);
     let wt = pos - j as f64;
-    let bilinear = |m: &[[f64; table::NT]; 11]| {
-        let a = m[i][j] * (1.0 - wt) + m[i][j + 1] * wt;
-        let b = m[i + 1][j] * (1.0 - wt) + m[i + 1][j + 1] * wt;
+    let bilinear = |m: &[[f32; table::NT]; 11]| {
+        let at = |r: usize, c: usize| f64::from(m[r][c]);
+        let a = at(i, j) * (1.0 - wt) + at(i, j + 1) * wt;
+        let b = at(i + 1, j) * (1.0 - wt) + at(i + 1, j + 1) * wt;
         a * (1.0 - wx) + b * wx
     };
     Ok(Properties {

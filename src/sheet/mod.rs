@@ -4,8 +4,10 @@
 //! Units appear only here, at the boundary; the hydraulics core below speaks
 //! of quantities.
 
+pub mod chart;
+pub mod convert;
 pub mod file;
 pub mod number;
-pub mod quick;
+pub mod presets;
 pub mod report;
 pub mod units;

@@ -281,6 +281,9 @@ fn split(text: &str) -> (&str, &str) {
 /// ```
 pub fn parse(dimension: Dimension, text: &str, default: &'static Unit) -> Result<Measure, UnitError> {
     let (number, unit_text) = split(text);
+    if number.is_empty() && !unit_text.is_empty() {
+        return Err(UnitError::Number(NumberError::NotANumber(text.trim().to_owned())));
+    }
     if let Some((_, after)) = number.split_once(',') {
         if !number.contains('.') && after.len() == 3 && after.chars().all(|c| c.is_ascii_digit()) {
             return Err(UnitError::AmbiguousComma(number.to_owned()));
@@ -392,5 +395,14 @@ mod tests {
         assert_eq!(format_number(f64::INFINITY, 3), "—");
         assert_eq!(format_number(1234.5678, 4), "1235");
         assert_eq!(format_number(0.012345, 3), "0.0123");
+    }
+}
+
+/// An SI value shown in `unit` to `significant` figures with its symbol;
+/// "—" when it cannot be shown (no density for a head, or not finite).
+pub fn show(si: f64, unit: &'static Unit, density: Option<f64>, significant: usize) -> String {
+    match from_si(si, unit, density) {
+        Ok(v) if v.is_finite() => format(v, unit, significant),
+        _ => "—".to_owned(),
     }
 }

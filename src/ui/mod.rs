@@ -1,85 +1,78 @@
-//! The page: Leptos components only. They read typed text, hand it to
-//! [`crate::sheet`], and show what comes back. No formula lives here.
+//! The page: Leptos components only. They read and write the worksheet's
+//! text through [`state::Sheet`] and show what [`crate::sheet`] computes.
+//! No formula lives here.
 
+pub mod editor;
 pub mod fatal;
+pub mod fields;
+pub mod results;
+pub mod roster;
+pub mod state;
 
 use leptos::prelude::*;
 
-use crate::sheet::quick::{velocity_m_per_s, Field};
-
+use crate::sheet::file::{SheetFile, System};
 pub use crate::sheet::report::CAUTION;
+use state::Sheet;
 
-/// The root of the page: header, the quick bore check and the caution.
+/// The root of the page. Provides the worksheet to everything below.
 #[component]
 pub fn App() -> impl IntoView {
-    view! {
-        <header class="masthead">
-            <h1>"Headroom"</h1>
-            <p class="tagline">"Pipe sizing worksheet — works offline"</p>
-        </header>
-        <main>
-            <QuickCheck/>
-        </main>
-        <footer class="caution" role="note" data-testid="caution">{CAUTION}</footer>
-    }
+    let sheet = Sheet::new();
+    provide_context(sheet);
+    view! { <Desk sheet=sheet/> }
 }
 
-/// Flow and inside diameter in, mean velocity out, recomputed on every keystroke.
+/// The page laid out around a given worksheet (tests mount it with their own).
 #[component]
-pub fn QuickCheck() -> impl IntoView {
-    let (flow, set_flow) = signal(String::from("2.5"));
-    let (bore, set_bore) = signal(String::from("52.5"));
-    // Read in three places (two error slots and the output), so memoise.
-    let result = Memo::new(move |_| velocity_m_per_s(&flow.get(), &bore.get()));
-    let error_for = move |field: Field| {
-        move || match result.get() {
-            Err(e) if e.field() == field => e.to_string(),
-            _ => String::new(),
+pub fn Desk(
+    /// The worksheet shown.
+    sheet: Sheet,
+) -> impl IntoView {
+    provide_context(sheet);
+    let open_demo = move |_| {
+        if let Ok(demo) = SheetFile::from_json(state::DEMO) {
+            sheet.load(demo);
         }
     };
-
+    let system = move || sheet.units.get().system;
     view! {
-        <section class="card" aria-labelledby="quick-title">
-            <h2 id="quick-title">"Quick bore check"</h2>
-            <div class="field">
-                <label for="quick-flow">"Flow (L/s)"</label>
-                <input
-                    id="quick-flow"
-                    data-testid="quick-flow"
-                    type="text"
-                    inputmode="decimal"
-                    autocomplete="off"
-                    prop:value=flow
-                    on:input=move |ev| set_flow.set(event_target_value(&ev))
-                />
-                <span class="field-error" data-testid="quick-flow-error" aria-live="polite">
-                    {error_for(Field::Flow)}
-                </span>
+        <header class="masthead">
+            <div class="brand">
+                <h1>"Headroom"</h1>
+                <p class="tagline">"Pipe sizing worksheet · works offline"</p>
             </div>
-            <div class="field">
-                <label for="quick-bore">"Inside diameter (mm)"</label>
-                <input
-                    id="quick-bore"
-                    data-testid="quick-bore"
-                    type="text"
-                    inputmode="decimal"
-                    autocomplete="off"
-                    prop:value=bore
-                    on:input=move |ev| set_bore.set(event_target_value(&ev))
-                />
-                <span class="field-error" data-testid="quick-bore-error" aria-live="polite">
-                    {error_for(Field::Bore)}
-                </span>
+            <div class="sheet-meta">
+                <label>"Project"<input type="text" data-testid="project" prop:value=move || sheet.project.get()
+                    on:input=move |ev| sheet.project.set(event_target_value(&ev))/></label>
+                <label>"Date"<input type="date" data-testid="date" prop:value=move || sheet.date.get()
+                    on:input=move |ev| sheet.date.set(event_target_value(&ev))/></label>
+                <div class="system" role="group" aria-label="Unit system">
+                    <button type="button" data-testid="units-si" aria-pressed=move || if system() == System::Si { "true" } else { "false" }
+                        on:click=move |_| sheet.set_system(System::Si)>"SI"</button>
+                    <button type="button" data-testid="units-us" aria-pressed=move || if system() == System::Us { "true" } else { "false" }
+                        on:click=move |_| sheet.set_system(System::Us)>"US"</button>
+                </div>
+                <button type="button" class="demo" data-testid="open-demo" on:click=open_demo>"Open the demo sheet"</button>
             </div>
-            <p class="readout">
-                "Mean velocity "
-                <output data-testid="quick-velocity" for="quick-flow quick-bore">
-                    {move || match result.get() {
-                        Ok(v) => format!("{v:.3} m/s"),
-                        Err(_) => "—".to_owned(),
-                    }}
-                </output>
-            </p>
-        </section>
+        </header>
+        <main class="desk">
+            <roster::Roster/>
+            <section class="bench" aria-label="Selected line">
+                {move || match sheet.current() {
+                    Some(slot) => view! {
+                        <editor::LineEditor line=slot.clone()/>
+                        <results::LineResults line=slot/>
+                    }.into_any(),
+                    None => view! {
+                        <div class="empty" data-testid="empty">
+                            <h2>"Start a worksheet"</h2>
+                            <p>"Add a line with “+ New line”, or open the demo sheet: an invented clinic's chilled-water plant."</p>
+                        </div>
+                    }.into_any(),
+                }}
+            </section>
+        </main>
+        <footer class="caution" role="note" data-testid="caution">{CAUTION}</footer>
     }
 }

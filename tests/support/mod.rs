@@ -222,7 +222,7 @@ impl Harness {
         self.client
             .wait()
             .at_most(Duration::from_secs(30))
-            .for_element(Locator::Css(&format!("[data-testid={testid}]")))
+            .for_element(Locator::Css(&format!("[data-testid=\"{testid}\"]")))
             .await
             .unwrap_or_else(|e| panic!("[data-testid={testid}] never appeared: {e}"))
     }
@@ -236,6 +236,25 @@ impl Harness {
         let input = self.wait_for(testid).await;
         input.clear().await.expect("clear input");
         input.send_keys(text).await.expect("type into input");
+    }
+
+    /// Clicks an element.
+    pub async fn click(&self, testid: &str) {
+        self.wait_for(testid).await.click().await.unwrap_or_else(|e| panic!("click {testid}: {e}"));
+    }
+
+    /// Picks an option of a `<select>` by value.
+    pub async fn select(&self, testid: &str, value: &str) {
+        self.wait_for(testid)
+            .await
+            .select_by_value(value)
+            .await
+            .unwrap_or_else(|e| panic!("select {value} in {testid}: {e}"));
+    }
+
+    /// An input's current value.
+    pub async fn value(&self, testid: &str) -> String {
+        self.wait_for(testid).await.prop("value").await.unwrap().unwrap_or_default()
     }
 
     /// Polls until the element's text equals `expected` (reactive updates are

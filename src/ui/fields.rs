@@ -1,0 +1,121 @@
+//! Small input pieces shared by the editor: a labelled text field with its
+//! error beside it, and a unit picker that changes the sheet's unit.
+
+use leptos::prelude::*;
+
+use super::state::Sheet;
+use crate::sheet::file::FieldError;
+use crate::sheet::report::LineReport;
+use crate::sheet::units::{self, Dimension};
+
+/// The messages for one field (and its sub-fields) of a line's result.
+pub fn errors_for(report: Memo<LineReport>, field: &'static str) -> Signal<String> {
+    Signal::derive(move || {
+        report.with(|r| match &r.outcome {
+            Err(errs) => errs
+                .iter()
+                .filter(|e: &&FieldError| e.field == field)
+                .map(|e| e.message.clone())
+                .collect::<Vec<_>>()
+                .join("; "),
+            Ok(_) => String::new(),
+        })
+    })
+}
+
+/// A labelled text input that keeps exactly what is typed and shows the
+/// field's error next to it.
+#[component]
+pub fn TextField(
+    /// Visible label.
+    label: &'static str,
+    /// Element id and `data-testid`.
+    id: &'static str,
+    /// The text.
+    #[prop(into)]
+    value: Signal<String>,
+    /// Called on every keystroke with the whole text. A `Callback`, not a
+    /// generic closure, so the component is compiled once, not per field.
+    #[prop(into)]
+    on_input: Callback<String>,
+    /// The error to show; empty for none.
+    #[prop(into)]
+    error: Signal<String>,
+    /// A unit picker for this field's dimension.
+    #[prop(optional)]
+    unit: Option<Dimension>,
+    /// A fixed unit shown after the input.
+    #[prop(optional)]
+    suffix: Option<&'static str>,
+    /// Greyed hint shown when empty.
+    #[prop(optional, into)]
+    placeholder: Signal<String>,
+    /// `inputmode` for the on-screen keyboard.
+    #[prop(default = "decimal")]
+    inputmode: &'static str,
+) -> impl IntoView {
+    let error_id = format!("{id}-error");
+    let error_id2 = error_id.clone();
+    view! {
+        <div class="field" class:has-error=move || !error.get().is_empty()>
+            <label for=id>{label}</label>
+            <div class="field-row">
+                <input
+                    id=id
+                    data-testid=id
+                    type="text"
+                    inputmode=inputmode
+                    autocomplete="off"
+                    spellcheck="false"
+                    aria-describedby=error_id
+                    aria-invalid=move || if error.get().is_empty() { "false" } else { "true" }
+                    placeholder=move || placeholder.get()
+                    prop:value=move || value.get()
+                    on:input=move |ev| on_input.run(event_target_value(&ev))
+                />
+                {unit.map(|d| view! { <UnitPicker dim=d id=id/> })}
+                {suffix.map(|s| view! { <span class="suffix">{s}</span> })}
+            </div>
+            <span class="field-error" id=error_id2 data-testid=format!("{id}-error") aria-live="polite">
+                {move || error.get()}
+            </span>
+        </div>
+    }
+}
+
+/// Chooses the sheet's unit for one kind of field; every line follows.
+#[component]
+pub fn UnitPicker(
+    /// The dimension whose unit this picks.
+    dim: Dimension,
+    /// The field it sits beside (names the picker for screen readers).
+    id: &'static str,
+) -> impl IntoView {
+    let sheet = expect_context::<Sheet>();
+    let current = move || {
+        let u = sheet.resolved.get();
+        match dim {
+            Dimension::Flow => u.flow,
+            Dimension::Pressure => u.pressure,
+            Dimension::DropPerLength => u.drop_per_length,
+            Dimension::Length => u.length,
+            Dimension::Velocity => u.velocity,
+            Dimension::Temperature => u.temperature,
+            Dimension::Roughness => u.roughness,
+        }
+        .symbol
+    };
+    view! {
+        <select
+            class="unit"
+            data-testid=format!("{id}-unit")
+            aria-label=format!("unit for {id}")
+            prop:value=current
+            on:change=move |ev| sheet.set_unit(dim, &event_target_value(&ev))
+        >
+            {units::of(dim)
+                .map(|u| view! { <option value=u.symbol selected=move || current() == u.symbol>{u.symbol}</option> })
+                .collect_view()}
+        </select>
+    }
+}

@@ -1,0 +1,218 @@
+//! What the selected line's numbers say: the proposal, every size around
+//! it, the Moody chart and the worked steps.
+
+use leptos::prelude::*;
+
+use super::state::{Sheet, Slot};
+use crate::hydraulics::friction::Regime;
+use crate::hydraulics::line::Limit;
+use crate::hydraulics::sizing::{self, Candidate};
+use crate::sheet::chart;
+use crate::sheet::file::Units;
+use crate::sheet::report::Outcome;
+use crate::sheet::units::{self, format_number, Dimension};
+
+fn bore_unit(u: &Units) -> &'static units::Unit {
+    let name = if u.length.symbol == "ft" { "in" } else { "mm" };
+    units::find(Dimension::Length, name).expect("bore unit")
+}
+
+fn limit_value(limit: Limit, si: f64, u: &Units, rho: f64) -> String {
+    match limit {
+        Limit::DropPerLength => units::show(si, u.drop_per_length, Some(rho), 3),
+        Limit::TotalDrop => units::show(si, u.pressure, Some(rho), 3),
+        Limit::MaxVelocity | Limit::MinVelocity => units::show(si, u.velocity, Some(rho), 3),
+    }
+}
+
+fn regime_label(r: Regime) -> &'static str {
+    match r {
+        Regime::Laminar => "laminar",
+        Regime::Transition => "transition ⚠",
+        Regime::Turbulent => "turbulent",
+    }
+}
+
+/// The answer for the selected line.
+#[component]
+pub fn LineResults(
+    /// The line.
+    line: Slot,
+) -> impl IntoView {
+    let sheet = expect_context::<Sheet>();
+    let report = line.report;
+    let file = line.file;
+    let outcome = Memo::new(move |_| report.with(|r| r.outcome.clone().ok()));
+    view! {
+        <section class="results" aria-label="Answer" data-testid="results">
+            {move || { let u = sheet.resolved.get(); match outcome.get() {
+                None => view! {
+                    <div class="answer answer-wait" data-testid="answer">
+                        <p class="answer-size" data-testid="proposed-size">"—"</p>
+                        <p>"Fix the fields marked in red to see sizes."</p>
+                    </div>
+                }.into_any(),
+                Some(o) => view! { <Answer o=o.clone() u=u/> <SizeTable o=o.clone() u=u file=file/> <Moody o=o.clone()/> <Explain o=o/> }.into_any(),
+            }}}
+        </section>
+    }
+}
+
+#[component]
+fn Answer(o: Outcome, u: Units) -> impl IntoView {
+    let rho = o.sizing.properties.density_kg_m3();
+    let shown = o.shown.map(|i| o.sizing.candidates[i].clone());
+    let failing: Vec<&str> = o.sizing.failing_at_largest.iter().map(|l| l.name()).collect();
+    let warnings = o.sizing.warnings.clone();
+    match shown {
+        None => view! {
+            <div class="answer answer-none" data-testid="answer" role="status">
+                <p class="answer-size" data-testid="proposed-size">"No size"</p>
+                <p data-testid="answer-why">{format!("Even the largest size fails: {}.", failing.join(", "))}</p>
+            </div>
+        }.into_any(),
+        Some(c) => {
+            let pass = c.passes();
+            let p = c.point;
+            let head = if o.checked { if pass { "Checked size — meets every limit" } else { "Checked size — FAILS a limit" } } else { "Smallest size that meets every limit" };
+            let rows = c.checks.iter().map(|k| {
+                let txt = format!("{} {} of {}", k.limit.name(), limit_value(k.limit, k.value, &u, rho), limit_value(k.limit, k.allowed, &u, rho));
+                let pct = format!("{:+.0} %", k.headroom * 100.0);
+                let cls = if k.met() { "ok" } else { "bad" };
+                let id = format!("headroom-{}", k.limit.id());
+                view! { <li class=cls data-testid=id><span>{txt}</span><strong>{pct}</strong></li> }
+            }).collect_view();
+            view! {
+                <div class="answer" class:answer-bad=!pass data-testid="answer" role="status">
+                    <p class="answer-head">{head}</p>
+                    <p class="answer-size" data-testid="proposed-size">{c.nominal}</p>
+                    <dl class="answer-figures">
+                        <div><dt>"Velocity"</dt><dd data-testid="answer-velocity">{units::show(p.velocity.value, u.velocity, Some(rho), 3)}</dd></div>
+                        <div><dt>"Drop per length"</dt><dd data-testid="answer-drop-per-length">{units::show(p.drop_per_length.value, u.drop_per_length, Some(rho), 3)}</dd></div>
+                        <div><dt>"Total drop"</dt><dd data-testid="answer-total-drop">{units::show(p.total_drop.value, u.pressure, Some(rho), 3)}</dd></div>
+                        <div><dt>"Inside diameter"</dt><dd>{units::show(p.bore.value, bore_unit(&u), None, 4)}</dd></div>
+                    </dl>
+                    <p class="headroom-title">"Headroom to each limit"</p>
+                    <ul class="headroom">{rows}</ul>
+                    {c.uncertain().then(|| view! { <p class="warn" data-testid="warn-transition">"Re is in the transition zone (2000–4000): the friction factor is uncertain; the safe-side turbulent value is used."</p> })}
+                    {warnings.into_iter().map(|w| view! { <p class="warn">{w}</p> }).collect_view()}
+                </div>
+            }.into_any()
+        }
+    }
+}
+
+#[component]
+fn SizeTable(o: Outcome, u: Units, file: RwSignal<crate::sheet::file::LineFile>) -> impl IntoView {
+    let rho = o.sizing.properties.density_kg_m3();
+    let n = o.sizing.candidates.len();
+    let centre = o.shown.unwrap_or(n.saturating_sub(1));
+    let (from, to) = (centre.saturating_sub(2), (centre + 3).min(n));
+    let pinned = o.checked;
+    let rows = o.sizing.candidates[from..to].iter().enumerate().map(|(k, c): (usize, &Candidate)| {
+        let i = from + k;
+        let p = c.point;
+        let cap = sizing::capacity(&o.line, p.bore).ok().and_then(|c| c.max_flow).map(|q| units::show(q.value, u.flow, Some(rho), 3)).unwrap_or_else(|| "—".into());
+        let verdict = if c.passes() { "meets" } else { "fails" };
+        let nominal = c.nominal;
+        let is_shown = o.shown == Some(i);
+        view! {
+            <tr class:shown=is_shown class:fails=!c.passes() data-testid="size-row">
+                <th scope="row">{nominal}</th>
+                <td>{units::show(p.bore.value, bore_unit(&u), None, 4)}</td>
+                <td>{units::show(p.velocity.value, u.velocity, Some(rho), 3)}</td>
+                <td>{format_number(p.reynolds, 3)}</td>
+                <td>{format_number(p.friction_factor, 3)}</td>
+                <td>{regime_label(p.regime)}</td>
+                <td>{units::show(p.drop_per_length.value, u.drop_per_length, Some(rho), 3)}</td>
+                <td>{units::show(p.total_drop.value, u.pressure, Some(rho), 3)}</td>
+                <td>{cap}</td>
+                <td class="verdict">{verdict}</td>
+                <td>{c.binding.map(|b| b.name()).unwrap_or("")}</td>
+                <td>
+                    <button type="button" class="quiet" data-testid=format!("pin-{nominal}")
+                        aria-pressed=if is_shown && pinned { "true" } else { "false" }
+                        on:click=move |_| file.update(|f| {
+                            f.check_size = if f.check_size.as_deref() == Some(nominal) { None } else { Some(nominal.to_owned()) };
+                        })>
+                        {if is_shown && pinned { "Unpin" } else { "Check" }}
+                    </button>
+                </td>
+            </tr>
+        }
+    }).collect_view();
+    view! {
+        <div class="table-wrap">
+            <table class="sizes" data-testid="size-table">
+                <caption>"Sizes around the answer (Check pins a size; capacity is the largest flow within the limits)"</caption>
+                <thead><tr>
+                    <th scope="col">"Size"</th><th scope="col">"ID"</th><th scope="col">"V"</th><th scope="col">"Re"</th>
+                    <th scope="col">"f"</th><th scope="col">"Regime"</th><th scope="col">"Δp/L"</th><th scope="col">"Δp total"</th>
+                    <th scope="col">"Capacity"</th><th scope="col">"Verdict"</th><th scope="col">"Binding limit"</th><th scope="col"><span class="sr">"Check mode"</span></th>
+                </tr></thead>
+                <tbody>{rows}</tbody>
+            </table>
+        </div>
+    }
+}
+
+/// The Moody chart with every candidate's operating point.
+#[component]
+pub fn Moody(
+    /// The line's result.
+    o: Outcome,
+) -> impl IntoView {
+    let c = chart::moody(&o.sizing);
+    let (px, py, pw, ph) = chart::plot_area();
+    let view_box = format!("0 0 {} {}", chart::WIDTH, chart::HEIGHT);
+    view! {
+        <figure class="moody">
+            <svg viewBox=view_box role="img" aria-labelledby="moody-title" data-testid="moody">
+                <title id="moody-title">"Moody chart: friction factor against Reynolds number, with each size's operating point"</title>
+                <rect class="plot" x=px y=py width=pw height=ph/>
+                <rect class="transition" x=c.transition.0 y=py width=c.transition.1 - c.transition.0 height=ph/>
+                {c.x_ticks.iter().map(|(x, l)| view! {
+                    <line class="grid" x1=*x x2=*x y1=py y2=py + ph/>
+                    <text class="tick" x=*x y=py + ph + 16.0 text-anchor="middle">{l.clone()}</text>
+                }).collect_view()}
+                {c.y_ticks.iter().map(|(y, l)| view! {
+                    <line class="grid" x1=px x2=px + pw y1=*y y2=*y/>
+                    <text class="tick" x=px - 6.0 y=*y + 4.0 text-anchor="end">{l.clone()}</text>
+                }).collect_view()}
+                <path class="laminar" d=c.laminar.clone()/>
+                {c.curves.iter().map(|cv| view! {
+                    <path class="curve" d=cv.d.clone()/>
+                    <text class="curve-label" x=cv.label_at.0 - 4.0 y=cv.label_at.1 - 4.0 text-anchor="end">{cv.label.clone()}</text>
+                }).collect_view()}
+                {c.points.iter().map(|p| {
+                    let cls = if p.proposed { "pt pt-proposed" } else if p.passes { "pt pt-pass" } else { "pt pt-fail" };
+                    let r = if p.proposed { 7.0 } else { 4.5 };
+                    view! { <circle class=cls cx=p.x cy=p.y r=r data-testid="moody-point"><title>{p.nominal}</title></circle> }
+                }).collect_view()}
+                <text class="axis" x=px + pw / 2.0 y=chart::HEIGHT - 4.0 text-anchor="middle">"Reynolds number Re"</text>
+                <text class="axis" x=14.0 y=py + ph / 2.0 text-anchor="middle" transform=format!("rotate(-90 14 {})", py + ph / 2.0)>"f"</text>
+            </svg>
+            <figcaption>"Laminar f = 64/Re; curves are Colebrook (1939) for the ε/D shown; the shaded band is the transition zone. Large dot: the proposed size; hollow: sizes that fail."</figcaption>
+        </figure>
+    }
+}
+
+#[component]
+fn Explain(o: Outcome) -> impl IntoView {
+    let steps = o.shown.map(|i| sizing::trace(&o.line, &o.sizing.properties, &o.sizing.candidates[i])).unwrap_or_default();
+    view! {
+        <details class="explain" data-testid="explain">
+            <summary>"How this was worked out"</summary>
+            <p>"The friction factor depends only on the Reynolds number and the relative roughness, f = φ(Re, ε/D); every other number here follows from the fluid, the pipe and the line."</p>
+            <table>
+                <thead><tr><th scope="col">"Quantity"</th><th scope="col">"Formula"</th><th scope="col">"Value (SI)"</th><th scope="col">"Source"</th></tr></thead>
+                <tbody>
+                    {steps.into_iter().map(|s| view! {
+                        <tr><th scope="row">{s.symbol}" "<span class="muted">{s.name}</span></th><td><code>{s.formula}</code></td>
+                        <td>{format!("{} {}", format_number(s.value, 5), s.unit)}</td><td class="muted">{s.source}</td></tr>
+                    }).collect_view()}
+                </tbody>
+            </table>
+        </details>
+    }
+}

@@ -1,0 +1,222 @@
+//! The page's state: one worksheet of lines, each line's stored text in a
+//! signal of its own and its result in a memo of its own, so an edit
+//! re-sizes only the line that changed.
+
+use std::sync::atomic::{AtomicUsize, Ordering};
+
+use leptos::prelude::*;
+
+use crate::sheet::convert;
+use crate::sheet::file::{LineFile, SheetFile, System, UnitChoice, Units, FORMAT, VERSION};
+use crate::sheet::presets::Service;
+use crate::sheet::report::{evaluate_line, LineReport};
+use crate::sheet::units::Dimension;
+
+/// How many line evaluations the page has run (for the "only changed
+/// lines are re-sized" test and the timing report).
+pub static EVALUATIONS: AtomicUsize = AtomicUsize::new(0);
+
+/// The demo worksheet: an invented clinic's chilled-water plant.
+pub const DEMO: &str = include_str!("../../examples/clinic-chilled-water.json");
+
+/// One line of the worksheet.
+#[derive(Clone)]
+pub struct Slot {
+    /// Stable id (for keys and selection), never reused in a session.
+    pub id: u32,
+    /// The stored text of the line.
+    pub file: RwSignal<LineFile>,
+    /// Its result, recomputed only when its text or the sheet's units change.
+    pub report: Memo<LineReport>,
+    /// Whether the line is on the path whose drops are summed.
+    pub in_path: RwSignal<bool>,
+    owner: Owner,
+}
+
+/// The worksheet.
+#[derive(Clone, Copy)]
+pub struct Sheet {
+    /// Project name.
+    pub project: RwSignal<String>,
+    /// Worksheet date.
+    pub date: RwSignal<String>,
+    /// Unit choices as stored.
+    pub units: RwSignal<UnitChoice>,
+    /// Unit choices resolved.
+    pub resolved: Memo<Units>,
+    /// The lines in order.
+    pub lines: RwSignal<Vec<Slot>>,
+    /// The line being edited.
+    pub selected: RwSignal<Option<u32>>,
+    /// The last deleted line and where it was, for undo.
+    pub deleted: RwSignal<Option<(usize, Slot)>>,
+    next_id: StoredValue<u32>,
+    owner: StoredValue<Owner>,
+}
+
+impl Sheet {
+    /// A new empty worksheet owned by the current reactive owner.
+    pub fn new() -> Sheet {
+        let units = RwSignal::new(UnitChoice::default());
+        let resolved = Memo::new(move |_| {
+            let u = units.get();
+            u.resolve().unwrap_or_else(|_| Units::defaults(u.system))
+        });
+        Sheet {
+            project: RwSignal::new(String::new()),
+            date: RwSignal::new(String::new()),
+            units,
+            resolved,
+            lines: RwSignal::new(Vec::new()),
+            selected: RwSignal::new(None),
+            deleted: RwSignal::new(None),
+            next_id: StoredValue::new(1),
+            owner: StoredValue::new(Owner::current().unwrap_or_default()),
+        }
+    }
+
+    fn make_slot(&self, file: LineFile) -> Slot {
+        let id = self.next_id.get_value();
+        self.next_id.set_value(id + 1);
+        let owner = self.owner.get_value().child();
+        let resolved = self.resolved;
+        owner.with(|| {
+            let file = RwSignal::new(file);
+            let report = Memo::new(move |_| {
+                EVALUATIONS.fetch_add(1, Ordering::Relaxed);
+                file.with(|f| evaluate_line(0, f, &resolved.get()))
+            });
+            Slot { id, file, report, in_path: RwSignal::new(false), owner: owner.clone() }
+        })
+    }
+
+    /// Adds a line at the end (from a service's defaults) and selects it.
+    pub fn add(&self, service: &Service) -> u32 {
+        let n = self.lines.with_untracked(Vec::len) + 1;
+        let slot = self.make_slot(service.new_line(&format!("Line {n}")));
+        let id = slot.id;
+        self.lines.update(|v| v.push(slot));
+        self.selected.set(Some(id));
+        id
+    }
+
+    /// Copies a line just below itself and selects the copy.
+    pub fn duplicate(&self, id: u32) {
+        let Some(pos) = self.position(id) else { return };
+        let mut file = self.lines.with_untracked(|v| v[pos].file.get_untracked());
+        file.name = format!("{} (copy)", file.name);
+        let slot = self.make_slot(file);
+        let new_id = slot.id;
+        self.lines.update(|v| v.insert(pos + 1, slot));
+        self.selected.set(Some(new_id));
+    }
+
+    /// Removes a line, keeping it for one undo.
+    pub fn delete(&self, id: u32) {
+        let Some(pos) = self.position(id) else { return };
+        let slot = self.lines.try_update(|v| v.remove(pos));
+        if let Some(previous) = self.deleted.get_untracked() {
+            previous.1.owner.cleanup();
+        }
+        self.deleted.set(slot.map(|s| (pos, s)));
+        let next = self.lines.with_untracked(|v| v.get(pos.min(v.len().saturating_sub(1))).map(|s| s.id));
+        self.selected.set(next);
+    }
+
+    /// Puts the last deleted line back where it was.
+    pub fn undo_delete(&self) {
+        if let Some((pos, slot)) = self.deleted.get_untracked() {
+            let id = slot.id;
+            self.lines.update(|v| v.insert(pos.min(v.len()), slot));
+            self.deleted.set(None);
+            self.selected.set(Some(id));
+        }
+    }
+
+    /// Moves a line up (−1) or down (+1).
+    pub fn shift(&self, id: u32, by: isize) {
+        let Some(pos) = self.position(id) else { return };
+        self.lines.update(|v| {
+            let to = pos as isize + by;
+            if to >= 0 && (to as usize) < v.len() {
+                v.swap(pos, to as usize);
+            }
+        });
+    }
+
+    /// Where a line is.
+    pub fn position(&self, id: u32) -> Option<usize> {
+        self.lines.with_untracked(|v| v.iter().position(|s| s.id == id))
+    }
+
+    /// The selected line's slot.
+    pub fn current(&self) -> Option<Slot> {
+        let id = self.selected.get()?;
+        self.lines.with(|v| v.iter().find(|s| s.id == id).cloned())
+    }
+
+    /// Replaces the whole worksheet with a sheet file's content.
+    pub fn load(&self, sheet: SheetFile) {
+        let old = self.lines.get_untracked();
+        self.project.set(sheet.project);
+        self.date.set(sheet.date);
+        self.units.set(sheet.units);
+        let slots: Vec<Slot> = sheet.lines.into_iter().map(|l| self.make_slot(l)).collect();
+        self.selected.set(slots.first().map(|s| s.id));
+        self.lines.set(slots);
+        for s in old {
+            s.owner.cleanup();
+        }
+    }
+
+    /// The worksheet as a sheet file.
+    pub fn to_file(&self) -> SheetFile {
+        SheetFile {
+            format: FORMAT.to_owned(),
+            version: VERSION,
+            project: self.project.get_untracked(),
+            date: self.date.get_untracked(),
+            units: self.units.get_untracked(),
+            lines: self.lines.with_untracked(|v| v.iter().map(|s| s.file.get_untracked()).collect()),
+        }
+    }
+
+    /// Changes one field's unit, rewriting bare numbers so their meaning stays.
+    pub fn set_unit(&self, dim: Dimension, symbol: &str) {
+        let mut choice = self.units.get_untracked();
+        let slot = match dim {
+            Dimension::Flow => &mut choice.flow,
+            Dimension::Pressure => &mut choice.pressure,
+            Dimension::DropPerLength => &mut choice.drop_per_length,
+            Dimension::Length => &mut choice.length,
+            Dimension::Velocity => &mut choice.velocity,
+            Dimension::Temperature => &mut choice.temperature,
+            Dimension::Roughness => &mut choice.roughness,
+        };
+        *slot = Some(symbol.to_owned());
+        self.change_units(choice);
+    }
+
+    /// Switches SI / US customary: every field to the system's defaults.
+    pub fn set_system(&self, system: System) {
+        self.change_units(UnitChoice { system, ..UnitChoice::default() });
+    }
+
+    fn change_units(&self, choice: UnitChoice) {
+        let Ok(new) = choice.resolve() else { return };
+        let old = self.resolved.get_untracked();
+        self.lines.with_untracked(|v| {
+            for s in v {
+                let rho = s.report.with_untracked(|r| r.outcome.as_ref().ok().map(|o| o.sizing.properties.density_kg_m3()));
+                s.file.update(|f| convert::line(f, &old, &new, rho));
+            }
+        });
+        self.units.set(choice);
+    }
+}
+
+impl Default for Sheet {
+    fn default() -> Self {
+        Sheet::new()
+    }
+}
