@@ -152,3 +152,153 @@ async fn edit_to_results_time_on_a_200_line_sheet() {
     assert_eq!(last, "34");
     h.finish().await;
 }
+
+/// Waits until a service worker controls the page.
+async fn wait_for_service_worker(h: &Harness) {
+    let v = h
+        .client
+        .execute_async(
+            r#"const done = arguments[arguments.length - 1];
+               navigator.serviceWorker.ready.then(() => {
+                 const check = () => navigator.serviceWorker.controller ? done(true) : setTimeout(check, 50);
+                 check();
+               });"#,
+            vec![],
+        )
+        .await
+        .expect("service worker ready");
+    assert_eq!(v, serde_json::Value::Bool(true));
+}
+
+#[tokio::test(flavor = "multi_thread")]
+#[ignore = "needs dist/ and chromedriver: scripts/test runs it"]
+async fn works_offline_after_one_visit() {
+    let mut h = Harness::start(1024, 768).await;
+    h.open("/", "open-demo").await;
+    wait_for_service_worker(&h).await;
+    // Network off (DevTools offline emulation), and the server gone too.
+    h.cdp("Network.enable", serde_json::json!({})).await;
+    h.cdp("Network.emulateNetworkConditions", serde_json::json!({"offline": true, "latency": 0, "downloadThroughput": -1, "uploadThroughput": -1})).await;
+    h.stop_server();
+    h.client.refresh().await.expect("reload while offline");
+    h.wait_for("open-demo").await;
+    // Size a line, offline.
+    h.click("add-line").await;
+    h.type_into("flow", "7.5").await;
+    h.type_into("length", "30").await;
+    let mut line = typed_line();
+    line.flow = "7.5".into();
+    line.length = "30".into();
+    line.fluid = FluidFile::Water { temperature: "7 °C".into(), pressure: Some("300 kPa".into()) };
+    line.limits.max_drop_per_length = Some("400 Pa/m".into());
+    let o = core(&line, System::Si);
+    h.expect_text("proposed-size", o.sizing.candidates[o.shown.unwrap()].nominal).await;
+    h.screenshot("offline.png").await;
+    // Offline reload: the only "requests" are served by the worker; they
+    // must still all be for this origin.
+    h.finish().await;
+}
+
+#[tokio::test(flavor = "multi_thread")]
+#[ignore = "needs dist/ and chromedriver: scripts/test runs it"]
+async fn a_shared_link_opens_beside_local_work_and_prints() {
+    let mut h = Harness::start(1024, 768).await;
+    // Local work first.
+    h.open("/", "add-line").await;
+    h.click("add-line").await;
+    h.type_into("line-name", "Local line").await;
+    h.type_into("flow", "2").await;
+    h.type_into("length", "10").await;
+    h.expect_text("row-name", "Local line").await;
+    // Now a colleague's link: the demo sheet, plus a hostile line name.
+    let mut shared = headroom::sheet::file::SheetFile::from_json(include_str!("../examples/clinic-chilled-water.json")).unwrap();
+    shared.lines[0].name = "<img src=x onerror=alert(1)><script>alert(2)</script>".into();
+    let fragment = headroom::sheet::link::encode(&shared);
+    // Opened fresh, as from a message: leave the page, then follow the link.
+    h.client.goto("about:blank").await.unwrap();
+    h.client.goto(&h.url(&format!("/#{fragment}"))).await.unwrap();
+    h.wait_for("notice").await;
+    let names = h.client.find_all(fantoccini::Locator::Css("[data-testid=row-name]")).await.unwrap();
+    assert_eq!(names.len(), shared.lines.len());
+    // Hostile text is shown as text, never as markup.
+    assert_eq!(names[0].text().await.unwrap(), shared.lines[0].name);
+    let injected = h.client.find_all(fantoccini::Locator::Css(".roster img, .roster script")).await.unwrap();
+    assert!(injected.is_empty());
+    // The link is gone from the address, and the local work is still there.
+    let url = h.client.current_url().await.unwrap();
+    assert!(url.fragment().unwrap_or_default().is_empty(), "{url}");
+    h.click("show-shelf").await;
+    let rows = h.client.find_all(fantoccini::Locator::Css("[data-testid=shelf-row]")).await.unwrap();
+    assert_eq!(rows.len(), 2, "the shared sheet opened beside the local one");
+    let names: Vec<String> = {
+        let mut v = Vec::new();
+        for r in h.client.find_all(fantoccini::Locator::Css("[data-testid=shelf-name]")).await.unwrap() {
+            v.push(r.prop("value").await.unwrap().unwrap_or_default());
+        }
+        v
+    };
+    assert!(names.iter().any(|n| n == &shared.project), "{names:?}");
+    // The share panel makes a link and a QR code of this worksheet.
+    h.click("show-share").await;
+    h.wait_for("qr").await;
+    let link = h.value("share-link").await;
+    let decoded = headroom::sheet::link::decode(link.split_once('#').unwrap().1).unwrap();
+    assert_eq!(decoded.lines.len(), shared.lines.len());
+
+    // The printed review sheet, as a PDF, says what a reviewer needs.
+    let pdf = h.client.print(fantoccini::wd::PrintConfiguration::default()).await.expect("print to PDF");
+    let path = support::artifact_dir().join("review-sheet.pdf");
+    std::fs::write(&path, &pdf).unwrap();
+    let out = std::process::Command::new("pdftotext").arg("-layout").arg(&path).arg("-").output().expect("pdftotext (scripts/test installs poppler-utils)");
+    let text = String::from_utf8_lossy(&out.stdout).replace('\u{a0}', " ");
+    for want in [
+        shared.project.as_str(),
+        "CHW riser B2, levels 1–5",
+        "Proposed size",
+        "Assumptions",
+        "IAPWS-IF97",
+        "Colebrook (1939)",
+        "Darby (2001)",
+        "licensed professional",
+    ] {
+        assert!(text.contains(want), "the PDF lacks {want:?}:\n{text}");
+    }
+    // None of the screen's controls are printed.
+    assert!(!text.contains("Open the demo sheet"), "{text}");
+    h.finish().await;
+}
+
+#[tokio::test(flavor = "multi_thread")]
+#[ignore = "needs dist/ and chromedriver: scripts/test runs it"]
+async fn the_content_security_policy_blocks_other_origins() {
+    let mut h = Harness::start(1024, 768).await;
+    h.open("/", "open-demo").await;
+    // A request to another origin, made from the page, is refused by the
+    // policy before it is sent (127.0.0.2 is loopback: nothing would leave
+    // this machine even if it were not).
+    let v = h
+        .client
+        .execute_async(
+            r#"const done = arguments[arguments.length - 1];
+               let violated = "";
+               document.addEventListener("securitypolicyviolation", (e) => { violated = e.violatedDirective; });
+               fetch("http://127.0.0.2:9/").then(() => done("sent"), () => setTimeout(() => done("blocked:" + violated), 50));"#,
+            vec![],
+        )
+        .await
+        .unwrap();
+    assert_eq!(v.as_str().unwrap(), "blocked:connect-src");
+    h.expected_errors.push("Content Security Policy");
+    h.expected_errors.push("127.0.0.2");
+    // And an inline script cannot run.
+    let ran = h
+        .client
+        .execute(
+            r#"const s = document.createElement("script"); s.textContent = "window.__inline = 1"; document.body.append(s); return window.__inline === 1;"#,
+            vec![],
+        )
+        .await
+        .unwrap();
+    assert_eq!(ran, serde_json::Value::Bool(false));
+    h.finish().await;
+}

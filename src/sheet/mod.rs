@@ -7,6 +7,8 @@
 pub mod chart;
 pub mod convert;
 pub mod file;
+pub mod library;
+pub mod link;
 pub mod number;
 pub mod presets;
 pub mod report;

@@ -5,8 +5,12 @@
 pub mod editor;
 pub mod fatal;
 pub mod fields;
+pub mod keep;
+pub mod print;
 pub mod results;
 pub mod roster;
+pub mod share;
+pub mod shelf;
 pub mod state;
 
 use leptos::prelude::*;
@@ -15,11 +19,16 @@ use crate::sheet::file::{SheetFile, System};
 pub use crate::sheet::report::CAUTION;
 use state::Sheet;
 
-/// The root of the page. Provides the worksheet to everything below.
+/// The root of the page: the worksheet, kept on this device and opened
+/// from a shared link when the address carries one.
 #[component]
 pub fn App() -> impl IntoView {
     let sheet = Sheet::new();
+    let notices = keep::Notices(RwSignal::new(Vec::new()));
     provide_context(sheet);
+    provide_context(notices);
+    let keeper = keep::Keeper::start(sheet, notices);
+    provide_context(keeper);
     view! { <Desk sheet=sheet/> }
 }
 
@@ -30,14 +39,30 @@ pub fn Desk(
     sheet: Sheet,
 ) -> impl IntoView {
     provide_context(sheet);
+    let notices = use_context::<keep::Notices>().unwrap_or_else(|| {
+        let n = keep::Notices(RwSignal::new(Vec::new()));
+        provide_context(n);
+        n
+    });
+    let keeper = use_context::<keep::Keeper>();
+    let stored = keeper.is_some();
+    let k_demo = keeper.clone();
+    // The demo opens as a worksheet of its own when storage is in use, so
+    // it never replaces anyone's work.
     let open_demo = move |_| {
         if let Ok(demo) = SheetFile::from_json(state::DEMO) {
-            sheet.load(demo);
+            match &k_demo {
+                Some(k) => k.create(demo, sheet),
+                None => sheet.load(demo),
+            }
         }
     };
+    let panel = RwSignal::new("");
+    let toggle = move |name: &'static str| move |_| panel.update(|p| *p = if *p == name { "" } else { name });
+    let pressed = move |name: &'static str| move || if panel.get() == name { "true" } else { "false" };
     let system = move || sheet.units.get().system;
     view! {
-        <header class="masthead">
+        <header class="masthead screen-only">
             <div class="brand">
                 <h1>"Headroom"</h1>
                 <p class="tagline">"Pipe sizing worksheet · works offline"</p>
@@ -54,9 +79,28 @@ pub fn Desk(
                         on:click=move |_| sheet.set_system(System::Us)>"US"</button>
                 </div>
                 <button type="button" class="demo" data-testid="open-demo" on:click=open_demo>"Open the demo sheet"</button>
+                {stored.then(|| view! {
+                    <button type="button" data-testid="show-shelf" aria-pressed=pressed("shelf") on:click=toggle("shelf")>"Worksheets"</button>
+                })}
+                <button type="button" data-testid="show-share" aria-pressed=pressed("share") on:click=toggle("share")>"Share"</button>
+                <button type="button" data-testid="show-files" aria-pressed=pressed("files") on:click=toggle("files")>"Files & print"</button>
             </div>
         </header>
-        <main class="desk">
+        <div class="notices screen-only" aria-live="polite" data-testid="notices">
+            {move || notices.0.get().into_iter().enumerate().map(|(i, n)| view! {
+                <p class="notice" data-testid="notice">
+                    <span>{n}</span>
+                    <button type="button" class="quiet" aria-label="dismiss" on:click=move |_| notices.0.update(|v| { if i < v.len() { v.remove(i); } })>"✕"</button>
+                </p>
+            }).collect_view()}
+        </div>
+        {move || match panel.get() {
+            "shelf" if stored => view! { <div class="panels screen-only"><shelf::ShelfPanel/></div> }.into_any(),
+            "share" => view! { <div class="panels screen-only"><share::SharePanel/></div> }.into_any(),
+            "files" if stored => view! { <div class="panels screen-only"><share::FilesPanel/></div> }.into_any(),
+            _ => ().into_any(),
+        }}
+        <main class="desk screen-only">
             <roster::Roster/>
             <section class="bench" aria-label="Selected line">
                 {move || match sheet.current() {
@@ -73,6 +117,7 @@ pub fn Desk(
                 }}
             </section>
         </main>
-        <footer class="caution" role="note" data-testid="caution">{CAUTION}</footer>
+        <footer class="caution screen-only" role="note" data-testid="caution">{CAUTION}</footer>
+        <print::PrintSheet/>
     }
 }

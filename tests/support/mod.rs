@@ -142,17 +142,32 @@ impl Drop for Driver {
     }
 }
 
-/// The browser's console log since the last call (chromedriver's `se/log`).
+/// A log since the last call (chromedriver's `se/log`): "browser" is the
+/// console, "performance" the DevTools events (every network request).
 #[derive(Debug)]
-struct BrowserLog;
+struct Log(&'static str);
 
-impl WebDriverCompatibleCommand for BrowserLog {
+impl WebDriverCompatibleCommand for Log {
     fn endpoint(&self, base: &url::Url, session: Option<&str>) -> Result<url::Url, url::ParseError> {
         base.join(&format!("session/{}/se/log", session.unwrap_or_default()))
     }
 
     fn method_and_body(&self, _: &url::Url) -> (http::Method, Option<String>) {
-        (http::Method::POST, Some(json!({"type": "browser"}).to_string()))
+        (http::Method::POST, Some(json!({"type": self.0}).to_string()))
+    }
+}
+
+/// A DevTools protocol command through chromedriver (`goog/cdp/execute`).
+#[derive(Debug)]
+struct Cdp(Value);
+
+impl WebDriverCompatibleCommand for Cdp {
+    fn endpoint(&self, base: &url::Url, session: Option<&str>) -> Result<url::Url, url::ParseError> {
+        base.join(&format!("session/{}/goog/cdp/execute", session.unwrap_or_default()))
+    }
+
+    fn method_and_body(&self, _: &url::Url) -> (http::Method, Option<String>) {
+        (http::Method::POST, Some(self.0.to_string()))
     }
 }
 
@@ -165,6 +180,9 @@ pub struct Harness {
     pub client: Client,
     _driver: Driver,
     console: Vec<Value>,
+    requests: Vec<String>,
+    /// Console errors a test provoked on purpose, matched by substring.
+    pub expected_errors: Vec<&'static str>,
 }
 
 impl Harness {
@@ -199,13 +217,13 @@ impl Harness {
                 ]
             }),
         );
-        caps.insert("goog:loggingPrefs".into(), json!({"browser": "ALL"}));
+        caps.insert("goog:loggingPrefs".into(), json!({"browser": "ALL", "performance": "ALL"}));
         let client = ClientBuilder::new(hyper_util::client::legacy::connect::HttpConnector::new())
             .capabilities(caps)
             .connect(&format!("http://127.0.0.1:{}", driver.port))
             .await
             .expect("a WebDriver session with headless Chromium");
-        Harness { server, base_url, client, _driver: driver, console: Vec::new() }
+        Harness { server, base_url, client, _driver: driver, console: Vec::new(), requests: Vec::new(), expected_errors: Vec::new() }
     }
 
     pub fn url(&self, path: &str) -> String {
@@ -280,16 +298,47 @@ impl Harness {
 
     /// Collects console entries logged so far (the driver hands each out once).
     pub async fn drain_console(&mut self) -> &[Value] {
-        let log = self.client.issue_cmd(BrowserLog).await.expect("read the browser log");
+        let log = self.client.issue_cmd(Log("browser")).await.expect("read the browser log");
         if let Value::Array(entries) = log {
             self.console.extend(entries);
         }
         &self.console
     }
 
-    /// Fails on any console error, then ends the session.
+    /// Collects the URL of every network request the browser started so far.
+    pub async fn drain_requests(&mut self) -> &[String] {
+        let log = self.client.issue_cmd(Log("performance")).await.expect("read the performance log");
+        if let Value::Array(entries) = log {
+            for e in entries {
+                let Some(msg) = e["message"].as_str().and_then(|m| serde_json::from_str::<Value>(m).ok()) else { continue };
+                if msg["message"]["method"] == "Network.requestWillBeSent" {
+                    if let Some(u) = msg["message"]["params"]["request"]["url"].as_str() {
+                        self.requests.push(u.to_owned());
+                    }
+                }
+            }
+        }
+        &self.requests
+    }
+
+    /// Runs a DevTools protocol command.
+    pub async fn cdp(&self, cmd: &str, params: Value) -> Value {
+        self.client
+            .issue_cmd(Cdp(json!({"cmd": cmd, "params": params})))
+            .await
+            .unwrap_or_else(|e| panic!("{cmd}: {e}"))
+    }
+
+    /// Stops serving `dist/`: from now on only the browser's own copy exists.
+    pub fn stop_server(&mut self) {
+        self.server = None;
+    }
+
+    /// Fails on any console error and on any request that left the page's
+    /// origin, then ends the session.
     pub async fn finish(mut self) {
         self.drain_console().await;
+        self.drain_requests().await;
         for entry in &self.console {
             eprintln!("console: {entry}");
         }
@@ -297,9 +346,21 @@ impl Harness {
             .console
             .iter()
             .filter(|e| e["level"] == "SEVERE")
+            .filter(|e| {
+                let m = e["message"].as_str().unwrap_or_default();
+                !self.expected_errors.iter().any(|x| m.contains(x))
+            })
+            .collect();
+        let origin = self.base_url.clone();
+        let foreign: Vec<&String> = self
+            .requests
+            .iter()
+            .filter(|u| !(u.starts_with(&format!("{origin}/")) || *u == &origin || u.starts_with("data:") || u.starts_with("blob:")))
             .collect();
         let client = self.client.clone();
         let _ = client.close().await;
         assert!(errors.is_empty(), "the page logged console errors: {errors:#?}");
+        assert!(!self.requests.is_empty(), "the performance log recorded no requests at all");
+        assert!(foreign.is_empty(), "requests left the origin {origin}: {foreign:#?}");
     }
 }

@@ -1,0 +1,138 @@
+//! The printed review sheet: every line's inputs, the assumptions behind
+//! its numbers, the proposed size and its results, the sources and the
+//! cautions. Hidden on screen; the only thing printed.
+
+use leptos::prelude::*;
+
+use super::state::{Sheet, Slot};
+use crate::hydraulics::line::{Method, Pipe};
+use crate::hydraulics::losses::Fitting;
+use crate::sheet::file::{FluidFile, LineFile, PipeFile};
+use crate::sheet::report::CAUTION;
+use crate::sheet::units::{self, format_number};
+
+/// The sources every printed sheet lists.
+pub const SOURCES: &[&str] = &[
+    "Water density: IAPWS-IF97 (2007 revision), region 1; saturation: region 4.",
+    "Water viscosity: IAPWS 2008 formulation, without the critical enhancement.",
+    "Glycol solutions: Melinder (2010), Properties of Secondary Working Fluids, IIR — via CoolProp 8.0.0 tables, interpolated.",
+    "Friction factor: laminar 64/Re; Colebrook (1939), J. ICE 11, solved exactly; transition zone 2000–4000 taken at the turbulent value and flagged.",
+    "Pressure drop: Darcy–Weisbach; Hazen–Williams (Williams & Hazen, Hydraulic Tables) where chosen, for water near room temperature only.",
+    "Fittings: Darby (2001) 3-K method, Chem. Eng. 108(4); entrance 0.5 and exit 1.0 (Crane TP-410, common practice).",
+    "Pipe dimensions: ASME B36.10M, B36.19M; ASTM B88, D1785; EN 10255; ISO 4065 / EN 12201-2.",
+    "Roughness: Moody (1944); Idelchik, Handbook of Hydraulic Resistance; common practice where marked.",
+    "Units: NIST SP 811 (2008); g = 9.80665 m/s².",
+];
+
+fn fluid_text(f: &LineFile) -> String {
+    match &f.fluid {
+        FluidFile::Water { temperature, pressure } => format!(
+            "water at {temperature}, {} absolute",
+            pressure.clone().unwrap_or_else(|| "101.325 kPa".into())
+        ),
+        FluidFile::Glycol { glycol, percent, temperature } => format!("{percent} % {glycol:?} glycol in water at {temperature}").to_lowercase(),
+        FluidFile::Custom { density_kg_m3, viscosity_mpa_s, kinematic_viscosity_mm2_s } => format!(
+            "entered: ρ {density_kg_m3} kg/m³, {}",
+            viscosity_mpa_s.as_ref().map(|m| format!("μ {m} mPa·s")).or_else(|| kinematic_viscosity_mm2_s.as_ref().map(|n| format!("ν {n} mm²/s"))).unwrap_or_default()
+        ),
+    }
+}
+
+#[component]
+fn PrintLine(line: Slot, number: usize) -> impl IntoView {
+    let sheet = expect_context::<Sheet>();
+    let body = move || {
+        let u = sheet.resolved.get();
+        let f = line.file.get();
+        let r = line.report.get();
+        let inputs = vec![
+            ("Flow", f.flow.clone()),
+            ("Fluid", fluid_text(&f)),
+            ("Pipe", match &f.pipe {
+                PipeFile::Series(id) => crate::hydraulics::pipes::series(id).map(|s| format!("{} ({})", s.label, s.standard)).unwrap_or_else(|| id.clone()),
+                PipeFile::Bore { diameter, material } => format!("custom bore {diameter}, {material}"),
+            }),
+            ("Length", f.length.clone()),
+            ("Rise", f.rise.clone().unwrap_or_else(|| "0".into())),
+            ("Fittings", if f.fittings.is_empty() { "none".into() } else {
+                f.fittings.iter().map(|fc| format!("{} × {}", fc.count, Fitting::from_id(&fc.fitting).map(|x| x.label()).unwrap_or("?"))).collect::<Vec<_>>().join("; ")
+            }),
+            ("Extra ΣK / equivalent length", format!("{} / {}", f.extra_k.clone().unwrap_or_else(|| "0".into()), f.equivalent_length.clone().unwrap_or_else(|| "0".into()))),
+            ("Limits", [
+                f.limits.max_drop_per_length.as_ref().map(|v| format!("drop per length ≤ {v}")),
+                f.limits.max_total_drop.as_ref().map(|v| format!("total drop ≤ {v}")),
+                f.limits.max_velocity.as_ref().map(|v| format!("velocity ≤ {v}")),
+                f.limits.min_velocity.as_ref().map(|v| format!("velocity ≥ {v}")),
+            ].into_iter().flatten().collect::<Vec<_>>().join("; ")),
+        ];
+        let result = match &r.outcome {
+            Err(errs) => view! {
+                <p class="bad">"Not sized — inputs to fix: "{errs.iter().map(|e| e.to_string()).collect::<Vec<_>>().join("; ")}</p>
+            }.into_any(),
+            Ok(o) => {
+                let rho = o.sizing.properties.density_kg_m3();
+                let mu = o.sizing.properties.viscosity_pa_s();
+                let method = match o.line.method { Method::DarcyWeisbach => "Darcy–Weisbach, Colebrook".to_owned(), Method::HazenWilliams { c } => format!("Hazen–Williams, C = {c}") };
+                let bores = match o.line.pipe { Pipe::Series(_) => "standard inside diameters", Pipe::Custom(_) => "the bore entered" };
+                let assumptions = format!(
+                    "ρ = {} kg/m³, μ = {} mPa·s; ε = {} mm; {method}; {bores}",
+                    format_number(rho, 5), format_number(mu * 1e3, 4), format_number(o.line.roughness.value * 1e3, 3)
+                );
+                let answer = match o.shown {
+                    None => format!("No size meets the limits; the largest fails {}.", o.sizing.failing_at_largest.iter().map(|l| l.name()).collect::<Vec<_>>().join(", ")),
+                    Some(i) => {
+                        let c = &o.sizing.candidates[i];
+                        let p = &c.point;
+                        format!(
+                            "{} {}: velocity {}, drop per length {}, total drop {}, Re {}, f {}{}",
+                            if o.checked { "Checked size" } else { "Proposed size" },
+                            c.nominal,
+                            units::show(p.velocity.value, u.velocity, Some(rho), 3),
+                            units::show(p.drop_per_length.value, u.drop_per_length, Some(rho), 3),
+                            units::show(p.total_drop.value, u.pressure, Some(rho), 3),
+                            format_number(p.reynolds, 3),
+                            format_number(p.friction_factor, 3),
+                            if c.passes() { String::new() } else { " — FAILS a limit".into() },
+                        )
+                    }
+                };
+                let warnings = o.sizing.warnings.join(" ");
+                view! {
+                    <p class="print-answer"><strong>{answer}</strong></p>
+                    <p><em>"Assumptions: "</em>{assumptions}</p>
+                    {(!warnings.is_empty()).then(|| view! { <p class="bad">{warnings}</p> })}
+                }.into_any()
+            }
+        };
+        view! {
+            <h3>{format!("{number}. {}", if f.name.is_empty() { "(unnamed line)".to_owned() } else { f.name.clone() })}</h3>
+            <table class="print-inputs"><tbody>
+                {inputs.into_iter().map(|(k, v)| view! { <tr><th scope="row">{k}</th><td>{v}</td></tr> }).collect_view()}
+            </tbody></table>
+            {result}
+        }
+    };
+    view! { <section class="print-line">{body}</section> }
+}
+
+/// The review sheet, shown only when printing.
+#[component]
+pub fn PrintSheet() -> impl IntoView {
+    let sheet = expect_context::<Sheet>();
+    let rows = move || sheet.lines.get().into_iter().enumerate().collect::<Vec<_>>();
+    view! {
+        <article class="print-sheet" data-testid="print-sheet" aria-hidden="true">
+            <header>
+                <h1>{move || { let p = sheet.project.get(); if p.is_empty() { "Untitled worksheet".to_owned() } else { p } }}</h1>
+                <p>{move || format!("Pipe sizing review sheet · {} · Headroom {}", sheet.date.get(), env!("CARGO_PKG_VERSION"))}</p>
+                <p class="print-caution"><strong>"Caution: "</strong>{CAUTION}</p>
+            </header>
+            <For each=rows key=|(i, s)| (*i, s.id) children=|(i, s)| view! { <PrintLine line=s number=i + 1/> }/>
+            <footer>
+                <h2>"Sources"</h2>
+                <ul>{SOURCES.iter().map(|s| view! { <li>{*s}</li> }).collect_view()}</ul>
+                <p class="print-caution"><strong>"Caution: "</strong>{CAUTION}" Velocity limits guard against noise and erosion but not against water hammer; check pressure ratings, surge and local code requirements separately."</p>
+            </footer>
+        </article>
+    }
+}
