@@ -302,3 +302,66 @@ async fn the_content_security_policy_blocks_other_origins() {
     assert_eq!(ran, serde_json::Value::Bool(false));
     h.finish().await;
 }
+
+fn copy_dir(from: &std::path::Path, to: &std::path::Path) {
+    std::fs::create_dir_all(to).unwrap();
+    for e in std::fs::read_dir(from).unwrap() {
+        let e = e.unwrap();
+        std::fs::copy(e.path(), to.join(e.file_name())).unwrap();
+    }
+}
+
+#[tokio::test(flavor = "multi_thread")]
+#[ignore = "needs dist/ and chromedriver: scripts/test runs it"]
+async fn a_new_version_is_offered_not_forced() {
+    if std::env::var_os("HEADROOM_BASE_URL").is_some() {
+        return; // needs to change the files it serves
+    }
+    let site = support::artifact_dir().join("site-update");
+    let _ = std::fs::remove_dir_all(&site);
+    copy_dir(&support::dist_dir(), &site);
+    let mut h = Harness::start_serving(1024, 768, site.clone()).await;
+    h.open("/", "open-demo").await;
+    wait_for_service_worker(&h).await;
+    h.click("add-line").await;
+    h.type_into("flow", "4").await;
+    // Deploy a "new version": same files, a different service worker.
+    let sw = std::fs::read_to_string(site.join("sw.js")).unwrap();
+    let next = sw.replacen("const VERSION = \"", "const VERSION = \"next-", 1);
+    assert_ne!(sw, next);
+    std::fs::write(site.join("sw.js"), next).unwrap();
+    h.client
+        .execute_async(
+            "const done = arguments[arguments.length - 1]; navigator.serviceWorker.getRegistration().then(r => r.update()).then(() => done(true));",
+            vec![],
+        )
+        .await
+        .unwrap();
+    // Offered, not forced: the page keeps running and shows the offer.
+    h.wait_for("update-offer").await;
+    assert_eq!(h.value("flow").await, "4");
+    let before = h
+        .client
+        .execute("return navigator.serviceWorker.controller.scriptURL + '|' + performance.timeOrigin", vec![])
+        .await
+        .unwrap();
+    h.client.find(fantoccini::Locator::Css("#update-offer button")).await.unwrap().click().await.unwrap();
+    // After the switch the page has reloaded under the new worker, and the
+    // saved work is back.
+    let deadline = std::time::Instant::now() + std::time::Duration::from_secs(20);
+    loop {
+        let now = h
+            .client
+            .execute("return (navigator.serviceWorker.controller ? navigator.serviceWorker.controller.scriptURL : '') + '|' + performance.timeOrigin", vec![])
+            .await
+            .unwrap_or_default();
+        if now != before && now.as_str().is_some_and(|s| !s.starts_with('|')) {
+            break;
+        }
+        assert!(std::time::Instant::now() < deadline, "the page did not reload into the new version");
+        tokio::time::sleep(std::time::Duration::from_millis(100)).await;
+    }
+    h.wait_for("flow").await;
+    assert_eq!(h.value("flow").await, "4", "work survives the switch");
+    h.finish().await;
+}

@@ -188,11 +188,15 @@ pub struct Harness {
 impl Harness {
     /// Starts everything with the browser window at `width`×`height`.
     pub async fn start(width: u32, height: u32) -> Self {
+        Self::start_serving(width, height, dist_dir()).await
+    }
+
+    /// As [`Harness::start`], serving `dist` instead of the release build.
+    pub async fn start_serving(width: u32, height: u32, dist: PathBuf) -> Self {
         // HEADROOM_BASE_URL points the tests at a running `scripts/serve`.
         let (server, base_url) = match std::env::var("HEADROOM_BASE_URL") {
             Ok(url) => (None, url.trim_end_matches('/').to_owned()),
             Err(_) => {
-                let dist = dist_dir();
                 assert!(
                     dist.join("index.html").is_file(),
                     "{} has no index.html: run `trunk build --release` (scripts/test does)",
