@@ -17,7 +17,11 @@ use headroom::ui::{fatal, App, Desk, CAUTION};
 use leptos::prelude::*;
 use wasm_bindgen::JsCast;
 use wasm_bindgen_test::*;
-use web_sys::{Event, EventInit, HtmlElement, HtmlInputElement};
+use web_sys::{HtmlElement, HtmlInputElement};
+
+mod web;
+
+use web::{all_text, find, text, type_into};
 
 wasm_bindgen_test_configure!(run_in_browser);
 
@@ -39,29 +43,9 @@ fn mount_sheet(setup: impl FnOnce(&Sheet) + 'static) -> (HtmlElement, Sheet) {
     (host, out.take().unwrap())
 }
 
-fn find(root: &HtmlElement, testid: &str) -> web_sys::Element {
-    root.query_selector(&format!("[data-testid=\"{testid}\"]"))
-        .unwrap()
-        .unwrap_or_else(|| panic!("no element with data-testid={testid}"))
-}
 
-fn text(root: &HtmlElement, testid: &str) -> String {
-    find(root, testid).text_content().unwrap_or_default()
-}
 
-fn all_text(root: &HtmlElement, testid: &str) -> Vec<String> {
-    let list = root.query_selector_all(&format!("[data-testid={testid}]")).unwrap();
-    (0..list.length()).map(|i| list.item(i).unwrap().text_content().unwrap_or_default()).collect()
-}
 
-/// Types into an input the way a person does: set the value, fire `input`.
-fn type_into(root: &HtmlElement, testid: &str, value: &str) {
-    let input: HtmlInputElement = find(root, testid).unchecked_into();
-    input.set_value(value);
-    let init = EventInit::new();
-    init.set_bubbles(true);
-    input.dispatch_event(&Event::new_with_event_init_dict("input", &init).unwrap()).unwrap();
-}
 
 /// A chilled-water line with flow and length filled in.
 fn chilled(sheet: &Sheet, name: &str, flow: &str) {

@@ -9,7 +9,11 @@ use headroom::ui::state::DEMO;
 use headroom::ui::App;
 use wasm_bindgen::JsCast;
 use wasm_bindgen_test::*;
-use web_sys::{Event, EventInit, HtmlElement, HtmlInputElement};
+use web_sys::{HtmlElement, HtmlInputElement};
+
+mod web;
+
+use web::{all_text, click, find, type_into};
 
 wasm_bindgen_test_configure!(run_in_browser);
 
@@ -50,30 +54,19 @@ fn mount_app() -> HtmlElement {
     host
 }
 
-fn find(root: &HtmlElement, testid: &str) -> web_sys::Element {
-    root.query_selector(&format!("[data-testid=\"{testid}\"]")).unwrap().unwrap_or_else(|| panic!("no {testid}"))
-}
 
-fn all_text(root: &HtmlElement, testid: &str) -> Vec<String> {
-    let list = root.query_selector_all(&format!("[data-testid=\"{testid}\"]")).unwrap();
-    (0..list.length()).map(|i| list.item(i).unwrap().text_content().unwrap_or_default()).collect()
-}
 
-fn click(root: &HtmlElement, testid: &str) {
-    find(root, testid).unchecked_ref::<HtmlElement>().click();
-}
 
-fn type_into(root: &HtmlElement, testid: &str, value: &str) {
-    let input: HtmlInputElement = find(root, testid).unchecked_into();
-    input.set_value(value);
-    let init = EventInit::new();
-    init.set_bubbles(true);
-    input.dispatch_event(&Event::new_with_event_init_dict("input", &init).unwrap()).unwrap();
-}
 
+/// Lets the page finish reacting, including the save that runs in a task of
+/// its own right after a change.
 async fn settle() {
     for _ in 0..3 {
         leptos::task::tick().await;
+        let p = js_sys::Promise::new(&mut |resolve, _| {
+            web_sys::window().unwrap().set_timeout_with_callback_and_timeout_and_arguments_0(&resolve, 0).unwrap();
+        });
+        wasm_bindgen_futures::JsFuture::from(p).await.unwrap();
     }
 }
 

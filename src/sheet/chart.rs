@@ -92,8 +92,39 @@ pub struct Chart {
     pub y_ticks: Vec<(f64, String)>,
 }
 
-/// Builds the chart for a line's candidates.
+/// The part of the chart that is the same for every line, computed once.
+pub fn background() -> &'static Chart {
+    static BACKGROUND: std::sync::OnceLock<Chart> = std::sync::OnceLock::new();
+    BACKGROUND.get_or_init(|| moody_with(None))
+}
+
+/// The operating points of a line's candidates.
+pub fn points(sizing: &Sizing) -> Vec<Point> {
+    sizing
+        .candidates
+        .iter()
+        .enumerate()
+        .map(|(i, c)| {
+            let (re, f) = (c.point.reynolds, c.point.friction_factor);
+            let clipped = re < RE_RANGE.0 || re > RE_RANGE.1 || f < F_RANGE.0 || f > F_RANGE.1;
+            Point {
+                nominal: c.nominal,
+                x: x_of(re.clamp(RE_RANGE.0, RE_RANGE.1)),
+                y: y_of(f.clamp(F_RANGE.0, F_RANGE.1)),
+                proposed: sizing.proposed == Some(i),
+                passes: c.passes(),
+                clipped,
+            }
+        })
+        .collect()
+}
+
+/// Builds the whole chart for a line's candidates.
 pub fn moody(sizing: &Sizing) -> Chart {
+    moody_with(Some(sizing))
+}
+
+fn moody_with(sizing: Option<&Sizing>) -> Chart {
     let steps = 60;
     // Start where 64/Re enters the chart (Re = 640), so the line never runs
     // along the top edge.
@@ -120,23 +151,7 @@ pub fn moody(sizing: &Sizing) -> Chart {
             }
         })
         .collect();
-    let points = sizing
-        .candidates
-        .iter()
-        .enumerate()
-        .map(|(i, c)| {
-            let (re, f) = (c.point.reynolds, c.point.friction_factor);
-            let clipped = re < RE_RANGE.0 || re > RE_RANGE.1 || f < F_RANGE.0 || f > F_RANGE.1;
-            Point {
-                nominal: c.nominal,
-                x: x_of(re.clamp(RE_RANGE.0, RE_RANGE.1)),
-                y: y_of(f.clamp(F_RANGE.0, F_RANGE.1)),
-                proposed: sizing.proposed == Some(i),
-                passes: c.passes(),
-                clipped,
-            }
-        })
-        .collect();
+    let points = sizing.map(points).unwrap_or_default();
     let x_ticks = (3..=8).map(|e| (x_of(10f64.powi(e)), format!("1e{e}"))).collect();
     let y_ticks = [0.01, 0.015, 0.02, 0.03, 0.04, 0.05, 0.07, 0.1].iter().map(|&f| (y_of(f), format!("{f}"))).collect();
     Chart {

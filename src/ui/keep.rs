@@ -80,6 +80,7 @@ pub struct Keeper {
     pub removed: RwSignal<Option<(Entry, String)>>,
     /// Whether the last save failed (so the notice is not repeated per key).
     pub failing: RwSignal<bool>,
+    notices: Notices,
 }
 
 fn now() -> String {
@@ -124,6 +125,7 @@ impl Keeper {
             entries: RwSignal::new(entries),
             removed: RwSignal::new(None),
             failing: RwSignal::new(false),
+            notices,
         };
         let opened_link = keeper.open_link_in_url(sheet, notices);
         if !opened_link {
@@ -146,34 +148,56 @@ impl Keeper {
     }
 
     fn autosave(&self, sheet: Sheet, notices: Notices) {
-        let k = self.clone();
+        let k = *self;
+        // Saving a big sheet takes a few milliseconds, so it runs in a task
+        // of its own right after the change (never after a delay), one
+        // save for however many changes arrived meanwhile. The results are
+        // on screen first.
+        let scheduled = StoredValue::new(false);
         Effect::new(move |_| {
             sheet.project.track();
             sheet.date.track();
             sheet.units.track();
             sheet.lines.with(|v| v.iter().for_each(|s| s.file.track()));
-            let id = k.current.get_untracked();
-            if id.is_empty() {
+            if scheduled.get_value() {
                 return;
             }
-            match k.library.with_value(|l| l.save(&id, &sheet.to_file(), &now())) {
-                Ok(()) => {
-                    k.failing.set(false);
-                    k.library.with_value(|l| l.set_current(&id));
-                    k.entries.set(k.library.with_value(|l| l.entries()).0);
-                }
-                Err(p) => {
-                    if !k.failing.get_untracked() {
-                        notices.say(p.to_string());
-                    }
-                    k.failing.set(true);
-                }
+            scheduled.set_value(true);
+            let save = wasm_bindgen::closure::Closure::once_into_js(move || {
+                scheduled.set_value(false);
+                k.save_now(sheet, notices);
+            });
+            if let Some(w) = web_sys::window() {
+                let _ = w.set_timeout_with_callback(save.unchecked_ref());
             }
         });
     }
 
+    /// Saves the open worksheet now.
+    pub fn save_now(&self, sheet: Sheet, notices: Notices) {
+        let id = self.current.get_untracked();
+        if id.is_empty() {
+            return;
+        }
+        match self.library.with_value(|l| l.save(&id, &sheet.to_file(), &now())) {
+            Ok(()) => {
+                self.failing.set(false);
+                self.library.with_value(|l| l.set_current(&id));
+                self.entries.set(self.library.with_value(|l| l.entries()).0);
+            }
+            Err(p) => {
+                if !self.failing.get_untracked() {
+                    notices.say(p.to_string());
+                }
+                self.failing.set(true);
+            }
+        }
+    }
+
     /// Opens a stored worksheet; a damaged one is kept aside and a fresh one opened.
     pub fn open(&self, id: &str, sheet: Sheet, notices: Notices) {
+        // A change still waiting to be saved belongs to the sheet open now.
+        self.save_now(sheet, notices);
         match self.library.with_value(|l| l.load(id)) {
             Ok(Some(file)) => {
                 self.current.set(id.to_owned());
@@ -191,6 +215,7 @@ impl Keeper {
 
     /// Stores a sheet as a new worksheet and opens it.
     pub fn create(&self, file: SheetFile, sheet: Sheet) {
+        self.save_now(sheet, self.notices);
         let id = new_id();
         let _ = self.library.with_value(|l| l.save(&id, &file, &now()));
         self.current.set(id.clone());
@@ -216,6 +241,8 @@ impl Keeper {
         }
         self.entries.set(self.library.with_value(|l| l.entries()).0);
         if self.current.get_untracked() == id {
+            // Forget it first, so nothing saves it back.
+            self.current.set(String::new());
             match self.entries.get_untracked().first().map(|e| e.id.clone()) {
                 Some(next) => self.open(&next, sheet, notices),
                 None => self.create(blank(), sheet),

@@ -52,8 +52,9 @@ pub fn LineResults(
                         <p>"Fix the fields marked in red to see sizes."</p>
                     </div>
                 }.into_any(),
-                Some(o) => view! { <Answer o=o.clone() u=u/> <SizeTable o=o.clone() u=u file=file/> <Moody o=o.clone()/> <Explain o=o/> }.into_any(),
+                Some(o) => view! { <Answer o=o.clone() u=u/> <SizeTable o=o.clone() u=u file=file/> <Explain o=o/> }.into_any(),
             }}}
+            <Moody outcome=outcome/>
         </section>
     }
 }
@@ -156,17 +157,22 @@ fn SizeTable(o: Outcome, u: Units, file: RwSignal<crate::sheet::file::LineFile>)
     }
 }
 
-/// The Moody chart with every candidate's operating point.
+/// The Moody chart with every candidate's operating point. The grid and
+/// curves do not depend on the line, so they are drawn once; only the
+/// points follow the line's result.
 #[component]
 pub fn Moody(
-    /// The line's result.
-    o: Outcome,
+    /// The line's result, if it has one.
+    outcome: Memo<Option<Outcome>>,
 ) -> impl IntoView {
-    let c = chart::moody(&o.sizing);
+    let c = chart::background();
     let (px, py, pw, ph) = chart::plot_area();
     let view_box = format!("0 0 {} {}", chart::WIDTH, chart::HEIGHT);
+    let points = move || {
+        outcome.with(|o| o.as_ref().map(|o| chart::points(&o.sizing)).unwrap_or_default())
+    };
     view! {
-        <figure class="moody">
+        <figure class="moody" class:hidden=move || outcome.with(Option::is_none)>
             <svg viewBox=view_box role="img" aria-labelledby="moody-title" data-testid="moody">
                 <title id="moody-title">"Moody chart: friction factor against Reynolds number, with each size's operating point"</title>
                 <rect class="plot" x=px y=py width=pw height=ph/>
@@ -184,11 +190,13 @@ pub fn Moody(
                     <path class="curve" d=cv.d.clone()/>
                     <text class="curve-label" x=cv.label_at.0 - 4.0 y=cv.label_at.1 - 4.0 text-anchor="end">{cv.label.clone()}</text>
                 }).collect_view()}
-                {c.points.iter().map(|p| {
-                    let cls = if p.proposed { "pt pt-proposed" } else if p.passes { "pt pt-pass" } else { "pt pt-fail" };
-                    let r = if p.proposed { 7.0 } else { 4.5 };
-                    view! { <circle class=cls cx=p.x cy=p.y r=r data-testid="moody-point"><title>{p.nominal}</title></circle> }
-                }).collect_view()}
+                <g class="points">
+                    {move || points().into_iter().map(|p| {
+                        let cls = if p.proposed { "pt pt-proposed" } else if p.passes { "pt pt-pass" } else { "pt pt-fail" };
+                        let r = if p.proposed { 7.0 } else { 4.5 };
+                        view! { <circle class=cls cx=p.x cy=p.y r=r data-testid="moody-point"><title>{p.nominal}</title></circle> }
+                    }).collect_view()}
+                </g>
                 <text class="axis" x=px + pw / 2.0 y=chart::HEIGHT - 4.0 text-anchor="middle">"Reynolds number Re"</text>
                 <text class="axis" x=14.0 y=py + ph / 2.0 text-anchor="middle" transform=format!("rotate(-90 14 {})", py + ph / 2.0)>"f"</text>
             </svg>

@@ -1,0 +1,38 @@
+//! Helpers for the in-browser tests: find by `data-testid`, read text,
+//! type and click as a person would.
+#![allow(dead_code)]
+
+use wasm_bindgen::JsCast;
+use web_sys::{Event, EventInit, HtmlElement, HtmlInputElement};
+
+/// The element with a `data-testid`, or a panic naming it.
+pub fn find(root: &HtmlElement, testid: &str) -> web_sys::Element {
+    root.query_selector(&format!("[data-testid=\"{testid}\"]"))
+        .unwrap()
+        .unwrap_or_else(|| panic!("no element with data-testid={testid}"))
+}
+
+/// Its text.
+pub fn text(root: &HtmlElement, testid: &str) -> String {
+    find(root, testid).text_content().unwrap_or_default()
+}
+
+/// The text of every element with a `data-testid`.
+pub fn all_text(root: &HtmlElement, testid: &str) -> Vec<String> {
+    let list = root.query_selector_all(&format!("[data-testid=\"{testid}\"]")).unwrap();
+    (0..list.length()).map(|i| list.item(i).unwrap().text_content().unwrap_or_default()).collect()
+}
+
+/// Clicks it.
+pub fn click(root: &HtmlElement, testid: &str) {
+    find(root, testid).unchecked_ref::<HtmlElement>().click();
+}
+
+/// Types into an input the way a person does: set the value, fire `input`.
+pub fn type_into(root: &HtmlElement, testid: &str, value: &str) {
+    let input: HtmlInputElement = find(root, testid).unchecked_into();
+    input.set_value(value);
+    let init = EventInit::new();
+    init.set_bubbles(true);
+    input.dispatch_event(&Event::new_with_event_init_dict("input", &init).unwrap()).unwrap();
+}
