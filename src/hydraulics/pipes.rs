@@ -11,6 +11,9 @@
 //! US-customary tables are kept in inches as the standards print them and
 //! converted with 1 in = 25.4 mm exactly (NIST SP 811, appendix B.8).
 
+// A 0.318 in wall is a wall, not an approximation of 1/π.
+#![allow(clippy::approx_constant)]
+
 use uom::si::f64::Length;
 use uom::si::length::millimeter;
 

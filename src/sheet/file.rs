@@ -596,7 +596,7 @@ impl LineFile {
         let lim = &self.limits;
         let limits = Limits {
             max_drop_per_length: optional(e, "limits.max_drop_per_length", &lim.max_drop_per_length, Dimension::DropPerLength, units.drop_per_length, rho).map(pa_per_m),
-            max_total_drop: optional(e, "limits.max_total_drop", &lim.max_total_drop, Dimension::Pressure, units.pressure, rho).map(|p| Pressure::new::<pascal>(p)),
+            max_total_drop: optional(e, "limits.max_total_drop", &lim.max_total_drop, Dimension::Pressure, units.pressure, rho).map(Pressure::new::<pascal>),
             max_velocity: optional(e, "limits.max_velocity", &lim.max_velocity, Dimension::Velocity, units.velocity, None).map(Velocity::new::<meter_per_second>),
             min_velocity: optional(e, "limits.min_velocity", &lim.min_velocity, Dimension::Velocity, units.velocity, None).map(Velocity::new::<meter_per_second>),
         };

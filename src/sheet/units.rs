@@ -323,6 +323,15 @@ pub fn format_number(value: f64, significant: usize) -> String {
     format!("{value:.decimals$}")
 }
 
+/// An SI value shown in `unit` to `significant` figures with its symbol;
+/// "—" when it cannot be shown (no density for a head, or not finite).
+pub fn show(si: f64, unit: &'static Unit, density: Option<f64>, significant: usize) -> String {
+    match from_si(si, unit, density) {
+        Ok(v) if v.is_finite() => format(v, unit, significant),
+        _ => "—".to_owned(),
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -398,11 +407,3 @@ mod tests {
     }
 }
 
-/// An SI value shown in `unit` to `significant` figures with its symbol;
-/// "—" when it cannot be shown (no density for a head, or not finite).
-pub fn show(si: f64, unit: &'static Unit, density: Option<f64>, significant: usize) -> String {
-    match from_si(si, unit, density) {
-        Ok(v) if v.is_finite() => format(v, unit, significant),
-        _ => "—".to_owned(),
-    }
-}

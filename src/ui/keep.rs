@@ -136,7 +136,7 @@ impl Keeper {
             }
         }
         keeper.autosave(sheet, notices);
-        let k = keeper.clone();
+        let k = keeper;
         let on_hash = wasm_bindgen::closure::Closure::<dyn FnMut()>::new(move || {
             k.open_link_in_url(sheet, notices);
         });

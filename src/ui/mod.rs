@@ -46,7 +46,7 @@ pub fn Desk(
     });
     let keeper = use_context::<keep::Keeper>();
     let stored = keeper.is_some();
-    let k_demo = keeper.clone();
+    let k_demo = keeper;
     // The demo opens as a worksheet of its own when storage is in use, so
     // it never replaces anyone's work.
     let open_demo = move |_| {

@@ -124,8 +124,7 @@ pub fn FilesPanel() -> impl IntoView {
         let Some(input) = ev.target().and_then(|t| t.dyn_into::<web_sys::HtmlInputElement>().ok()) else { return };
         let Some(file) = input.files().and_then(|f| f.get(0)) else { return };
         input.set_value("");
-        let keeper = keeper.clone();
-        wasm_bindgen_futures::spawn_local(async move {
+                wasm_bindgen_futures::spawn_local(async move {
             if file.size() > crate::sheet::file::MAX_FILE_BYTES as f64 {
                 notices.say("That file is too large to be a Headroom worksheet.");
                 return;

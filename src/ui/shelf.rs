@@ -12,36 +12,31 @@ pub fn ShelfPanel() -> impl IntoView {
     let sheet = expect_context::<Sheet>();
     let notices = expect_context::<Notices>();
     let keeper = expect_context::<Keeper>();
-    let k_new = keeper.clone();
-    let k_undo = keeper.clone();
-    let k_rows = keeper.clone();
     let removed = keeper.removed;
     view! {
         <section class="panel shelf" aria-label="Worksheets on this device" data-testid="shelf-panel">
             <h2>"Worksheets on this device"</h2>
             <p class="hint">"Every change is saved here as you type."</p>
-            <button type="button" data-testid="new-sheet" on:click=move |_| k_new.create(blank(), sheet)>"+ New worksheet"</button>
+            <button type="button" data-testid="new-sheet" on:click=move |_| keeper.create(blank(), sheet)>"+ New worksheet"</button>
             {move || removed.get().map(|(e, _)| {
-                let k = k_undo.clone();
                 view! {
                     <p class="toast" role="status">{format!("Deleted “{}”. ", e.name)}
-                        <button type="button" class="quiet" data-testid="undo-sheet-delete" on:click=move |_| k.undo_delete(notices)>"Undo"</button>
+                        <button type="button" class="quiet" data-testid="undo-sheet-delete" on:click=move |_| keeper.undo_delete(notices)>"Undo"</button>
                     </p>
                 }
             })}
             <ul class="shelf-list" data-testid="shelf-list">
                 <For each=move || keeper.entries.get() key=|e| (e.id.clone(), e.name.clone()) children=move |e| {
                     let (id1, id2, id3, id4) = (e.id.clone(), e.id.clone(), e.id.clone(), e.id.clone());
-                    let (k1, k2, k3, k4) = (k_rows.clone(), k_rows.clone(), k_rows.clone(), k_rows.clone());
-                    let current = k_rows.current;
+                    let current = keeper.current;
                     let is_current = move || current.get() == id4;
                     view! {
                         <li class:current=is_current data-testid="shelf-row">
                             <input type="text" aria-label="worksheet name" data-testid="shelf-name" prop:value=e.name.clone()
-                                on:change=move |ev| k1.rename(&id1, event_target_value(&ev), sheet, notices)/>
-                            <button type="button" data-testid="shelf-open" on:click=move |_| k2.open(&id2, sheet, notices)>"Open"</button>
-                            <button type="button" class="quiet" data-testid="shelf-copy" on:click=move |_| k3.duplicate(&id3, sheet, notices)>"Copy"</button>
-                            <button type="button" class="quiet" data-testid="shelf-delete" on:click={ let id = e.id.clone(); move |_| k4.delete(&id, sheet, notices) }>"Delete"</button>
+                                on:change=move |ev| keeper.rename(&id1, event_target_value(&ev), sheet, notices)/>
+                            <button type="button" data-testid="shelf-open" on:click=move |_| keeper.open(&id2, sheet, notices)>"Open"</button>
+                            <button type="button" class="quiet" data-testid="shelf-copy" on:click=move |_| keeper.duplicate(&id3, sheet, notices)>"Copy"</button>
+                            <button type="button" class="quiet" data-testid="shelf-delete" on:click={ let id = e.id.clone(); move |_| keeper.delete(&id, sheet, notices) }>"Delete"</button>
                         </li>
                     }
                 }/>
