@@ -379,3 +379,39 @@ async fn a_new_version_is_offered_not_forced() {
     assert_eq!(h.value("flow").await, "4", "work survives the switch");
     h.finish().await;
 }
+
+#[tokio::test(flavor = "multi_thread")]
+#[ignore = "needs dist/ and chromedriver: scripts/test runs it"]
+async fn a_sheet_file_imports_as_a_new_worksheet() {
+    let mut h = Harness::start(1024, 768).await;
+    h.open("/", "add-line").await;
+    h.click("show-files").await;
+    // The same file the batch command reads.
+    let path = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("examples/clinic-chilled-water.json");
+    let input = h.wait_for("import-json").await;
+    input.send_keys(&path.display().to_string()).await.expect("choose the file");
+    h.wait_for("notice").await;
+    let notice = h.text("notice").await;
+    let demo = headroom::sheet::file::SheetFile::from_json(include_str!("../examples/clinic-chilled-water.json")).unwrap();
+    assert!(notice.contains(&format!("Imported “{}” as a new worksheet", demo.project)), "{notice}");
+    let names = h.client.find_all(Locator::Css("[data-testid=row-name]")).await.unwrap();
+    assert_eq!(names.len(), demo.lines.len());
+    // A file that is not a sheet is refused with a message.
+    let bad = support::artifact_dir().join("not-a-sheet.json");
+    std::fs::write(&bad, "{\"format\":\"something-else\"}").unwrap();
+    h.wait_for("import-json").await.send_keys(&bad.display().to_string()).await.unwrap();
+    let deadline = std::time::Instant::now() + std::time::Duration::from_secs(10);
+    loop {
+        let all = h.client.find_all(Locator::Css("[data-testid=notice]")).await.unwrap();
+        let mut texts = Vec::new();
+        for n in all {
+            texts.push(n.text().await.unwrap_or_default());
+        }
+        if texts.iter().any(|t| t.contains("could not be imported") && t.contains("format is 'something-else'")) {
+            break;
+        }
+        assert!(std::time::Instant::now() < deadline, "{texts:?}");
+        tokio::time::sleep(std::time::Duration::from_millis(100)).await;
+    }
+    h.finish().await;
+}
