@@ -214,3 +214,34 @@ async fn worksheets_can_be_copied_deleted_and_brought_back() {
     settle().await;
     assert_eq!(rows(), start + 1);
 }
+
+#[wasm_bindgen_test]
+async fn disabled_storage_says_work_will_be_lost_and_sizing_goes_on() {
+    fresh();
+    // Make the page's local storage refuse access, as a locked-down browser
+    // does (reading `localStorage` throws), then put it back afterwards.
+    // An own property on `window` shadows the real one.
+    let w = web_sys::window().unwrap();
+    let original = w.local_storage().unwrap().unwrap();
+    let throwing = js_sys::Function::new_no_args("throw new DOMException('storage is off', 'SecurityError')");
+    let blocked = js_sys::Object::new();
+    js_sys::Reflect::set(&blocked, &"get".into(), &throwing).unwrap();
+    js_sys::Reflect::set(&blocked, &"configurable".into(), &true.into()).unwrap();
+    js_sys::Object::define_property(&w, &"localStorage".into(), &blocked);
+    let page = mount_app();
+    settle().await;
+    click(&page, "add-line");
+    settle().await;
+    type_into(&page, "flow", "4");
+    type_into(&page, "length", "25");
+    settle().await;
+    // Restore before asserting, so a failure cannot leave storage broken.
+    let restored = js_sys::Object::new();
+    js_sys::Reflect::set(&restored, &"value".into(), &original).unwrap();
+    js_sys::Reflect::set(&restored, &"configurable".into(), &true.into()).unwrap();
+    js_sys::Object::define_property(&w, &"localStorage".into(), &restored);
+    let notices = all_text(&page, "notice").join(" ");
+    assert!(notices.contains("not letting Headroom store anything"), "{notices}");
+    assert_ne!(find(&page, "proposed-size").text_content().unwrap(), "—", "sizing goes on");
+    assert!(w.local_storage().unwrap().is_some(), "storage is back for the next test");
+}
