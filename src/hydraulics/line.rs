@@ -17,7 +17,7 @@ use uom::typenum::{N2, P1, Z0};
 
 use super::fluid::{Fluid, FluidError, Properties};
 use super::friction::{self, Regime};
-use super::geometry::{flow_area, mean_velocity};
+use super::geometry::mean_velocity;
 use super::losses::{self, Fittings, G_N};
 use super::pipes::Series;
 
@@ -27,11 +27,6 @@ pub type PressureGradient = Quantity<ISQ<N2, P1, N2, Z0, Z0, Z0, Z0>, SI<f64>, f
 /// Builds a [`PressureGradient`] from pascals per metre.
 pub fn pa_per_m(v: f64) -> PressureGradient {
     Pressure::new::<pascal>(v) / Length::new::<meter>(1.0)
-}
-
-/// Reads a [`PressureGradient`] in pascals per metre.
-pub fn in_pa_per_m(g: PressureGradient) -> f64 {
-    g.value
 }
 
 /// How friction loss is computed.
@@ -369,11 +364,6 @@ impl Line {
 pub fn hazen_williams_slope(v: f64, d: f64, c: f64) -> f64 {
     let r = d / 4.0;
     (v / (0.849 * c * r.powf(0.63))).powf(1.0 / 0.54)
-}
-
-/// Flow area as a convenience for callers working in flow and bore.
-pub fn area_of(bore: Length) -> uom::si::f64::Area {
-    flow_area(bore)
 }
 
 #[cfg(test)]

@@ -3,7 +3,7 @@
 //! meets them all. Also check mode (one named size), capacity (the largest
 //! flow each size can carry within the limits) and the explain trace.
 
-use uom::si::f64::{Length, Pressure, Velocity, VolumeRate};
+use uom::si::f64::{Length, Velocity, VolumeRate};
 use uom::si::volume_rate::cubic_meter_per_second;
 
 use super::fluid::Properties;
@@ -291,7 +291,6 @@ pub fn trace(line: &Line, props: &Properties, c: &Candidate) -> Vec<Step> {
             "Colebrook (1939), J. ICE 11, solved by Newton's method to 1e-12",
         ),
     };
-    let zero = Pressure::default();
     vec![
         Step { symbol: "ρ", name: "density", formula: "fluid property at T, p", value: props.density.value, unit: "kg/m³", source: fluid_source },
         Step { symbol: "μ", name: "dynamic viscosity", formula: "fluid property at T, p", value: props.viscosity.value, unit: "Pa·s", source: fluid_source },
@@ -304,7 +303,7 @@ pub fn trace(line: &Line, props: &Properties, c: &Candidate) -> Vec<Step> {
         Step { symbol: "Δp_f", name: "friction drop", formula: "(Δp/L) · (L + L_eq)", value: p.friction_drop.value, unit: "Pa", source: "Darcy–Weisbach" },
         Step { symbol: "ΣK", name: "fittings", formula: "Σ n (K1/Re + Ki (1 + Kd/D^0.3)) + K_extra", value: p.sum_k, unit: "", source: "Darby (2001) 3-K method" },
         Step { symbol: "Δp_K", name: "fittings drop", formula: "ΣK ρ V² / 2", value: p.fittings_drop.value, unit: "Pa", source: "velocity-head method" },
-        Step { symbol: "Δp_z", name: "static (rise)", formula: "ρ g Δz, g = 9.80665 m/s²", value: if line.rise.value == 0.0 { zero.value } else { p.static_drop.value }, unit: "Pa", source: "hydrostatics" },
+        Step { symbol: "Δp_z", name: "static (rise)", formula: "ρ g Δz, g = 9.80665 m/s²", value: p.static_drop.value, unit: "Pa", source: "hydrostatics" },
         Step { symbol: "Δp", name: "total drop", formula: "Δp_f + Δp_K + Δp_z", value: p.total_drop.value, unit: "Pa", source: "sum" },
     ]
 }

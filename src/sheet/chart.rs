@@ -75,7 +75,7 @@ pub struct Point {
     pub clipped: bool,
 }
 
-/// Everything the page draws.
+/// The part of the chart that is the same for every line.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Chart {
     /// Laminar line f = 64/Re, to the laminar limit.
@@ -84,8 +84,6 @@ pub struct Chart {
     pub curves: Vec<Curve>,
     /// The transition band, x from and to.
     pub transition: (f64, f64),
-    /// Candidate points, smallest size first.
-    pub points: Vec<Point>,
     /// Re gridlines: (x, label).
     pub x_ticks: Vec<(f64, String)>,
     /// f gridlines: (y, label).
@@ -95,7 +93,7 @@ pub struct Chart {
 /// The part of the chart that is the same for every line, computed once.
 pub fn background() -> &'static Chart {
     static BACKGROUND: std::sync::OnceLock<Chart> = std::sync::OnceLock::new();
-    BACKGROUND.get_or_init(|| moody_with(None))
+    BACKGROUND.get_or_init(build_background)
 }
 
 /// The operating points of a line's candidates.
@@ -119,12 +117,7 @@ pub fn points(sizing: &Sizing) -> Vec<Point> {
         .collect()
 }
 
-/// Builds the whole chart for a line's candidates.
-pub fn moody(sizing: &Sizing) -> Chart {
-    moody_with(Some(sizing))
-}
-
-fn moody_with(sizing: Option<&Sizing>) -> Chart {
+fn build_background() -> Chart {
     let steps = 60;
     // Start where 64/Re enters the chart (Re = 640), so the line never runs
     // along the top edge.
@@ -151,14 +144,12 @@ fn moody_with(sizing: Option<&Sizing>) -> Chart {
             }
         })
         .collect();
-    let points = sizing.map(points).unwrap_or_default();
     let x_ticks = (3..=8).map(|e| (x_of(10f64.powi(e)), format!("1e{e}"))).collect();
     let y_ticks = [0.01, 0.015, 0.02, 0.03, 0.04, 0.05, 0.07, 0.1].iter().map(|&f| (y_of(f), format!("{f}"))).collect();
     Chart {
         laminar: laminar_line,
         curves,
         transition: (x_of(RE_LAMINAR_MAX), x_of(RE_TURBULENT_MIN)),
-        points,
         x_ticks,
         y_ticks,
     }

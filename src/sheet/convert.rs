@@ -2,7 +2,7 @@
 //! typed in the old unit are rewritten in the new one; text that names its
 //! own unit is left exactly as typed.
 
-use super::file::{FluidFile, LineFile, PipeFile, Units};
+use super::file::{FluidFile, LineFile, Units};
 use super::units::{self, format_number, from_si, Dimension, Unit};
 
 /// Rewrites one field's text from `old` to `new`, if it is a bare number.
@@ -55,9 +55,8 @@ pub fn line(l: &mut LineFile, old: &Units, new: &Units, density: Option<f64>) {
         }
         FluidFile::Custom { .. } => {}
     }
-    if let PipeFile::Bore { .. } = l.pipe {
-        // Bores are read in mm when bare, whatever the sheet's units.
-    }
+    // A custom bore's diameter is read in mm when bare, whatever the
+    // sheet's units, so it needs no rewriting.
     opt(&mut l.roughness, Dimension::Roughness, old.roughness, new.roughness, None);
     field(&mut l.length, Dimension::Length, old.length, new.length, None);
     opt(&mut l.equivalent_length, Dimension::Length, old.length, new.length, None);

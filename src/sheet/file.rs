@@ -140,7 +140,42 @@ impl Units {
     }
 }
 
+impl Units {
+    /// The unit of one kind of field.
+    pub fn of(&self, dim: Dimension) -> &'static Unit {
+        match dim {
+            Dimension::Flow => self.flow,
+            Dimension::Pressure => self.pressure,
+            Dimension::DropPerLength => self.drop_per_length,
+            Dimension::Length => self.length,
+            Dimension::Velocity => self.velocity,
+            Dimension::Temperature => self.temperature,
+            Dimension::Roughness => self.roughness,
+        }
+    }
+
+    /// The unit inside diameters are shown in: inches on a sheet measured
+    /// in feet, millimetres otherwise.
+    pub fn bore(&self) -> &'static Unit {
+        let name = if self.length.symbol == "ft" { "in" } else { "mm" };
+        units::find(Dimension::Length, name).expect("bore units exist")
+    }
+}
+
 impl UnitChoice {
+    /// The stored choice for one kind of field.
+    pub fn slot_mut(&mut self, dim: Dimension) -> &mut Option<String> {
+        match dim {
+            Dimension::Flow => &mut self.flow,
+            Dimension::Pressure => &mut self.pressure,
+            Dimension::DropPerLength => &mut self.drop_per_length,
+            Dimension::Length => &mut self.length,
+            Dimension::Velocity => &mut self.velocity,
+            Dimension::Temperature => &mut self.temperature,
+            Dimension::Roughness => &mut self.roughness,
+        }
+    }
+
     /// Resolves the choices against the system's defaults.
     ///
     /// # Errors

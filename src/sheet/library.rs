@@ -22,7 +22,7 @@ pub const ASIDE_PREFIX: &str = "headroom.v1.aside.";
 pub const CURRENT_KEY: &str = "headroom.v1.current";
 
 /// Why the store refused.
-#[derive(Debug, Clone, PartialEq, Eq)]
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum StoreError {
     /// Out of space.
     Full,
@@ -99,8 +99,10 @@ pub struct Library<K: Kv> {
     kv: K,
 }
 
-fn display_name(sheet: &SheetFile) -> String {
-    let n = sheet.project.trim();
+/// How a worksheet is named in lists and messages: its project name, or
+/// "Untitled worksheet".
+pub fn display_name(project: &str) -> String {
+    let n = project.trim();
     if n.is_empty() { "Untitled worksheet".to_owned() } else { n.to_owned() }
 }
 
@@ -133,7 +135,7 @@ impl<K: Kv> Library<K> {
                             .kv
                             .get(&format!("{SHEET_PREFIX}{id}"))
                             .and_then(|t| SheetFile::from_json(&t).ok())
-                            .map(|s| display_name(&s))
+                            .map(|s| display_name(&s.project))
                             .unwrap_or_else(|| "Unreadable worksheet".to_owned());
                         Entry { id, name, updated: String::new() }
                     })
@@ -181,22 +183,24 @@ impl<K: Kv> Library<K> {
         }
     }
 
-    /// Saves a worksheet under an id, adding it to the index if new.
+    /// Saves a worksheet under an id, adding it to the index if new, and
+    /// returns the list as it now stands.
     ///
     /// # Errors
     /// [`Problem::NotSaved`] when the store refuses.
-    pub fn save(&self, id: &str, sheet: &SheetFile, updated: &str) -> Result<(), Problem> {
+    pub fn save(&self, id: &str, sheet: &SheetFile, updated: &str) -> Result<Vec<Entry>, Problem> {
         self.kv
             .set(&format!("{SHEET_PREFIX}{id}"), &serde_json::to_string(sheet).unwrap_or_default())
             .map_err(Problem::NotSaved)?;
         let (mut list, _) = self.entries();
-        let entry = Entry { id: id.to_owned(), name: display_name(sheet), updated: updated.to_owned() };
+        let entry = Entry { id: id.to_owned(), name: display_name(&sheet.project), updated: updated.to_owned() };
         match list.iter_mut().find(|e| e.id == id) {
-            Some(e) if *e == entry => return Ok(()),
+            Some(e) if *e == entry => return Ok(list),
             Some(e) => *e = entry,
             None => list.push(entry),
         }
-        self.write_index(&list).map_err(Problem::NotSaved)
+        self.write_index(&list).map_err(Problem::NotSaved)?;
+        Ok(list)
     }
 
     /// Removes a worksheet, returning its stored text for an undo.
@@ -241,16 +245,7 @@ impl<K: Kv> Library<K> {
 pub struct MemoryKv {
     map: std::cell::RefCell<std::collections::BTreeMap<String, String>>,
     /// When set, every write fails with this.
-    pub refuse: std::cell::Cell<Option<StoreErrorKind>>,
-}
-
-/// A copyable stand-in for [`StoreError`] to configure [`MemoryKv`].
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
-pub enum StoreErrorKind {
-    /// Like a full store.
-    Full,
-    /// Like a disabled store.
-    Unavailable,
+    pub refuse: std::cell::Cell<Option<StoreError>>,
 }
 
 impl Kv for MemoryKv {
@@ -259,8 +254,7 @@ impl Kv for MemoryKv {
     }
     fn set(&self, key: &str, value: &str) -> Result<(), StoreError> {
         match self.refuse.get() {
-            Some(StoreErrorKind::Full) => Err(StoreError::Full),
-            Some(StoreErrorKind::Unavailable) => Err(StoreError::Unavailable),
+            Some(e) => Err(e),
             None => {
                 self.map.borrow_mut().insert(key.to_owned(), value.to_owned());
                 Ok(())
@@ -330,7 +324,7 @@ mod tests {
     #[test]
     fn refused_writes_are_reported() {
         let lib = Library::new(MemoryKv::default());
-        lib.kv().refuse.set(Some(StoreErrorKind::Full));
+        lib.kv().refuse.set(Some(StoreError::Full));
         assert_eq!(lib.save("a", &sheet("x"), "t"), Err(Problem::NotSaved(StoreError::Full)));
         assert!(Problem::NotSaved(StoreError::Full).to_string().contains("storage for Headroom is full"));
     }

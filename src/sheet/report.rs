@@ -4,7 +4,7 @@
 use serde::Serialize;
 
 use super::file::{FieldError, LineFile, SheetFile, Units};
-use super::units::{format_number, from_si, Unit};
+use super::units::{format_number, from_si, show, Unit};
 use crate::hydraulics::friction::Regime;
 use crate::hydraulics::line::Line;
 use crate::hydraulics::sizing::{self, Candidate, Capacity, Sizing};
@@ -80,7 +80,8 @@ fn headroom_pct(c: &Candidate) -> String {
         .unwrap_or_default()
 }
 
-fn regime_name(r: Regime) -> &'static str {
+/// The regime as words, with the transition zone marked uncertain.
+pub fn regime_name(r: Regime) -> &'static str {
     match r {
         Regime::Laminar => "laminar",
         Regime::Transition => "transition (uncertain)",
@@ -90,17 +91,14 @@ fn regime_name(r: Regime) -> &'static str {
 
 /// The row of figures for one result, in the sheet's units.
 fn figures(o: &Outcome, c: &Candidate, u: &Units) -> [String; 9] {
-    let rho = o.sizing.properties.density_kg_m3();
+    let rho = Some(o.sizing.properties.density_kg_m3());
     let p = &c.point;
-    let mm = super::units::find(super::units::Dimension::Length, "mm").expect("mm");
-    let inch = super::units::find(super::units::Dimension::Length, "in").expect("in");
-    let bore_unit = if u.length.symbol == "ft" { inch } else { mm };
     [
         c.nominal.to_owned(),
-        format!("{} {}", conv(p.bore.value, bore_unit, rho, 4), bore_unit.symbol),
-        format!("{} {}", conv(p.velocity.value, u.velocity, rho, 3), u.velocity.symbol),
-        format!("{} {}", conv(p.drop_per_length.value, u.drop_per_length, rho, 3), u.drop_per_length.symbol),
-        format!("{} {}", conv(p.total_drop.value, u.pressure, rho, 3), u.pressure.symbol),
+        show(p.bore.value, u.bore(), rho, 4),
+        show(p.velocity.value, u.velocity, rho, 3),
+        show(p.drop_per_length.value, u.drop_per_length, rho, 3),
+        show(p.total_drop.value, u.pressure, rho, 3),
         format_number(p.reynolds, 3),
         format_number(p.friction_factor, 4),
         c.binding.map(|b| b.name()).unwrap_or("").to_owned(),

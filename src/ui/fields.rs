@@ -92,19 +92,7 @@ pub fn UnitPicker(
     id: &'static str,
 ) -> impl IntoView {
     let sheet = expect_context::<Sheet>();
-    let current = move || {
-        let u = sheet.resolved.get();
-        match dim {
-            Dimension::Flow => u.flow,
-            Dimension::Pressure => u.pressure,
-            Dimension::DropPerLength => u.drop_per_length,
-            Dimension::Length => u.length,
-            Dimension::Velocity => u.velocity,
-            Dimension::Temperature => u.temperature,
-            Dimension::Roughness => u.roughness,
-        }
-        .symbol
-    };
+    let current = move || sheet.resolved.get().of(dim).symbol;
     view! {
         <select
             class="unit"

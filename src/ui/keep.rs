@@ -7,7 +7,7 @@ use wasm_bindgen::JsCast;
 
 use super::state::Sheet;
 use crate::sheet::file::{SheetFile, FORMAT, VERSION};
-use crate::sheet::library::{Entry, Kv, Library, Problem, StoreError};
+use crate::sheet::library::{display_name, Entry, Kv, Library, Problem, StoreError};
 use crate::sheet::link;
 
 /// Local storage as a [`Kv`]; every call copes with storage being absent.
@@ -180,10 +180,9 @@ impl Keeper {
             return;
         }
         match self.library.with_value(|l| l.save(&id, &sheet.to_file(), &now())) {
-            Ok(()) => {
+            Ok(list) => {
                 self.failing.set(false);
-                self.library.with_value(|l| l.set_current(&id));
-                self.entries.set(self.library.with_value(|l| l.entries()).0);
+                self.entries.set(list);
             }
             Err(p) => {
                 if !self.failing.get_untracked() {
@@ -227,7 +226,7 @@ impl Keeper {
     /// Copies a stored worksheet and opens the copy.
     pub fn duplicate(&self, id: &str, sheet: Sheet, notices: Notices) {
         if let Ok(Some(mut file)) = self.library.with_value(|l| l.load(id)) {
-            file.project = format!("{} (copy)", if file.project.is_empty() { "Untitled worksheet" } else { &file.project });
+            file.project = format!("{} (copy)", display_name(&file.project));
             self.create(file, sheet);
         } else {
             notices.say("That worksheet could not be copied.");
@@ -292,7 +291,7 @@ impl Keeper {
         }
         match link::decode(fragment) {
             Ok(file) => {
-                let name = if file.project.is_empty() { "Untitled worksheet".to_owned() } else { file.project.clone() };
+                let name = display_name(&file.project);
                 self.create(file, sheet);
                 notices.say(format!("Opened the shared worksheet “{name}” as a new worksheet. Your other worksheets are unchanged."));
                 true

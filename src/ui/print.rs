@@ -8,6 +8,7 @@ use super::state::{Sheet, Slot};
 use crate::hydraulics::line::{Method, Pipe};
 use crate::hydraulics::losses::Fitting;
 use crate::sheet::file::{FluidFile, LineFile, PipeFile};
+use crate::sheet::library::display_name;
 use crate::sheet::report::CAUTION;
 use crate::sheet::units::{self, format_number};
 
@@ -123,7 +124,7 @@ pub fn PrintSheet() -> impl IntoView {
     view! {
         <article class="print-sheet" data-testid="print-sheet" aria-hidden="true">
             <header>
-                <h1>{move || { let p = sheet.project.get(); if p.is_empty() { "Untitled worksheet".to_owned() } else { p } }}</h1>
+                <h1>{move || sheet.project.with(|p| display_name(p))}</h1>
                 <p>{move || format!("Pipe sizing review sheet · {} · Headroom {}", sheet.date.get(), env!("CARGO_PKG_VERSION"))}</p>
                 <p class="print-caution"><strong>"Caution: "</strong>{CAUTION}</p>
             </header>

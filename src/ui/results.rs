@@ -4,32 +4,18 @@
 use leptos::prelude::*;
 
 use super::state::{Sheet, Slot};
-use crate::hydraulics::friction::Regime;
 use crate::hydraulics::line::Limit;
 use crate::hydraulics::sizing::{self, Candidate};
 use crate::sheet::chart;
 use crate::sheet::file::Units;
-use crate::sheet::report::Outcome;
-use crate::sheet::units::{self, format_number, Dimension};
-
-fn bore_unit(u: &Units) -> &'static units::Unit {
-    let name = if u.length.symbol == "ft" { "in" } else { "mm" };
-    units::find(Dimension::Length, name).expect("bore unit")
-}
+use crate::sheet::report::{regime_name, Outcome};
+use crate::sheet::units::{self, format_number};
 
 fn limit_value(limit: Limit, si: f64, u: &Units, rho: f64) -> String {
     match limit {
         Limit::DropPerLength => units::show(si, u.drop_per_length, Some(rho), 3),
         Limit::TotalDrop => units::show(si, u.pressure, Some(rho), 3),
         Limit::MaxVelocity | Limit::MinVelocity => units::show(si, u.velocity, Some(rho), 3),
-    }
-}
-
-fn regime_label(r: Regime) -> &'static str {
-    match r {
-        Regime::Laminar => "laminar",
-        Regime::Transition => "transition ⚠",
-        Regime::Turbulent => "turbulent",
     }
 }
 
@@ -91,7 +77,7 @@ fn Answer(o: Outcome, u: Units) -> impl IntoView {
                         <div><dt>"Velocity"</dt><dd data-testid="answer-velocity">{units::show(p.velocity.value, u.velocity, Some(rho), 3)}</dd></div>
                         <div><dt>"Drop per length"</dt><dd data-testid="answer-drop-per-length">{units::show(p.drop_per_length.value, u.drop_per_length, Some(rho), 3)}</dd></div>
                         <div><dt>"Total drop"</dt><dd data-testid="answer-total-drop">{units::show(p.total_drop.value, u.pressure, Some(rho), 3)}</dd></div>
-                        <div><dt>"Inside diameter"</dt><dd>{units::show(p.bore.value, bore_unit(&u), None, 4)}</dd></div>
+                        <div><dt>"Inside diameter"</dt><dd>{units::show(p.bore.value, u.bore(), None, 4)}</dd></div>
                     </dl>
                     <p class="headroom-title">"Headroom to each limit"</p>
                     <ul class="headroom">{rows}</ul>
@@ -120,11 +106,11 @@ fn SizeTable(o: Outcome, u: Units, file: RwSignal<crate::sheet::file::LineFile>)
         view! {
             <tr class:shown=is_shown class:fails=!c.passes() data-testid="size-row">
                 <th scope="row">{nominal}</th>
-                <td>{units::show(p.bore.value, bore_unit(&u), None, 4)}</td>
+                <td>{units::show(p.bore.value, u.bore(), None, 4)}</td>
                 <td>{units::show(p.velocity.value, u.velocity, Some(rho), 3)}</td>
                 <td>{format_number(p.reynolds, 3)}</td>
                 <td>{format_number(p.friction_factor, 3)}</td>
-                <td>{regime_label(p.regime)}</td>
+                <td>{regime_name(p.regime)}</td>
                 <td>{units::show(p.drop_per_length.value, u.drop_per_length, Some(rho), 3)}</td>
                 <td>{units::show(p.total_drop.value, u.pressure, Some(rho), 3)}</td>
                 <td>{cap}</td>

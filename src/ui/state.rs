@@ -184,16 +184,7 @@ impl Sheet {
     /// Changes one field's unit, rewriting bare numbers so their meaning stays.
     pub fn set_unit(&self, dim: Dimension, symbol: &str) {
         let mut choice = self.units.get_untracked();
-        let slot = match dim {
-            Dimension::Flow => &mut choice.flow,
-            Dimension::Pressure => &mut choice.pressure,
-            Dimension::DropPerLength => &mut choice.drop_per_length,
-            Dimension::Length => &mut choice.length,
-            Dimension::Velocity => &mut choice.velocity,
-            Dimension::Temperature => &mut choice.temperature,
-            Dimension::Roughness => &mut choice.roughness,
-        };
-        *slot = Some(symbol.to_owned());
+        *choice.slot_mut(dim) = Some(symbol.to_owned());
         self.change_units(choice);
     }
 
