@@ -80,3 +80,30 @@ fn broken_and_foreign_files_are_refused_clearly() {
     let (code, _, _) = batch(&[]);
     assert_eq!(code, 2);
 }
+
+#[test]
+fn a_reader_that_stops_early_ends_the_output_quietly() {
+    // Regression: `headroom-batch big.json | head` panicked on the closed pipe.
+    // 1,500 lines print well over the 64 KiB a pipe buffers, so the write
+    // meets the closed pipe whatever the timing.
+    let demo = std::fs::read_to_string(Path::new(env!("CARGO_MANIFEST_DIR")).join("examples/clinic-chilled-water.json")).unwrap();
+    let mut sheet: serde_json::Value = serde_json::from_str(&demo).unwrap();
+    let line = sheet["lines"][0].clone();
+    sheet["lines"] = serde_json::Value::Array(vec![line; 1500]);
+    let path = temp_file("many-lines.json", &sheet.to_string());
+    let mut child = Command::new(env!("CARGO_BIN_EXE_headroom-batch"))
+        .arg(&path)
+        .stdout(std::process::Stdio::piped())
+        .stderr(std::process::Stdio::piped())
+        .spawn()
+        .expect("run headroom-batch");
+    // Read one chunk, as `head` does, then close the pipe.
+    let mut first = [0u8; 512];
+    let mut out = child.stdout.take().unwrap();
+    std::io::Read::read(&mut out, &mut first).unwrap();
+    drop(out);
+    let done = child.wait_with_output().unwrap();
+    let stderr = String::from_utf8_lossy(&done.stderr);
+    assert!(!stderr.contains("panicked"), "{stderr}");
+    assert_eq!(done.status.code(), Some(0), "{stderr}");
+}

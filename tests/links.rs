@@ -50,7 +50,7 @@ proptest! {
         let link = format!("h1.{}", base64::engine::general_purpose::URL_SAFE_NO_PAD.encode(packed));
         match decode(&link) {
             Ok(_) => {}
-            Err(LinkError::BadData | LinkError::Sheet(_)) => {}
+            Err(LinkError::BadData | LinkError::TooBig | LinkError::Sheet(_)) => {}
             Err(e) => prop_assert!(false, "unexpected {e:?}"),
         }
     }

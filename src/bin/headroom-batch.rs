@@ -5,7 +5,10 @@
 //! ```
 //! Exit codes: 0 every line evaluated; 1 the file or a line has bad values
 //! (the other lines are still printed); 2 usage or unreadable file.
+//! A reader that stops early (`| head`) ends the output quietly, as other
+//! command-line tools do.
 
+use std::io::Write;
 use std::process::ExitCode;
 
 use headroom::sheet::file::SheetFile;
@@ -68,7 +71,17 @@ fn main() -> ExitCode {
         "json" => report::json(&sheet, &reports),
         _ => report::table(&sheet, &reports),
     };
-    print!("{out}");
+    // Rust ignores SIGPIPE, so a closed pipe is an error from write, which
+    // `print!` would turn into a panic. A reader that has gone is no fault.
+    let mut stdout = std::io::stdout().lock();
+    match stdout.write_all(out.as_bytes()).and_then(|()| stdout.flush()) {
+        Ok(()) => {}
+        Err(e) if e.kind() == std::io::ErrorKind::BrokenPipe => {}
+        Err(e) => {
+            eprintln!("headroom-batch: cannot write the results: {e}");
+            return ExitCode::from(2);
+        }
+    }
     let mut bad = false;
     for r in &reports {
         if let Err(errs) = &r.outcome {

@@ -19,7 +19,7 @@ use uom::si::thermodynamic_temperature::kelvin;
 use uom::si::velocity::meter_per_second;
 use uom::si::volume_rate::cubic_meter_per_second;
 
-use super::number::parse_decimal;
+use super::number::{parse_count, parse_decimal};
 use super::units::{self, Dimension, Unit};
 use crate::hydraulics::fluid::{Fluid, Glycol, Properties};
 use crate::hydraulics::line::{pa_per_m, Limits, Line, Method, Pipe};
@@ -319,8 +319,58 @@ pub enum PipeFile {
 pub struct FittingCount {
     /// Fitting id, e.g. "elbow90-welded".
     pub fitting: String,
-    /// How many.
-    pub count: u32,
+    /// How many, as typed. Written as a JSON number when it is a valid
+    /// count and as a string otherwise, so a slip ("2.5") is kept and
+    /// reported beside the count, never turned into 0.
+    #[serde(with = "count_text")]
+    pub count: String,
+}
+
+impl FittingCount {
+    /// A row of `n` fittings of one kind.
+    pub fn new(fitting: &str, n: u32) -> FittingCount {
+        FittingCount { fitting: fitting.to_owned(), count: n.to_string() }
+    }
+}
+
+/// A count kept as text: a JSON number or string in, a number out when it
+/// reads as a count.
+mod count_text {
+    use serde::{de, Deserializer, Serializer};
+
+    use crate::sheet::number::parse_count;
+
+    pub fn serialize<S: Serializer>(text: &String, s: S) -> Result<S::Ok, S::Error> {
+        match parse_count(text) {
+            Ok(n) => s.serialize_u32(n),
+            Err(_) => s.serialize_str(text),
+        }
+    }
+
+    struct Text;
+
+    impl de::Visitor<'_> for Text {
+        type Value = String;
+        fn expecting(&self, f: &mut std::fmt::Formatter) -> std::fmt::Result {
+            f.write_str("a count (a number or its text)")
+        }
+        fn visit_u64<E>(self, v: u64) -> Result<String, E> {
+            Ok(v.to_string())
+        }
+        fn visit_i64<E>(self, v: i64) -> Result<String, E> {
+            Ok(v.to_string())
+        }
+        fn visit_f64<E>(self, v: f64) -> Result<String, E> {
+            Ok(v.to_string())
+        }
+        fn visit_str<E>(self, v: &str) -> Result<String, E> {
+            Ok(v.to_owned())
+        }
+    }
+
+    pub fn deserialize<'de, D: Deserializer<'de>>(d: D) -> Result<String, D::Error> {
+        d.deserialize_any(Text)
+    }
 }
 
 /// Friction method name.
@@ -378,6 +428,57 @@ pub enum SheetError {
     Version(u32),
     /// A bad unit choice at sheet level.
     Units(FieldError),
+    /// Past one of the reader's limits.
+    Limit(Limit),
+}
+
+/// Most lines a sheet may have. Far above a real worksheet (tens to a few
+/// hundred lines); a sheet of this size takes about a second to size on a
+/// tablet, so a hostile link cannot freeze the page for minutes.
+pub const MAX_LINES: usize = 2000;
+/// Most fitting rows on one line (each row is a kind and a count).
+pub const MAX_FITTING_ROWS: usize = 40;
+/// Longest text in any one field, characters.
+pub const MAX_TEXT_CHARS: usize = 200;
+
+/// Which reader limit a sheet passed.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub enum Limit {
+    /// Too many lines (how many it has).
+    Lines(usize),
+    /// Too many fitting rows on a line.
+    FittingRows {
+        /// The line, from 1.
+        line: usize,
+        /// How many rows it has.
+        rows: usize,
+    },
+    /// A field's text is too long.
+    Text {
+        /// The line, from 1, or `None` at sheet level.
+        line: Option<usize>,
+        /// The field.
+        field: String,
+        /// How long it is, characters.
+        chars: usize,
+    },
+}
+
+impl std::fmt::Display for Limit {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        match self {
+            Limit::Lines(n) => write!(f, "it has {n} lines; a worksheet may have at most {MAX_LINES}"),
+            Limit::FittingRows { line, rows } => {
+                write!(f, "line {line} has {rows} fitting rows; a line may have at most {MAX_FITTING_ROWS}")
+            }
+            Limit::Text { line: Some(line), field, chars } => {
+                write!(f, "line {line}'s {field} is {chars} characters long; a field may hold at most {MAX_TEXT_CHARS}")
+            }
+            Limit::Text { line: None, field, chars } => {
+                write!(f, "the {field} is {chars} characters long; a field may hold at most {MAX_TEXT_CHARS}")
+            }
+        }
+    }
 }
 
 impl std::fmt::Display for SheetError {
@@ -390,6 +491,7 @@ impl std::fmt::Display for SheetError {
                 "sheet format version {v} is newer than this Headroom reads (up to {VERSION}); update Headroom"
             ),
             SheetError::Units(e) => write!(f, "{e}"),
+            SheetError::Limit(l) => write!(f, "too large to open safely: {l}"),
         }
     }
 }
@@ -428,7 +530,44 @@ impl SheetFile {
         }
         let sheet: SheetFile = serde_json::from_str(text).map_err(|e| SheetError::Syntax(e.to_string()))?;
         sheet.units.resolve().map_err(SheetError::Units)?;
+        sheet.check_limits()?;
         Ok(sheet)
+    }
+
+    /// Refuses a sheet past the reader's limits ([`MAX_LINES`],
+    /// [`MAX_FITTING_ROWS`], [`MAX_TEXT_CHARS`]): a few kilobytes of link
+    /// can inflate to a sheet that would take minutes to size.
+    ///
+    /// # Errors
+    /// [`SheetError::Limit`] naming the first limit passed.
+    pub fn check_limits(&self) -> Result<(), SheetError> {
+        if self.lines.len() > MAX_LINES {
+            return Err(SheetError::Limit(Limit::Lines(self.lines.len())));
+        }
+        let long = |field: &str, text: &str, line: Option<usize>| {
+            let n = text.chars().count();
+            (n > MAX_TEXT_CHARS).then(|| SheetError::Limit(Limit::Text { line, field: field.to_owned(), chars: n }))
+        };
+        for (field, text) in [("project", &self.project), ("date", &self.date)] {
+            if let Some(e) = long(field, text, None) {
+                return Err(e);
+            }
+        }
+        for (i, l) in self.lines.iter().enumerate() {
+            if l.fittings.len() > MAX_FITTING_ROWS {
+                return Err(SheetError::Limit(Limit::FittingRows { line: i + 1, rows: l.fittings.len() }));
+            }
+            let mut err = None;
+            l.each_text(&mut |field, text| {
+                if err.is_none() {
+                    err = long(field, text, Some(i + 1));
+                }
+            });
+            if let Some(e) = err {
+                return Err(e);
+            }
+        }
+        Ok(())
     }
 
     /// Writes the sheet as pretty JSON.
@@ -496,6 +635,54 @@ pub fn material_from_id(id: &str) -> Option<pipes::Material> {
 }
 
 impl LineFile {
+    /// Calls `visit` with the name and text of every text field of the line.
+    pub fn each_text(&self, visit: &mut dyn FnMut(&str, &str)) {
+        visit("name", &self.name);
+        visit("flow", &self.flow);
+        match &self.fluid {
+            FluidFile::Water { temperature, pressure } => {
+                visit("fluid.temperature", temperature);
+                visit("fluid.pressure", pressure.as_deref().unwrap_or_default());
+            }
+            FluidFile::Glycol { percent, temperature, .. } => {
+                visit("fluid.percent", percent);
+                visit("fluid.temperature", temperature);
+            }
+            FluidFile::Custom { density_kg_m3, viscosity_mpa_s, kinematic_viscosity_mm2_s } => {
+                visit("fluid.density_kg_m3", density_kg_m3);
+                visit("fluid.viscosity_mpa_s", viscosity_mpa_s.as_deref().unwrap_or_default());
+                visit("fluid.kinematic_viscosity_mm2_s", kinematic_viscosity_mm2_s.as_deref().unwrap_or_default());
+            }
+        }
+        match &self.pipe {
+            PipeFile::Series(id) => visit("pipe.series", id),
+            PipeFile::Bore { diameter, material } => {
+                visit("pipe.diameter", diameter);
+                visit("pipe.material", material);
+            }
+        }
+        visit("length", &self.length);
+        for fc in &self.fittings {
+            visit("fittings.fitting", &fc.fitting);
+            visit("fittings.count", &fc.count);
+        }
+        let optional = [
+            ("roughness", &self.roughness),
+            ("extra_k", &self.extra_k),
+            ("equivalent_length", &self.equivalent_length),
+            ("rise", &self.rise),
+            ("hazen_williams_c", &self.hazen_williams_c),
+            ("check_size", &self.check_size),
+            ("limits.max_drop_per_length", &self.limits.max_drop_per_length),
+            ("limits.max_total_drop", &self.limits.max_total_drop),
+            ("limits.max_velocity", &self.limits.max_velocity),
+            ("limits.min_velocity", &self.limits.min_velocity),
+        ];
+        for (field, text) in optional {
+            visit(field, text.as_deref().unwrap_or_default());
+        }
+    }
+
     /// Turns the stored text into the core's [`Line`], reporting every bad
     /// field, not just the first.
     ///
@@ -608,10 +795,18 @@ impl LineFile {
             measure(e, "length", &self.length, Dimension::Length, units.length, None)
         };
         let mut counts = Vec::new();
-        for fc in &self.fittings {
-            match Fitting::from_id(&fc.fitting) {
-                Some(f) => counts.push((f, fc.count)),
-                None => e.push(FieldError { field: "fittings", message: format!("'{}' is not a fitting Headroom knows", fc.fitting) }),
+        for (row, fc) in self.fittings.iter().enumerate() {
+            let n = match parse_count(&fc.count) {
+                Ok(n) => Some(n),
+                Err(err) => {
+                    e.push(FieldError { field: "fittings.count", message: format!("row {}: {err}", row + 1) });
+                    None
+                }
+            };
+            match (Fitting::from_id(&fc.fitting), n) {
+                (Some(f), Some(n)) => counts.push((f, n)),
+                (Some(_), None) => {}
+                (None, _) => e.push(FieldError { field: "fittings", message: format!("'{}' is not a fitting Headroom knows", fc.fitting) }),
             }
         }
         let extra_k = match self.extra_k.as_deref().map(str::trim) {

@@ -34,8 +34,10 @@ pub enum LinkError {
     TooLong(usize),
     /// Not valid base64url: truncated or altered in transit.
     Damaged,
-    /// Inflates to more than [`MAX_INFLATED_BYTES`], or is not valid deflate.
+    /// Not valid deflate, or not UTF-8 inside.
     BadData,
+    /// Inflates to more than [`MAX_INFLATED_BYTES`].
+    TooBig,
     /// The sheet inside is not readable.
     Sheet(SheetError),
 }
@@ -47,7 +49,8 @@ impl std::fmt::Display for LinkError {
             LinkError::NewerVersion(v) => write!(f, "this link was made by a newer Headroom (format {v}); update Headroom to open it"),
             LinkError::TooLong(n) => write!(f, "this link is {n} characters long, more than the {MAX_LINK_CHARS} a worksheet link may be"),
             LinkError::Damaged => write!(f, "this link is damaged or cut short: ask for it to be sent again"),
-            LinkError::BadData => write!(f, "this link's worksheet is damaged or too large to open"),
+            LinkError::BadData => write!(f, "this link's worksheet is damaged"),
+            LinkError::TooBig => write!(f, "this link's worksheet unpacks to more than {} MiB, too large to open safely", MAX_INFLATED_BYTES >> 20),
             LinkError::Sheet(e) => write!(f, "the worksheet in this link cannot be read: {e}"),
         }
     }
@@ -86,8 +89,9 @@ pub fn decode(fragment: &str) -> Result<SheetFile, LinkError> {
         return Err(LinkError::NotALink);
     };
     let packed = URL_SAFE_NO_PAD.decode(body.as_bytes()).map_err(|_| LinkError::Damaged)?;
-    let json = miniz_oxide::inflate::decompress_to_vec_with_limit(&packed, MAX_INFLATED_BYTES)
-        .map_err(|_| LinkError::BadData)?;
+    let json = miniz_oxide::inflate::decompress_to_vec_with_limit(&packed, MAX_INFLATED_BYTES).map_err(|e| {
+        if e.status == miniz_oxide::inflate::TINFLStatus::HasMoreOutput { LinkError::TooBig } else { LinkError::BadData }
+    })?;
     let text = String::from_utf8(json).map_err(|_| LinkError::BadData)?;
     SheetFile::from_json(&text).map_err(LinkError::Sheet)
 }
@@ -129,6 +133,6 @@ mod tests {
         let bomb = miniz_oxide::deflate::compress_to_vec(&vec![b' '; 4 << 20], 9);
         let link = format!("h1.{}", URL_SAFE_NO_PAD.encode(bomb));
         assert!(link.len() < MAX_LINK_CHARS);
-        assert_eq!(decode(&link), Err(LinkError::BadData));
+        assert_eq!(decode(&link), Err(LinkError::TooBig));
     }
 }

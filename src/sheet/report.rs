@@ -173,9 +173,10 @@ pub fn table(sheet: &SheetFile, reports: &[LineReport]) -> String {
 
 fn csv_field(s: &str) -> String {
     // Quote everything that could split a field, and defuse leading
-    // characters that spreadsheets would run as a formula.
-    let s = if s.starts_with(['=', '+', '-', '@']) && s.parse::<f64>().is_err() { format!("'{s}") } else { s.to_owned() };
-    if s.contains([',', '"', '\n', '\r']) {
+    // characters that spreadsheets would run as a formula (OWASP, "CSV
+    // Injection": =, +, -, @, tab and carriage return).
+    let s = if s.starts_with(['=', '+', '-', '@', '\t', '\r']) && s.parse::<f64>().is_err() { format!("'{s}") } else { s.to_owned() };
+    if s.contains([',', '"', '\n', '\r', '\t']) {
         format!("\"{}\"", s.replace('"', "\"\""))
     } else {
         s

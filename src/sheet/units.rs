@@ -174,6 +174,14 @@ pub enum UnitError {
     },
     /// A head or mass flow needs a density that is not known.
     NeedsDensity(&'static str),
+    /// The value is a number, but in SI units it overflows to infinity or
+    /// underflows to zero in double precision.
+    OutOfReach {
+        /// The number typed.
+        value: f64,
+        /// Its unit.
+        unit: &'static str,
+    },
 }
 
 impl fmt::Display for UnitError {
@@ -189,6 +197,9 @@ impl fmt::Display for UnitError {
                 write!(f, "'{unit}' is not a unit of {}; use one of {}", dimension.name(), list.join(", "))
             }
             UnitError::NeedsDensity(u) => write!(f, "{u} needs the fluid's density, which is not known yet"),
+            UnitError::OutOfReach { value, unit } => {
+                write!(f, "'{value:e} {unit}' is too far from any real value to compute with")
+            }
         }
     }
 }
@@ -209,16 +220,23 @@ impl Measure {
     /// needed for heads and mass flows.
     ///
     /// # Errors
-    /// [`UnitError::NeedsDensity`] when it is needed and `None` or not positive.
+    /// [`UnitError::NeedsDensity`] when it is needed and `None` or not
+    /// positive; [`UnitError::OutOfReach`] when the SI value would be
+    /// infinite, or zero from a non-zero number ("1e308 kPa").
     pub fn to_si(&self, density: Option<f64>) -> Result<f64, UnitError> {
         let rho = || density.filter(|d| d.is_finite() && *d > 0.0).ok_or(UnitError::NeedsDensity(self.unit.symbol));
-        Ok(match self.unit.scale {
+        let si = match self.unit.scale {
             Scale::Linear(k) => self.value * k,
             Scale::Affine(offset, k) => (self.value + offset) * k,
             Scale::Mass(k) => self.value * k / rho()?,
             Scale::Head(k) => self.value * k * rho()? * G_N,
             Scale::HeadPerLength(k) => self.value * k * rho()? * G_N,
-        })
+        };
+        let underflow = si == 0.0 && self.value != 0.0 && !matches!(self.unit.scale, Scale::Affine(..));
+        if !si.is_finite() || underflow {
+            return Err(UnitError::OutOfReach { value: self.value, unit: self.unit.symbol });
+        }
+        Ok(si)
     }
 
     /// Whether converting needs a density.
@@ -370,6 +388,12 @@ mod tests {
     fn heads_need_and_use_density() {
         let m = parse(Dimension::Pressure, "10 m", of(Dimension::Pressure).next().unwrap()).unwrap();
         assert!(matches!(m.to_si(None), Err(UnitError::NeedsDensity(_))));
+        // 1e308 kPa is 1e311 Pa: past the largest double (~1.8e308).
+        let kpa = find(Dimension::Pressure, "kPa").unwrap();
+        let e = parse(Dimension::Pressure, "1e308 kPa", kpa).unwrap().to_si(None).unwrap_err();
+        assert_eq!(e.to_string(), "'1e308 kPa' is too far from any real value to compute with");
+        let mm = find(Dimension::Length, "mm").unwrap();
+        assert!(parse(Dimension::Length, "1e-400", mm).is_err(), "underflow is refused while parsing");
         assert!(close(m.to_si(Some(1000.0)).unwrap(), 98_066.5));
         // 4 ft per 100 ft of water at 1000 kg/m³ = 0.04 · 9806.65 Pa/m.
         assert!(close(si(Dimension::DropPerLength, "4 ft/100 ft", Some(1000.0)), 392.266));

@@ -315,7 +315,7 @@ fn FittingList(
                 }
             }/>
             <button type="button" class="quiet" data-testid="add-fitting"
-                on:click=move |_| file.update(|f| f.fittings.push(FittingCount { fitting: Fitting::Elbow90Welded.id().into(), count: 1 }))>
+                on:click=move |_| file.update(|f| f.fittings.push(FittingCount::new(Fitting::Elbow90Welded.id(), 1)))>
                 "+ Add a fitting"
             </button>
         </div>
