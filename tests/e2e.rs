@@ -231,6 +231,10 @@ async fn a_shared_link_opens_beside_local_work_and_prints() {
     // Opened fresh, as from a message: leave the page, then follow the link.
     h.client.goto("about:blank").await.unwrap();
     h.client.goto(&h.url(&format!("/#{fragment}"))).await.unwrap();
+    // Asked first, showing the hostile name as text.
+    let question = h.text("link-question").await;
+    assert!(question.contains(&shared.lines[0].name), "{question}");
+    h.click("open-link").await;
     h.wait_for("notice").await;
     let names = h.client.find_all(fantoccini::Locator::Css("[data-testid=row-name]")).await.unwrap();
     assert_eq!(names.len(), shared.lines.len());
@@ -413,5 +417,166 @@ async fn a_sheet_file_imports_as_a_new_worksheet() {
         assert!(std::time::Instant::now() < deadline, "{texts:?}");
         tokio::time::sleep(std::time::Duration::from_millis(100)).await;
     }
+    h.finish().await;
+}
+
+/// Polls until `script` (returning a string) returns `want`.
+async fn until(h: &Harness, script: &str, want: &str) {
+    let deadline = std::time::Instant::now() + std::time::Duration::from_secs(15);
+    loop {
+        let got = h.client.execute(script, vec![]).await.unwrap();
+        if got.as_str() == Some(want) {
+            return;
+        }
+        assert!(std::time::Instant::now() < deadline, "{script} gave {got}, expected {want}");
+        tokio::time::sleep(std::time::Duration::from_millis(100)).await;
+    }
+}
+
+/// The first line's name as stored for the worksheet open last.
+const STORED_NAME: &str = r#"const id = localStorage.getItem("headroom.v1.current");
+    const s = JSON.parse(localStorage.getItem("headroom.v1.sheet." + id) || "{}");
+    return (s.lines && s.lines[0]) ? s.lines[0].name : "";"#;
+
+#[tokio::test(flavor = "multi_thread")]
+#[ignore = "needs dist/ and chromedriver: scripts/test runs it"]
+async fn two_tabs_on_one_worksheet_never_overwrite_each_other() {
+    let mut h = Harness::start(1024, 768).await;
+    h.open("/", "add-line").await;
+    h.click("add-line").await;
+    h.type_into("line-name", "Typed in tab A").await;
+    until(&h, STORED_NAME, "Typed in tab A").await;
+    let tab_a = h.client.window().await.unwrap();
+    // Tab B: the same browser, the same storage, the same worksheet.
+    let tab_b = h.client.new_window(true).await.unwrap().handle;
+    h.client.switch_to_window(tab_b.clone()).await.unwrap();
+    h.client.goto(&h.url("/")).await.unwrap();
+    h.expect_text("row-name", "Typed in tab A").await;
+    h.type_into("line-name", "Then tab B").await;
+    until(&h, STORED_NAME, "Then tab B").await;
+    // Tab A had nothing unsaved: it follows, and says so.
+    h.client.switch_to_window(tab_a.clone()).await.unwrap();
+    h.expect_text("row-name", "Then tab B").await;
+    assert!(h.text("notices").await.contains("changed in another tab"));
+    h.type_into("line-name", "Then tab A again").await;
+    until(&h, STORED_NAME, "Then tab A again").await;
+    h.client.switch_to_window(tab_b.clone()).await.unwrap();
+    h.expect_text("row-name", "Then tab A again").await;
+    // Every edit landed in turn; nothing was lost and no tab stopped.
+    assert!(h.client.find_all(Locator::Css("[data-testid=halt]")).await.unwrap().is_empty());
+    let sheets = h
+        .client
+        .execute("return Object.keys(localStorage).filter(k => k.startsWith('headroom.v1.sheet.')).length", vec![])
+        .await
+        .unwrap();
+    assert_eq!(sheets.as_u64(), Some(1), "still one worksheet");
+    h.client.close_window().await.unwrap();
+    h.client.switch_to_window(tab_a).await.unwrap();
+    h.finish().await;
+}
+
+#[tokio::test(flavor = "multi_thread")]
+#[ignore = "needs dist/ and chromedriver: scripts/test runs it"]
+async fn a_hostile_link_of_six_thousand_lines_is_refused_and_the_page_stays_responsive() {
+    let line = r#"{"flow":"1","fluid":{"kind":"water","temperature":"7"},"pipe":{"series":"steel-sch40"},"length":"1","limits":{"max_velocity":"2"}}"#;
+    let mut sheet = headroom::sheet::file::SheetFile::from_json(&format!(r#"{{"format":"headroom-sheet","version":1,"project":"Six thousand","lines":[{line}]}}"#)).unwrap();
+    sheet.lines = vec![sheet.lines[0].clone(); 6000];
+    let fragment = headroom::sheet::link::encode(&sheet);
+    println!("hostile link: {} characters for 6000 lines", fragment.len());
+    let mut h = Harness::start(1024, 768).await;
+    h.open("/", "add-line").await;
+    let t0 = std::time::Instant::now();
+    h.client.goto(&h.url(&format!("/#{fragment}"))).await.unwrap();
+    h.wait_for("notice").await;
+    let notice = h.text("notices").await;
+    assert!(notice.contains("too large to open safely: it has 6000 lines; a worksheet may have at most 2000"), "{notice}");
+    // The page answers at once: a line sizes.
+    h.click("add-line").await;
+    h.type_into("flow", "3").await;
+    h.type_into("length", "10").await;
+    let proposed = h.text("proposed-size").await;
+    assert_ne!(proposed, "—");
+    println!("hostile link: refused and a line sized {:.0} ms after navigation", t0.elapsed().as_secs_f64() * 1e3);
+    // A restart with the link still in the address is no slower.
+    h.client.refresh().await.unwrap();
+    h.wait_for("notice").await;
+    h.wait_for("add-line").await;
+    // The largest sheet allowed is asked about, not opened behind the person's back.
+    sheet.lines.truncate(2000);
+    h.client.goto(&h.url(&format!("/#{}", headroom::sheet::link::encode(&sheet)))).await.unwrap();
+    let question = h.text("link-question").await;
+    assert!(question.contains("with 2000 lines"), "{question}");
+    h.click("decline-link").await;
+    h.wait_for("add-line").await;
+    h.finish().await;
+}
+
+#[tokio::test(flavor = "multi_thread")]
+#[ignore = "needs dist/ and chromedriver: scripts/test runs it"]
+async fn a_module_that_cannot_start_says_so_with_a_reload_button() {
+    if std::env::var_os("HEADROOM_BASE_URL").is_some() {
+        return; // needs to change the files it serves
+    }
+    let site = support::artifact_dir().join("site-broken");
+    let _ = std::fs::remove_dir_all(&site);
+    copy_dir(&support::dist_dir(), &site);
+    for e in std::fs::read_dir(&site).unwrap() {
+        let p = e.unwrap().path();
+        if p.extension().is_some_and(|x| x == "wasm") {
+            std::fs::write(&p, b"this is not a WebAssembly module").unwrap();
+        }
+    }
+    let mut h = Harness::start_serving(1024, 768, site).await;
+    h.open("/", "cannot-start").await;
+    let text = h.text("cannot-start").await;
+    assert!(text.contains("Headroom could not start") && text.contains("Reload"), "{text}");
+    h.expected_errors.push("Headroom could not start");
+    h.expected_errors.push("WebAssembly");
+    h.finish().await;
+}
+
+/// A line in US units on the open worksheet.
+async fn us_line(h: &Harness) {
+    h.click("add-line").await;
+    h.type_into("flow", "40").await;
+    h.type_into("length", "60").await;
+    h.click("units-us").await;
+    let deadline = std::time::Instant::now() + std::time::Duration::from_secs(10);
+    loop {
+        let v = h.text("answer-velocity").await;
+        if v.ends_with("ft/s") {
+            break;
+        }
+        assert!(std::time::Instant::now() < deadline, "{v}");
+        tokio::time::sleep(std::time::Duration::from_millis(50)).await;
+    }
+}
+
+#[tokio::test(flavor = "multi_thread")]
+#[ignore = "needs dist/ and chromedriver: scripts/test runs it"]
+async fn switching_worksheets_of_other_unit_systems_in_every_way_keeps_the_page_running() {
+    let mut h = Harness::start(1024, 768).await;
+    h.open("/", "add-line").await;
+    us_line(&h).await;
+    h.click("show-shelf").await;
+    h.click("new-sheet").await;
+    h.wait_for("empty").await;
+    us_line(&h).await;
+    h.click("open-demo").await;
+    h.expect_text("row-name", "CHW main, plant room to riser").await;
+    // A sheet file (SI) over a US sheet.
+    h.click("new-sheet").await;
+    us_line(&h).await;
+    h.click("show-files").await;
+    let path = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("examples/clinic-chilled-water.json");
+    h.wait_for("import-json").await.send_keys(&path.display().to_string()).await.unwrap();
+    h.expect_text("row-name", "CHW main, plant room to riser").await;
+    // Deleting the open sheet.
+    h.click("show-shelf").await;
+    let current = h.client.find(Locator::Css("[data-testid=shelf-row].current [data-testid=shelf-delete]")).await.unwrap();
+    current.click().await.unwrap();
+    h.wait_for("add-line").await;
+    assert!(h.client.find_all(Locator::Css("#fatal")).await.unwrap().is_empty(), "the page stopped");
+    h.screenshot("after-switching.png").await;
     h.finish().await;
 }

@@ -1,9 +1,43 @@
 // Starts Headroom. A file of its own (not an inline script) so the
 // Content-Security-Policy can forbid inline scripts. scripts/post-build
-// writes the hashed module names in place of the two markers.
+// writes the hashed module names and this build's id in place of the
+// markers.
 import init from "./__HEADROOM_JS__";
 
-init({ module_or_path: "./__HEADROOM_WASM__" });
+// This build: its time (UTC) then the module's name, so a later build
+// sorts after an earlier one. An open tab compares it with the build
+// other tabs start (see src/ui/keep.rs) and stops saving if it is older.
+window.headroomBuild = "__HEADROOM_BUILD__";
+
+// If the module cannot start (an old browser, a damaged download, no
+// WebAssembly), say so plainly instead of leaving a blank page.
+function cannotStart(error) {
+  console.error("Headroom could not start:", error);
+  if (document.getElementById("cannot-start")) return;
+  const box = document.createElement("div");
+  box.id = "cannot-start";
+  box.setAttribute("role", "alert");
+  box.setAttribute("data-testid", "cannot-start");
+  const title = document.createElement("h1");
+  title.textContent = "Headroom could not start";
+  const text = document.createElement("p");
+  text.textContent = "This browser could not load the worksheet program. Worksheets already saved on this device are not affected. Reload to try again; if it keeps happening, use an up-to-date browser.";
+  const detail = document.createElement("p");
+  detail.className = "detail";
+  detail.textContent = String(error && error.message ? error.message : error);
+  const button = document.createElement("button");
+  button.type = "button";
+  button.textContent = "Reload";
+  button.addEventListener("click", () => location.reload());
+  box.append(title, text, detail, button);
+  document.body.append(box);
+}
+
+try {
+  init({ module_or_path: "./__HEADROOM_WASM__" }).catch(cannotStart);
+} catch (e) {
+  cannotStart(e);
+}
 
 // Offline: a service worker keeps every file of this version. When a newer
 // version has been installed, offer to switch; the page keeps running on
@@ -41,4 +75,9 @@ if ("serviceWorker" in navigator) {
       });
     });
   }).catch((e) => console.warn("Headroom: offline use is not available here:", e.message));
+  // Every file is cached once a worker is active: tell the page.
+  navigator.serviceWorker.ready.then(() => {
+    window.headroomOffline = true;
+    window.dispatchEvent(new Event("headroom-offline-ready"));
+  });
 }

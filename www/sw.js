@@ -5,18 +5,28 @@
 // its old files until it reloads into the new version.
 const VERSION = "__HEADROOM_VERSION__";
 const FILES = __HEADROOM_PRECACHE__;
-const CACHE = "headroom-" + VERSION;
+// The scope is in the name: two copies of Headroom hosted under different
+// paths of one origin never share or delete each other's caches.
+const SCOPE = new URL(self.registration.scope).pathname;
+const PREFIX = "headroom:" + SCOPE + ":";
+const CACHE = PREFIX + VERSION;
 
 self.addEventListener("install", (event) => {
-  event.waitUntil(caches.open(CACHE).then((cache) => cache.addAll(FILES)));
+  // `cache: "reload"` skips the HTTP cache: a new cache can never be
+  // filled with an old boot.js that names files it does not hold.
+  const requests = FILES.map((f) => new Request(f, { cache: "reload" }));
+  event.waitUntil(caches.open(CACHE).then((cache) => cache.addAll(requests)));
   // First install: nothing to mix with, take over at once.
   if (!self.registration.active) self.skipWaiting();
 });
 
 self.addEventListener("activate", (event) => {
+  // This scope's older versions, and caches of the first release, which
+  // were named "headroom-" and a 16-digit hash.
+  const stale = (k) => (k.startsWith(PREFIX) && k !== CACHE) || /^headroom-[0-9a-f]{16}$/.test(k);
   event.waitUntil(
     caches.keys()
-      .then((keys) => Promise.all(keys.filter((k) => k.startsWith("headroom-") && k !== CACHE).map((k) => caches.delete(k))))
+      .then((keys) => Promise.all(keys.filter(stale).map((k) => caches.delete(k))))
       .then(() => self.clients.claim()),
   );
 });
@@ -27,11 +37,15 @@ self.addEventListener("message", (event) => {
 
 self.addEventListener("fetch", (event) => {
   const request = event.request;
-  if (request.method !== "GET" || new URL(request.url).origin !== self.location.origin) return;
+  const url = new URL(request.url);
+  if (request.method !== "GET" || url.origin !== self.location.origin) return;
+  // The app's page only for navigations to the app itself (the worksheet
+  // travels in the fragment, which never reaches here); any other page in
+  // the scope goes to the network as usual.
+  const isApp = url.pathname === SCOPE || url.pathname === SCOPE + "index.html";
+  if (request.mode === "navigate" && !isApp) return;
   event.respondWith(
     caches.open(CACHE).then(async (cache) => {
-      // The worksheet travels in the fragment, which never reaches here;
-      // any navigation is the one page.
       const hit = request.mode === "navigate"
         ? await cache.match("./index.html")
         : await cache.match(request, { ignoreSearch: true });

@@ -8,6 +8,7 @@ use crate::hydraulics::losses::Fitting;
 use crate::hydraulics::pipes::{self, Material, SERIES};
 use crate::sheet::file::{FittingCount, FluidFile, GlycolName, LineFile, MethodName, PipeFile};
 use crate::sheet::presets::{Service, SERVICES};
+use crate::sheet::number::parse_count;
 use crate::sheet::units::{self, Dimension};
 
 fn material_of(f: &LineFile) -> Option<Material> {
@@ -303,12 +304,15 @@ fn FittingList(
                                 view! { <option value=f.id() selected=sel>{f.label()}</option> }
                             }).collect_view()}
                         </select>
-                        <input type="number" inputmode="numeric" min="0" step="1" aria-label="how many"
-                            data-testid=format!("fitting-{i}-count") prop:value=fc.count.to_string()
+                        <input type="text" inputmode="numeric" aria-label="how many" class="count"
+                            data-testid=format!("fitting-{i}-count") prop:value=fc.count.clone()
                             on:input=move |ev| {
-                                let n = event_target_value(&ev).trim().parse::<u32>().unwrap_or(0);
+                                let n = event_target_value(&ev);
                                 file.update(|f| if let Some(r) = f.fittings.get_mut(i) { r.count = n });
                             }/>
+                        <span class="field-error" data-testid=format!("fitting-{i}-count-error") aria-live="polite">
+                            {move || file.with(|f| f.fittings.get(i).and_then(|r| parse_count(&r.count).err()).map(|e| e.to_string()).unwrap_or_default())}
+                        </span>
                         <button type="button" class="quiet" aria-label="remove this fitting"
                             on:click=move |_| file.update(|f| { if i < f.fittings.len() { f.fittings.remove(i); } })>"✕"</button>
                     </div>

@@ -6,6 +6,7 @@ pub mod editor;
 pub mod fatal;
 pub mod fields;
 pub mod keep;
+pub mod keep_views;
 pub mod print;
 pub mod results;
 pub mod roster;
@@ -20,17 +21,23 @@ pub use crate::sheet::report::CAUTION;
 use state::Sheet;
 
 /// The root of the page: the worksheet, kept on this device and opened
-/// from a shared link when the address carries one.
+/// from a shared link when the address carries one (after asking).
 #[component]
 pub fn App() -> impl IntoView {
-    let sheet = Sheet::new();
     let notices = keep::Notices(RwSignal::new(Vec::new()));
-    provide_context(sheet);
     provide_context(notices);
-    let keeper = keep::Keeper::start(sheet, notices);
+    provide_context(OpenPanel(RwSignal::new("")));
+    let keeper = keep::Keeper::start(notices);
     provide_context(keeper);
-    view! { <Desk sheet=sheet/> }
+    // A new worksheet is a new `Sheet`: the whole desk is drawn again
+    // around it, and only then is the old one disposed.
+    move || view! { <Desk sheet=keeper.sheet.get()/> }
 }
+
+/// Which panel under the masthead is open ("" for none); kept across
+/// worksheet switches, which redraw the desk.
+#[derive(Clone, Copy)]
+pub struct OpenPanel(pub RwSignal<&'static str>);
 
 /// The page laid out around a given worksheet (tests mount it with their own).
 #[component]
@@ -46,18 +53,19 @@ pub fn Desk(
     });
     let keeper = use_context::<keep::Keeper>();
     let stored = keeper.is_some();
-    let k_demo = keeper;
     // The demo opens as a worksheet of its own when storage is in use, so
     // it never replaces anyone's work.
     let open_demo = move |_| {
         if let Ok(demo) = SheetFile::from_json(state::DEMO) {
-            match &k_demo {
-                Some(k) => k.create(demo, sheet),
+            match &keeper {
+                Some(k) => {
+                    let _ = k.create(demo);
+                }
                 None => sheet.load(demo),
             }
         }
     };
-    let panel = RwSignal::new("");
+    let panel = use_context::<OpenPanel>().map(|p| p.0).unwrap_or_else(|| RwSignal::new(""));
     let toggle = move |name: &'static str| move |_| panel.update(|p| *p = if *p == name { "" } else { name });
     let pressed = move |name: &'static str| move || if panel.get() == name { "true" } else { "false" };
     let system = move || sheet.units.get().system;
@@ -86,6 +94,7 @@ pub fn Desk(
                 <button type="button" data-testid="show-files" aria-pressed=pressed("files") on:click=toggle("files")>"Files & print"</button>
             </div>
         </header>
+        {keeper.map(|k| view! { <keep_views::Status keeper=k/><keep_views::HaltBanner keeper=k/><keep_views::LinkQuestion keeper=k/> })}
         <div class="notices screen-only" aria-live="polite" data-testid="notices">
             {move || notices.0.get().into_iter().enumerate().map(|(i, n)| view! {
                 <p class="notice" data-testid="notice">

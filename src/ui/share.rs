@@ -58,6 +58,10 @@ pub fn SharePanel() -> impl IntoView {
         share_url(&sheet)
     });
     let copied = RwSignal::new(false);
+    // The clipboard needs a secure context and a browser that offers it.
+    let can_copy = web_sys::window()
+        .map(|w| js_sys::Reflect::get(&w.navigator(), &"clipboard".into()).is_ok_and(|c| !c.is_undefined() && !c.is_null()))
+        .unwrap_or(false);
     let copy = move |_| {
         let Some(w) = web_sys::window() else { return };
         let promise = w.navigator().clipboard().write_text(&url.get_untracked());
@@ -88,10 +92,17 @@ pub fn SharePanel() -> impl IntoView {
             <label for="share-link">"Link"</label>
             <input id="share-link" data-testid="share-link" type="text" readonly prop:value=move || url.get()/>
             <div class="row">
-                <button type="button" data-testid="copy-link" on:click=copy>{move || if copied.get() { "Copied ✓" } else { "Copy link" }}</button>
+                {can_copy.then(|| view! { <button type="button" data-testid="copy-link" on:click=copy>{move || if copied.get() { "Copied ✓" } else { "Copy link" }}</button> })}
                 {can_share.then(|| view! { <button type="button" data-testid="system-share" on:click=share>"Share…"</button> })}
                 <span class="hint">{move || format!("{} characters", url.get().len())}</span>
             </div>
+            {(!can_copy || !can_share).then(|| view! {
+                <p class="hint" data-testid="share-fallback">{match (can_copy, can_share) {
+                    (false, false) => "This browser offers neither copying nor sharing from here: select the link above and copy it by hand, or scan the QR code.",
+                    (false, true) => "This browser does not let the page copy: use Share…, select the link and copy it by hand, or scan the QR code.",
+                    _ => "To send it, copy the link into a message, or scan the QR code with another device.",
+                }}</p>
+            })}
             {move || match qr_path(&url.get()) {
                 Some((d, n)) => view! {
                     <svg class="qr" data-testid="qr" viewBox=format!("0 0 {n} {n}") role="img" aria-label="QR code of the link" shape-rendering="crispEdges">
@@ -133,8 +144,9 @@ pub fn FilesPanel() -> impl IntoView {
             match SheetFile::from_json(&text) {
                 Ok(s) => {
                     let name = if s.project.is_empty() { file.name() } else { s.project.clone() };
-                    keeper.create(s, sheet);
-                    notices.say(format!("Imported “{name}” as a new worksheet."));
+                    if keeper.create(s).is_ok() {
+                        notices.say(format!("Imported “{name}” as a new worksheet."));
+                    }
                 }
                 Err(e) => notices.say(format!("{} could not be imported: {e}.", file.name())),
             }

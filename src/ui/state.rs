@@ -1,6 +1,11 @@
 //! The page's state: one worksheet of lines, each line's stored text in a
 //! signal of its own and its result in a memo of its own, so an edit
 //! re-sizes only the line that changed.
+//!
+//! - Every `Sheet` owns a reactive scope of its own. Opening another
+//!   worksheet makes a new `Sheet` and the page is redrawn around it; the
+//!   old one is disposed only after that ([`Sheet::dispose_later`]), so no
+//!   view can read a value of the old worksheet after it was disposed.
 
 use std::sync::atomic::{AtomicUsize, Ordering};
 
@@ -54,25 +59,64 @@ pub struct Sheet {
     owner: StoredValue<Owner>,
 }
 
+impl PartialEq for Sheet {
+    fn eq(&self, other: &Sheet) -> bool {
+        self.lines == other.lines
+    }
+}
+
+/// Runs `f` in a task of its own, after the reactive updates queued now
+/// (they run as microtasks) have redrawn the page.
+pub fn after_redraw(f: impl FnOnce() + 'static) {
+    let f = wasm_bindgen::closure::Closure::once_into_js(f);
+    if let Some(w) = web_sys::window() {
+        let _ = w.set_timeout_with_callback(wasm_bindgen::JsCast::unchecked_ref(&f));
+    }
+}
+
 impl Sheet {
-    /// A new empty worksheet owned by the current reactive owner.
+    /// A new empty worksheet in a reactive scope of its own, a child of the
+    /// current owner.
     pub fn new() -> Sheet {
-        let units = RwSignal::new(UnitChoice::default());
-        let resolved = Memo::new(move |_| {
-            let u = units.get();
-            u.resolve().unwrap_or_else(|_| Units::defaults(u.system))
+        let owner = Owner::new();
+        // Kept in the parent's scope, so the scope does not own itself.
+        let keep = StoredValue::new(owner.clone());
+        owner.with(|| {
+            let units = RwSignal::new(UnitChoice::default());
+            let resolved = Memo::new(move |_| {
+                let u = units.get();
+                u.resolve().unwrap_or_else(|_| Units::defaults(u.system))
+            });
+            Sheet {
+                project: RwSignal::new(String::new()),
+                date: RwSignal::new(String::new()),
+                units,
+                resolved,
+                lines: RwSignal::new(Vec::new()),
+                selected: RwSignal::new(None),
+                deleted: RwSignal::new(None),
+                next_id: StoredValue::new(1),
+                owner: keep,
+            }
+        })
+    }
+
+    /// A worksheet holding a sheet file's content, in a scope of its own.
+    pub fn from_file(file: SheetFile) -> Sheet {
+        let sheet = Sheet::new();
+        sheet.fill(file);
+        sheet
+    }
+
+    /// Disposes this worksheet's scope once the page has been redrawn
+    /// without it. Call after the page has been given another worksheet.
+    pub fn dispose_later(self) {
+        after_redraw(move || {
+            if let Some(owner) = self.owner.try_get_value() {
+                owner.cleanup();
+            }
+            self.owner.dispose();
         });
-        Sheet {
-            project: RwSignal::new(String::new()),
-            date: RwSignal::new(String::new()),
-            units,
-            resolved,
-            lines: RwSignal::new(Vec::new()),
-            selected: RwSignal::new(None),
-            deleted: RwSignal::new(None),
-            next_id: StoredValue::new(1),
-            owner: StoredValue::new(Owner::current().unwrap_or_default()),
-        }
     }
 
     fn make_slot(&self, file: LineFile) -> Slot {
@@ -155,18 +199,29 @@ impl Sheet {
         self.lines.with(|v| v.iter().find(|s| s.id == id).cloned())
     }
 
-    /// Replaces the whole worksheet with a sheet file's content.
+    /// Replaces the whole worksheet with a sheet file's content, in place
+    /// (the page without storage uses this; the stored page makes a new
+    /// [`Sheet`] instead). The old lines are disposed only after the page
+    /// has been redrawn without them.
     pub fn load(&self, sheet: SheetFile) {
         let old = self.lines.get_untracked();
+        let deleted = self.deleted.get_untracked();
+        self.deleted.set(None);
+        self.fill(sheet);
+        after_redraw(move || {
+            for s in old.into_iter().chain(deleted.map(|d| d.1)) {
+                s.owner.cleanup();
+            }
+        });
+    }
+
+    fn fill(&self, sheet: SheetFile) {
         self.project.set(sheet.project);
         self.date.set(sheet.date);
         self.units.set(sheet.units);
         let slots: Vec<Slot> = sheet.lines.into_iter().map(|l| self.make_slot(l)).collect();
         self.selected.set(slots.first().map(|s| s.id));
         self.lines.set(slots);
-        for s in old {
-            s.owner.cleanup();
-        }
     }
 
     /// The worksheet as a sheet file.
