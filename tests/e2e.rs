@@ -190,6 +190,7 @@ async fn works_offline_after_one_visit() {
     let mut h = Harness::start(1024, 768).await;
     h.open("/", "open-demo").await;
     wait_for_service_worker(&h).await;
+    h.expect_text("offline-status", "Ready to work offline.").await;
     // Network off (DevTools offline emulation), and the server gone too.
     h.cdp("Network.enable", serde_json::json!({})).await;
     h.cdp("Network.emulateNetworkConditions", serde_json::json!({"offline": true, "latency": 0, "downloadThroughput": -1, "uploadThroughput": -1})).await;
@@ -472,6 +473,35 @@ async fn two_tabs_on_one_worksheet_never_overwrite_each_other() {
     assert_eq!(sheets.as_u64(), Some(1), "still one worksheet");
     h.client.close_window().await.unwrap();
     h.client.switch_to_window(tab_a).await.unwrap();
+    // Both at once: tab A types, and before its save runs (it is queued
+    // right after the edit) another writer saves a newer revision.
+    h.client
+        .execute(
+            r#"const input = document.querySelector('[data-testid=line-name]');
+               input.value = 'Typed in A while B saved';
+               input.dispatchEvent(new Event('input', { bubbles: true }));
+               const id = localStorage.getItem('headroom.v1.current');
+               const rev = Number(localStorage.getItem('headroom.v1.rev.' + id));
+               localStorage.setItem('headroom.v1.rev.' + id, String(rev + 1));"#,
+            vec![],
+        )
+        .await
+        .unwrap();
+    let halt = h.text("halt").await;
+    assert!(halt.contains("stopped saving"), "{halt}");
+    until(&h, STORED_NAME, "Then tab A again").await;
+    for (name, w, hgt) in [("halt-tablet.png", 1024, 768), ("halt-phone.png", 390, 844)] {
+        h.client.set_window_size(w, hgt).await.unwrap();
+        h.screenshot(name).await;
+    }
+    h.click("keep-mine").await;
+    until(&h, STORED_NAME, "Typed in A while B saved").await;
+    let sheets = h
+        .client
+        .execute("return Object.keys(localStorage).filter(k => k.startsWith('headroom.v1.sheet.')).length", vec![])
+        .await
+        .unwrap();
+    assert_eq!(sheets.as_u64(), Some(2), "both copies kept");
     h.finish().await;
 }
 
@@ -506,6 +536,10 @@ async fn a_hostile_link_of_six_thousand_lines_is_refused_and_the_page_stays_resp
     h.client.goto(&h.url(&format!("/#{}", headroom::sheet::link::encode(&sheet)))).await.unwrap();
     let question = h.text("link-question").await;
     assert!(question.contains("with 2000 lines"), "{question}");
+    for (name, w, hgt) in [("link-question-tablet.png", 1024, 768), ("link-question-portrait.png", 768, 1024), ("link-question-phone.png", 390, 844)] {
+        h.client.set_window_size(w, hgt).await.unwrap();
+        h.screenshot(name).await;
+    }
     h.click("decline-link").await;
     h.wait_for("add-line").await;
     h.finish().await;
@@ -577,6 +611,11 @@ async fn switching_worksheets_of_other_unit_systems_in_every_way_keeps_the_page_
     current.click().await.unwrap();
     h.wait_for("add-line").await;
     assert!(h.client.find_all(Locator::Css("#fatal")).await.unwrap().is_empty(), "the page stopped");
-    h.screenshot("after-switching.png").await;
+    // The trash lists what was deleted.
+    h.wait_for("trash-row").await;
+    for (name, w, hgt) in [("shelf-tablet.png", 1024, 768), ("shelf-portrait.png", 768, 1024), ("shelf-phone.png", 390, 844)] {
+        h.client.set_window_size(w, hgt).await.unwrap();
+        h.screenshot(name).await;
+    }
     h.finish().await;
 }

@@ -389,6 +389,12 @@ async fn switching_between_sheets_of_different_unit_systems_never_stops_the_page
     click(&page, "new-sheet");
     settle().await;
     alive(&page, "empty US sheet to a new one");
+    // 7. Copying a stored US sheet with lines opens the copy.
+    let copies = page.query_selector_all("[data-testid=shelf-copy]").unwrap();
+    copies.item(0).unwrap().unchecked_into::<HtmlElement>().click();
+    settle().await;
+    alive(&page, "copying a US sheet");
+    assert!(find(&page, "answer-velocity").text_content().unwrap().ends_with("ft/s"));
     // Every sheet kept what it had.
     for k in stored_sheets() {
         SheetFile::from_json(&storage().get_item(&k).unwrap().unwrap()).expect("stored sheets stay readable");
@@ -604,4 +610,23 @@ async fn a_count_that_is_not_a_whole_number_is_shown_beside_the_count() {
     settle().await;
     assert_eq!(find(&page, "fitting-0-count-error").text_content().unwrap(), "");
     assert_ne!(find(&page, "proposed-size").text_content().unwrap(), "—");
+}
+
+#[wasm_bindgen_test]
+async fn without_a_clipboard_the_share_panel_says_how_to_send_the_link() {
+    fresh();
+    // A browser (or an insecure page) without navigator.clipboard.
+    let nav = web_sys::window().unwrap().navigator();
+    let hidden = js_sys::Object::new();
+    js_sys::Reflect::set(&hidden, &"value".into(), &wasm_bindgen::JsValue::UNDEFINED).unwrap();
+    js_sys::Reflect::set(&hidden, &"configurable".into(), &true.into()).unwrap();
+    js_sys::Object::define_property(&nav, &"clipboard".into(), &hidden);
+    let page = mount_app();
+    settle().await;
+    click(&page, "show-share");
+    settle().await;
+    // Put the real one back before asserting.
+    js_sys::Reflect::delete_property(&nav, &"clipboard".into()).unwrap();
+    assert!(page.query_selector("[data-testid=copy-link]").unwrap().is_none(), "no button that cannot work");
+    assert!(find(&page, "share-fallback").text_content().unwrap().contains("copy it by hand"));
 }

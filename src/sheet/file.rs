@@ -340,7 +340,7 @@ mod count_text {
 
     use crate::sheet::number::parse_count;
 
-    pub fn serialize<S: Serializer>(text: &String, s: S) -> Result<S::Ok, S::Error> {
+    pub fn serialize<S: Serializer>(text: &str, s: S) -> Result<S::Ok, S::Error> {
         match parse_count(text) {
             Ok(n) => s.serialize_u32(n),
             Err(_) => s.serialize_str(text),

@@ -74,7 +74,13 @@ pub fn LinkQuestion(
         keeper.pending.get().map(|p| {
             let name = display_name(&p.file.project);
             let n = p.file.lines.len();
-            let names: Vec<String> = p.file.lines.iter().take(8).map(|l| display_name(&l.name)).collect();
+            let names: Vec<String> = p
+                .file
+                .lines
+                .iter()
+                .take(8)
+                .map(|l| if l.name.trim().is_empty() { format!("Unnamed line, flow {}", l.flow) } else { l.name.clone() })
+                .collect();
             let more = n.saturating_sub(names.len());
             view! {
                 <section class="ask screen-only" role="alertdialog" aria-labelledby="ask-title" data-testid="link-question">
