@@ -67,7 +67,11 @@ fn broken_and_foreign_files_are_refused_clearly() {
         ("trunc.json", r#"{"format":"headroom-sheet","version":1,"lines":[{"#, "not a readable sheet file"),
         ("other.json", r#"{"format":"spreadsheet","version":1,"lines":[]}"#, "format is 'spreadsheet'"),
         ("future.json", r#"{"format":"headroom-sheet","version":9,"lines":[]}"#, "version 9 is newer"),
-        ("typo.json", r#"{"format":"headroom-sheet","version":1,"lines":[{"flow":"1","fluid":{"kind":"water","temperature":"5"},"pipe":{"series":"copper-l"},"lenght":"3"}]}"#, "unknown field `lenght`"),
+        (
+            "typo.json",
+            r#"{"format":"headroom-sheet","version":1,"lines":[{"flow":"1","fluid":{"kind":"water","temperature":"5"},"pipe":{"series":"copper-l"},"lenght":"3"}]}"#,
+            "unknown field `lenght`",
+        ),
     ] {
         let (code, _, err) = batch(&[&temp_file(name, text)]);
         assert_eq!(code, 1, "{name}");
@@ -86,7 +90,9 @@ fn a_reader_that_stops_early_ends_the_output_quietly() {
     // Regression: `headroom-batch big.json | head` panicked on the closed pipe.
     // 1,500 lines print well over the 64 KiB a pipe buffers, so the write
     // meets the closed pipe whatever the timing.
-    let demo = std::fs::read_to_string(Path::new(env!("CARGO_MANIFEST_DIR")).join("examples/clinic-chilled-water.json")).unwrap();
+    let demo =
+        std::fs::read_to_string(Path::new(env!("CARGO_MANIFEST_DIR")).join("examples/clinic-chilled-water.json"))
+            .unwrap();
     let mut sheet: serde_json::Value = serde_json::from_str(&demo).unwrap();
     let line = sheet["lines"][0].clone();
     sheet["lines"] = serde_json::Value::Array(vec![line; 1500]);

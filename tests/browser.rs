@@ -9,7 +9,7 @@ use std::rc::Rc;
 use std::sync::atomic::Ordering;
 
 use headroom::hydraulics::pipes;
-use headroom::sheet::file::{SheetFile, Units, System};
+use headroom::sheet::file::{SheetFile, System, Units};
 use headroom::sheet::presets::SERVICES;
 use headroom::sheet::report::evaluate_line;
 use headroom::ui::state::{Sheet, DEMO, EVALUATIONS};
@@ -42,10 +42,6 @@ fn mount_sheet(setup: impl FnOnce(&Sheet) + 'static) -> (HtmlElement, Sheet) {
     .forget();
     (host, out.take().unwrap())
 }
-
-
-
-
 
 /// A chilled-water line with flow and length filled in.
 fn chilled(sheet: &Sheet, name: &str, flow: &str) {
@@ -127,7 +123,12 @@ async fn delete_can_be_undone_and_duplicate_copies() {
     find(&root, "undo-delete").unchecked_ref::<HtmlElement>().click();
     leptos::task::tick().await;
     assert_eq!(all_text(&root, "row-name"), ["keep", "drop me"]);
-    root.query_selector_all("[data-testid=row-duplicate]").unwrap().item(0).unwrap().unchecked_ref::<HtmlElement>().click();
+    root.query_selector_all("[data-testid=row-duplicate]")
+        .unwrap()
+        .item(0)
+        .unwrap()
+        .unchecked_ref::<HtmlElement>()
+        .click();
     leptos::task::tick().await;
     assert_eq!(all_text(&root, "row-name"), ["keep", "keep (copy)", "drop me"]);
     assert_eq!(sheet.lines.with_untracked(Vec::len), 3);
@@ -170,8 +171,17 @@ async fn only_the_edited_line_is_re_sized_in_a_200_line_sheet() {
     }
     times.sort_by(f64::total_cmp);
     // Reported, not asserted: timing belongs in the README, not in a test.
-    web_sys::console::log_1(&format!("200-line sheet, edit to updated results: median {:.1} ms, worst {:.1} ms (15 edits)", times[7], times[14]).into());
-    println!("200-line sheet, edit to updated results: median {:.1} ms, worst {:.1} ms (15 edits)", times[7], times[14]);
+    web_sys::console::log_1(
+        &format!(
+            "200-line sheet, edit to updated results: median {:.1} ms, worst {:.1} ms (15 edits)",
+            times[7], times[14]
+        )
+        .into(),
+    );
+    println!(
+        "200-line sheet, edit to updated results: median {:.1} ms, worst {:.1} ms (15 edits)",
+        times[7], times[14]
+    );
 }
 
 #[wasm_bindgen_test]

@@ -65,7 +65,11 @@ async fn a_new_user_sizes_a_line_adds_another_and_switches_units() {
     let c = &o.sizing.candidates[o.shown.unwrap()];
     let rho = o.sizing.properties.density_kg_m3();
     h.expect_text("proposed-size", c.nominal).await;
-    h.expect_text("answer-drop-per-length", &units::show(c.point.drop_per_length.value, si.drop_per_length, Some(rho), 3)).await;
+    h.expect_text(
+        "answer-drop-per-length",
+        &units::show(c.point.drop_per_length.value, si.drop_per_length, Some(rho), 3),
+    )
+    .await;
     h.expect_text("answer-velocity", &units::show(c.point.velocity.value, si.velocity, Some(rho), 3)).await;
 
     // A second line.
@@ -85,7 +89,11 @@ async fn a_new_user_sizes_a_line_adds_another_and_switches_units() {
     h.click("units-us").await;
     let us = Units::defaults(System::Us);
     h.expect_text("answer-velocity", &units::show(c.point.velocity.value, us.velocity, Some(rho), 3)).await;
-    h.expect_text("answer-drop-per-length", &units::show(c.point.drop_per_length.value, us.drop_per_length, Some(rho), 3)).await;
+    h.expect_text(
+        "answer-drop-per-length",
+        &units::show(c.point.drop_per_length.value, us.drop_per_length, Some(rho), 3),
+    )
+    .await;
     assert!(h.text("answer-velocity").await.ends_with("ft/s"));
     // The typed flow was rewritten in gpm, meaning the same flow.
     let flow = h.value("flow").await;
@@ -93,7 +101,9 @@ async fn a_new_user_sizes_a_line_adds_another_and_switches_units() {
     assert_eq!(flow, "293.231", "18.5 L/s in US gpm");
     h.expect_text("proposed-size", c.nominal).await;
 
-    for (name, w, hgt) in [("tablet-portrait.png", 768, 1024), ("tablet-landscape.png", 1024, 768), ("phone.png", 390, 844)] {
+    for (name, w, hgt) in
+        [("tablet-portrait.png", 768, 1024), ("tablet-landscape.png", 1024, 768), ("phone.png", 390, 844)]
+    {
         h.client.set_window_size(w, hgt).await.unwrap();
         h.screenshot(name).await;
         h.client.execute("document.querySelector('[data-testid=results]').scrollIntoView()", vec![]).await.unwrap();
@@ -114,10 +124,7 @@ async fn edit_to_results_time_on_a_200_line_sheet() {
     let n = h.client.find_all(Locator::Css("[data-testid=roster-row]")).await.unwrap().len();
     for _ in n..200 {
         // Duplicate the selected (first) line: every line is sized.
-        h.client
-            .execute("document.querySelector('[data-testid=row-duplicate]').click()", vec![])
-            .await
-            .unwrap();
+        h.client.execute("document.querySelector('[data-testid=row-duplicate]').click()", vec![]).await.unwrap();
     }
     let rows = h.client.find_all(Locator::Css("[data-testid=roster-row]")).await.unwrap();
     assert_eq!(rows.len(), 200);
@@ -193,7 +200,11 @@ async fn works_offline_after_one_visit() {
     h.expect_text("offline-status", "Ready to work offline.").await;
     // Network off (DevTools offline emulation), and the server gone too.
     h.cdp("Network.enable", serde_json::json!({})).await;
-    h.cdp("Network.emulateNetworkConditions", serde_json::json!({"offline": true, "latency": 0, "downloadThroughput": -1, "uploadThroughput": -1})).await;
+    h.cdp(
+        "Network.emulateNetworkConditions",
+        serde_json::json!({"offline": true, "latency": 0, "downloadThroughput": -1, "uploadThroughput": -1}),
+    )
+    .await;
     h.stop_server();
     h.client.refresh().await.expect("reload while offline");
     h.wait_for("open-demo").await;
@@ -226,7 +237,8 @@ async fn a_shared_link_opens_beside_local_work_and_prints() {
     h.type_into("length", "10").await;
     h.expect_text("row-name", "Local line").await;
     // Now a colleague's link: the demo sheet, plus a hostile line name.
-    let mut shared = headroom::sheet::file::SheetFile::from_json(include_str!("../examples/clinic-chilled-water.json")).unwrap();
+    let mut shared =
+        headroom::sheet::file::SheetFile::from_json(include_str!("../examples/clinic-chilled-water.json")).unwrap();
     shared.lines[0].name = "<img src=x onerror=alert(1)><script>alert(2)</script>".into();
     let fragment = headroom::sheet::link::encode(&shared);
     // Opened fresh, as from a message: leave the page, then follow the link.
@@ -268,7 +280,12 @@ async fn a_shared_link_opens_beside_local_work_and_prints() {
     let pdf = h.client.print(fantoccini::wd::PrintConfiguration::default()).await.expect("print to PDF");
     let path = support::artifact_dir().join("review-sheet.pdf");
     std::fs::write(&path, &pdf).unwrap();
-    let out = std::process::Command::new("pdftotext").arg("-layout").arg(&path).arg("-").output().expect("pdftotext (scripts/test installs poppler-utils)");
+    let out = std::process::Command::new("pdftotext")
+        .arg("-layout")
+        .arg(&path)
+        .arg("-")
+        .output()
+        .expect("pdftotext (scripts/test installs poppler-utils)");
     let text = String::from_utf8_lossy(&out.stdout).replace('\u{a0}', " ");
     for want in [
         shared.project.as_str(),
@@ -397,7 +414,8 @@ async fn a_sheet_file_imports_as_a_new_worksheet() {
     input.send_keys(&path.display().to_string()).await.expect("choose the file");
     h.wait_for("notice").await;
     let notice = h.text("notice").await;
-    let demo = headroom::sheet::file::SheetFile::from_json(include_str!("../examples/clinic-chilled-water.json")).unwrap();
+    let demo =
+        headroom::sheet::file::SheetFile::from_json(include_str!("../examples/clinic-chilled-water.json")).unwrap();
     assert!(notice.contains(&format!("Imported “{}” as a new worksheet", demo.project)), "{notice}");
     let names = h.client.find_all(Locator::Css("[data-testid=row-name]")).await.unwrap();
     assert_eq!(names.len(), demo.lines.len());
@@ -509,7 +527,10 @@ async fn two_tabs_on_one_worksheet_never_overwrite_each_other() {
 #[ignore = "needs dist/ and chromedriver: scripts/test runs it"]
 async fn a_hostile_link_of_six_thousand_lines_is_refused_and_the_page_stays_responsive() {
     let line = r#"{"flow":"1","fluid":{"kind":"water","temperature":"7"},"pipe":{"series":"steel-sch40"},"length":"1","limits":{"max_velocity":"2"}}"#;
-    let mut sheet = headroom::sheet::file::SheetFile::from_json(&format!(r#"{{"format":"headroom-sheet","version":1,"project":"Six thousand","lines":[{line}]}}"#)).unwrap();
+    let mut sheet = headroom::sheet::file::SheetFile::from_json(&format!(
+        r#"{{"format":"headroom-sheet","version":1,"project":"Six thousand","lines":[{line}]}}"#
+    ))
+    .unwrap();
     sheet.lines = vec![sheet.lines[0].clone(); 6000];
     let fragment = headroom::sheet::link::encode(&sheet);
     println!("hostile link: {} characters for 6000 lines", fragment.len());
@@ -519,7 +540,10 @@ async fn a_hostile_link_of_six_thousand_lines_is_refused_and_the_page_stays_resp
     h.client.goto(&h.url(&format!("/#{fragment}"))).await.unwrap();
     h.wait_for("notice").await;
     let notice = h.text("notices").await;
-    assert!(notice.contains("too large to open safely: it has 6000 lines; a worksheet may have at most 2000"), "{notice}");
+    assert!(
+        notice.contains("too large to open safely: it has 6000 lines; a worksheet may have at most 2000"),
+        "{notice}"
+    );
     // The page answers at once: a line sizes.
     h.click("add-line").await;
     h.type_into("flow", "3").await;
@@ -536,7 +560,11 @@ async fn a_hostile_link_of_six_thousand_lines_is_refused_and_the_page_stays_resp
     h.client.goto(&h.url(&format!("/#{}", headroom::sheet::link::encode(&sheet)))).await.unwrap();
     let question = h.text("link-question").await;
     assert!(question.contains("with 2000 lines"), "{question}");
-    for (name, w, hgt) in [("link-question-tablet.png", 1024, 768), ("link-question-portrait.png", 768, 1024), ("link-question-phone.png", 390, 844)] {
+    for (name, w, hgt) in [
+        ("link-question-tablet.png", 1024, 768),
+        ("link-question-portrait.png", 768, 1024),
+        ("link-question-phone.png", 390, 844),
+    ] {
         h.client.set_window_size(w, hgt).await.unwrap();
         h.screenshot(name).await;
     }
@@ -607,13 +635,16 @@ async fn switching_worksheets_of_other_unit_systems_in_every_way_keeps_the_page_
     h.expect_text("row-name", "CHW main, plant room to riser").await;
     // Deleting the open sheet.
     h.click("show-shelf").await;
-    let current = h.client.find(Locator::Css("[data-testid=shelf-row].current [data-testid=shelf-delete]")).await.unwrap();
+    let current =
+        h.client.find(Locator::Css("[data-testid=shelf-row].current [data-testid=shelf-delete]")).await.unwrap();
     current.click().await.unwrap();
     h.wait_for("add-line").await;
     assert!(h.client.find_all(Locator::Css("#fatal")).await.unwrap().is_empty(), "the page stopped");
     // The trash lists what was deleted.
     h.wait_for("trash-row").await;
-    for (name, w, hgt) in [("shelf-tablet.png", 1024, 768), ("shelf-portrait.png", 768, 1024), ("shelf-phone.png", 390, 844)] {
+    for (name, w, hgt) in
+        [("shelf-tablet.png", 1024, 768), ("shelf-portrait.png", 768, 1024), ("shelf-phone.png", 390, 844)]
+    {
         h.client.set_window_size(w, hgt).await.unwrap();
         h.screenshot(name).await;
     }

@@ -18,7 +18,8 @@ fn demo() -> SheetFile {
 /// reader check on the way out).
 fn many_lines(n: usize) -> SheetFile {
     let line = r#"{"flow":"1","fluid":{"kind":"water","temperature":"7"},"pipe":{"series":"steel-sch40"},"length":"1","limits":{"max_velocity":"2"}}"#;
-    let mut s = SheetFile::from_json(&format!(r#"{{"format":"headroom-sheet","version":1,"lines":[{line}]}}"#)).unwrap();
+    let mut s =
+        SheetFile::from_json(&format!(r#"{{"format":"headroom-sheet","version":1,"lines":[{line}]}}"#)).unwrap();
     s.lines = vec![s.lines[0].clone(); n];
     s
 }
@@ -84,11 +85,15 @@ fn a_count_that_is_not_a_whole_number_in_range_is_a_field_error_not_zero() {
 #[test]
 fn numbers_past_double_precision_are_messages_not_infinity_or_zero() {
     let mut s = demo();
-    s.lines[0].fluid = headroom::sheet::file::FluidFile::Water { temperature: "7".into(), pressure: Some("1e308 kPa".into()) };
+    s.lines[0].fluid =
+        headroom::sheet::file::FluidFile::Water { temperature: "7".into(), pressure: Some("1e308 kPa".into()) };
     s.lines[0].length = "1e-400".into();
     let errs = evaluate(&s).remove(0).outcome.unwrap_err();
     let text: Vec<String> = errs.iter().map(|e| e.to_string()).collect();
-    assert!(text.contains(&"fluid.pressure: '1e308 kPa' is too far from any real value to compute with".to_owned()), "{text:?}");
+    assert!(
+        text.contains(&"fluid.pressure: '1e308 kPa' is too far from any real value to compute with".to_owned()),
+        "{text:?}"
+    );
     assert!(text.contains(&"length: '1e-400' is too small a number to tell from zero".to_owned()), "{text:?}");
 }
 

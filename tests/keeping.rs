@@ -3,7 +3,9 @@
 #![cfg(target_arch = "wasm32")]
 
 use headroom::sheet::file::SheetFile;
-use headroom::sheet::library::{ASIDE_PREFIX, BUILD_KEY, CURRENT_KEY, INDEX_KEY, REV_PREFIX, SHEET_PREFIX, TRASH_PREFIX};
+use headroom::sheet::library::{
+    ASIDE_PREFIX, BUILD_KEY, CURRENT_KEY, INDEX_KEY, REV_PREFIX, SHEET_PREFIX, TRASH_PREFIX,
+};
 use headroom::sheet::link;
 use headroom::ui::state::DEMO;
 use headroom::ui::App;
@@ -30,7 +32,10 @@ fn keys() -> Vec<String> {
 fn fresh() {
     storage().clear().unwrap();
     let w = web_sys::window().unwrap();
-    w.history().unwrap().replace_state_with_url(&wasm_bindgen::JsValue::NULL, "", Some(&w.location().pathname().unwrap())).unwrap();
+    w.history()
+        .unwrap()
+        .replace_state_with_url(&wasm_bindgen::JsValue::NULL, "", Some(&w.location().pathname().unwrap()))
+        .unwrap();
     clear_pages();
 }
 
@@ -53,10 +58,6 @@ fn mount_app() -> HtmlElement {
     leptos::mount::mount_to(host.clone(), App).forget();
     host
 }
-
-
-
-
 
 /// Lets the page finish reacting, including the save that runs in a task of
 /// its own right after a change.
@@ -99,7 +100,8 @@ async fn a_damaged_entry_is_kept_aside_and_the_app_keeps_working() {
     fresh();
     let s = storage();
     s.set_item(INDEX_KEY, r#"[{"id":"bad","name":"Old job","updated":""}]"#).unwrap();
-    s.set_item(&format!("{SHEET_PREFIX}bad"), "{\"format\":\"headroom-sheet\",\"version\":1,\"lines\":[{\"flo").unwrap();
+    s.set_item(&format!("{SHEET_PREFIX}bad"), "{\"format\":\"headroom-sheet\",\"version\":1,\"lines\":[{\"flo")
+        .unwrap();
     s.set_item(CURRENT_KEY, "bad").unwrap();
     let page = mount_app();
     settle().await;
@@ -177,13 +179,19 @@ async fn a_link_opens_as_a_new_worksheet_beside_local_work() {
     let demo = SheetFile::from_json(DEMO).unwrap();
     let w = web_sys::window().unwrap();
     let path = w.location().pathname().unwrap();
-    w.history().unwrap().replace_state_with_url(&wasm_bindgen::JsValue::NULL, "", Some(&format!("{path}#{}", link::encode(&demo)))).unwrap();
+    w.history()
+        .unwrap()
+        .replace_state_with_url(&wasm_bindgen::JsValue::NULL, "", Some(&format!("{path}#{}", link::encode(&demo))))
+        .unwrap();
     clear_pages();
     let page = mount_app();
     settle().await;
     // Asked first: nothing stored yet, the local work still shown.
     let question = find(&page, "link-question").text_content().unwrap();
-    assert!(question.contains(&format!("Open the shared worksheet “{}” with {} lines?", demo.project, demo.lines.len())), "{question}");
+    assert!(
+        question.contains(&format!("Open the shared worksheet “{}” with {} lines?", demo.project, demo.lines.len())),
+        "{question}"
+    );
     assert_eq!(keys().into_iter().filter(|k| k.starts_with(SHEET_PREFIX)).count(), 1);
     assert_eq!(all_text(&page, "row-name"), ["Mine"]);
     click(&page, "open-link");
@@ -201,7 +209,10 @@ async fn a_broken_link_is_a_message_not_a_crash() {
     fresh();
     let w = web_sys::window().unwrap();
     let path = w.location().pathname().unwrap();
-    w.history().unwrap().replace_state_with_url(&wasm_bindgen::JsValue::NULL, "", Some(&format!("{path}#h1.q1w2e3r4t5"))).unwrap();
+    w.history()
+        .unwrap()
+        .replace_state_with_url(&wasm_bindgen::JsValue::NULL, "", Some(&format!("{path}#h1.q1w2e3r4t5")))
+        .unwrap();
     let page = mount_app();
     settle().await;
     let notices = all_text(&page, "notice").join(" ");
@@ -226,7 +237,12 @@ async fn worksheets_can_be_copied_deleted_and_brought_back() {
     settle().await;
     assert_eq!(rows(), start + 1);
     // Delete one, then undo.
-    page.query_selector_all("[data-testid=shelf-delete]").unwrap().item(0).unwrap().unchecked_ref::<HtmlElement>().click();
+    page.query_selector_all("[data-testid=shelf-delete]")
+        .unwrap()
+        .item(0)
+        .unwrap()
+        .unchecked_ref::<HtmlElement>()
+        .click();
     settle().await;
     assert_eq!(rows(), start);
     click(&page, "undo-sheet-delete");
@@ -234,7 +250,12 @@ async fn worksheets_can_be_copied_deleted_and_brought_back() {
     assert_eq!(rows(), start + 1);
     // Deleted again, it waits in the trash (not only in memory): a fresh
     // page lists it and can restore it.
-    page.query_selector_all("[data-testid=shelf-delete]").unwrap().item(0).unwrap().unchecked_ref::<HtmlElement>().click();
+    page.query_selector_all("[data-testid=shelf-delete]")
+        .unwrap()
+        .item(0)
+        .unwrap()
+        .unchecked_ref::<HtmlElement>()
+        .click();
     settle().await;
     assert!(keys().iter().any(|k| k.starts_with(TRASH_PREFIX)));
     clear_pages();
@@ -294,7 +315,10 @@ fn watch_for_panics() {
 fn set_fragment(fragment: &str) {
     let w = web_sys::window().unwrap();
     let path = w.location().pathname().unwrap();
-    w.history().unwrap().replace_state_with_url(&wasm_bindgen::JsValue::NULL, "", Some(&format!("{path}#{fragment}"))).unwrap();
+    w.history()
+        .unwrap()
+        .replace_state_with_url(&wasm_bindgen::JsValue::NULL, "", Some(&format!("{path}#{fragment}")))
+        .unwrap();
 }
 
 fn hashchange() {
@@ -416,7 +440,10 @@ async fn a_deleted_line_cannot_be_undone_into_another_worksheet() {
     shelf(&page).await;
     click(&page, "new-sheet");
     settle().await;
-    assert!(page.query_selector("[data-testid=undo-delete]").unwrap().is_none(), "no undo offered in the other worksheet");
+    assert!(
+        page.query_selector("[data-testid=undo-delete]").unwrap().is_none(),
+        "no undo offered in the other worksheet"
+    );
     assert!(all_text(&page, "row-name").is_empty());
 }
 
@@ -573,7 +600,8 @@ async fn an_old_tab_stops_saving_when_a_newer_build_starts_elsewhere() {
 async fn a_sheet_saved_by_a_newer_headroom_is_left_untouched() {
     fresh();
     let s = storage();
-    let text = r#"{"format":"headroom-sheet","version":9,"project":"From a later Headroom","lines":[{"anything":"new"}]}"#;
+    let text =
+        r#"{"format":"headroom-sheet","version":9,"project":"From a later Headroom","lines":[{"anything":"new"}]}"#;
     s.set_item(&format!("{SHEET_PREFIX}later"), text).unwrap();
     s.set_item(CURRENT_KEY, "later").unwrap();
     let page = mount_app();
@@ -584,7 +612,11 @@ async fn a_sheet_saved_by_a_newer_headroom_is_left_untouched() {
     assert!(!keys().iter().any(|k| k.starts_with(ASIDE_PREFIX)), "not moved aside as damaged");
     click(&page, "add-line");
     settle().await;
-    assert_eq!(s.get_item(&format!("{SHEET_PREFIX}later")).unwrap().unwrap(), text, "still untouched after work elsewhere");
+    assert_eq!(
+        s.get_item(&format!("{SHEET_PREFIX}later")).unwrap().unwrap(),
+        text,
+        "still untouched after work elsewhere"
+    );
 }
 
 #[wasm_bindgen_test]
@@ -601,7 +633,10 @@ async fn a_count_that_is_not_a_whole_number_is_shown_beside_the_count() {
     for bad in ["2.5", "-1", "1e2", "99999999999"] {
         type_into(&page, "fitting-0-count", bad);
         settle().await;
-        assert_eq!(find(&page, "fitting-0-count-error").text_content().unwrap(), format!("'{bad}' is not a whole number from 0 to 999"));
+        assert_eq!(
+            find(&page, "fitting-0-count-error").text_content().unwrap(),
+            format!("'{bad}' is not a whole number from 0 to 999")
+        );
         assert_eq!(find(&page, "proposed-size").text_content().unwrap(), "—", "no answer from a bad count");
         let input: HtmlInputElement = find(&page, "fitting-0-count").unchecked_into();
         assert_eq!(input.value(), bad, "what was typed is kept");

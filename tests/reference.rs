@@ -24,9 +24,8 @@ fn load(name: &str) -> Value {
         .map(PathBuf::from)
         .unwrap_or_else(|| PathBuf::from(env!("CARGO_MANIFEST_DIR")).join("target/reference"));
     let path = dir.join(name);
-    let text = std::fs::read_to_string(&path).unwrap_or_else(|e| {
-        panic!("{}: {e}; run tests/reference/generate.py (scripts/test does)", path.display())
-    });
+    let text = std::fs::read_to_string(&path)
+        .unwrap_or_else(|e| panic!("{}: {e}; run tests/reference/generate.py (scripts/test does)", path.display()));
     serde_json::from_str(&text).unwrap()
 }
 
@@ -46,7 +45,11 @@ fn colebrook_agrees_with_fluids_over_the_whole_grid() {
         let got = colebrook(re, rr).unwrap();
         worst = worst.max(((got - want) / want).abs());
     }
-    println!("Colebrook vs fluids {}: {} points, worst relative difference {worst:.2e}", data["versions"]["fluids"], points.len());
+    println!(
+        "Colebrook vs fluids {}: {} points, worst relative difference {worst:.2e}",
+        data["versions"]["fluids"],
+        points.len()
+    );
     assert!(worst < 1e-12, "{worst}");
 }
 

@@ -18,9 +18,11 @@ fn outcome(line: &str) -> Result<Outcome, Vec<FieldError>> {
 #[test]
 fn hazen_williams_matches_the_printed_si_form_and_warns_out_of_range() {
     // hf/L = 10.67 Q^1.852 / (C^1.852 D^4.8704) (SI form, common practice).
-    let o = outcome(r#"{"flow":"1.5 L/s","fluid":{"kind":"water","temperature":"12 °C"},
+    let o = outcome(
+        r#"{"flow":"1.5 L/s","fluid":{"kind":"water","temperature":"12 °C"},
         "pipe":{"series":"copper-l"},"length":"30 m","method":"hazen-williams",
-        "limits":{"max_velocity":"1.5 m/s"}}"#)
+        "limits":{"max_velocity":"1.5 m/s"}}"#,
+    )
     .unwrap();
     assert!(o.sizing.warnings.is_empty());
     let c = o.sizing.proposal().unwrap();
@@ -30,9 +32,11 @@ fn hazen_williams_matches_the_printed_si_form_and_warns_out_of_range() {
     let ours = c.point.drop_per_length.value / (rho * 9.80665);
     assert!(((ours - printed) / printed).abs() < 0.01, "{ours} vs {printed}");
     // Hot water: the method is flagged.
-    let hot = outcome(r#"{"flow":"1.5 L/s","fluid":{"kind":"water","temperature":"70 °C"},
+    let hot = outcome(
+        r#"{"flow":"1.5 L/s","fluid":{"kind":"water","temperature":"70 °C"},
         "pipe":{"series":"copper-l"},"length":"30 m","method":"hazen-williams",
-        "limits":{"max_velocity":"1.5 m/s"}}"#)
+        "limits":{"max_velocity":"1.5 m/s"}}"#,
+    )
     .unwrap();
     assert_eq!(hot.sizing.warnings.len(), 1);
     assert!(hot.sizing.warnings[0].contains("water near room temperature"));
@@ -42,8 +46,10 @@ fn hazen_williams_matches_the_printed_si_form_and_warns_out_of_range() {
 fn mass_flow_and_head_limits_use_the_fluids_density() {
     // 5 kg/s of water at 20 °C (ρ 998.2) is 5.009 L/s; a limit of 4 m per
     // 100 m of water is 0.04 · 998.2 · 9.80665 = 391.6 Pa/m.
-    let by_mass = outcome(r#"{"flow":"5 kg/s","fluid":{"kind":"water","temperature":"20"},
-        "pipe":{"series":"steel-sch40"},"length":"10","limits":{"max_drop_per_length":"4 m/100 m"}}"#)
+    let by_mass = outcome(
+        r#"{"flow":"5 kg/s","fluid":{"kind":"water","temperature":"20"},
+        "pipe":{"series":"steel-sch40"},"length":"10","limits":{"max_drop_per_length":"4 m/100 m"}}"#,
+    )
     .unwrap();
     assert!((by_mass.line.flow.value - 5.0 / 998.2).abs() < 5e-7);
     let lim = by_mass.line.limits.max_drop_per_length.unwrap().value;
@@ -52,21 +58,27 @@ fn mass_flow_and_head_limits_use_the_fluids_density() {
 
 #[test]
 fn fluid_errors_land_on_the_fluid_field() {
-    let e = outcome(r#"{"flow":"1","fluid":{"kind":"glycol","glycol":"ethylene","percent":"20","temperature":"-15"},
-        "pipe":{"series":"steel-sch40"},"length":"10","limits":{"max_velocity":"2"}}"#)
+    let e = outcome(
+        r#"{"flow":"1","fluid":{"kind":"glycol","glycol":"ethylene","percent":"20","temperature":"-15"},
+        "pipe":{"series":"steel-sch40"},"length":"10","limits":{"max_velocity":"2"}}"#,
+    )
     .unwrap_err();
     assert_eq!(e[0].field, "fluid");
     assert!(e[0].message.contains("freezes at -7.9"), "{}", e[0].message);
-    let e = outcome(r#"{"flow":"1","fluid":{"kind":"water","temperature":"130"},
-        "pipe":{"series":"steel-sch40"},"length":"10","limits":{"max_velocity":"2"}}"#)
+    let e = outcome(
+        r#"{"flow":"1","fluid":{"kind":"water","temperature":"130"},
+        "pipe":{"series":"steel-sch40"},"length":"10","limits":{"max_velocity":"2"}}"#,
+    )
     .unwrap_err();
     assert!(e[0].message.contains("boils below"), "{}", e[0].message);
 }
 
 #[test]
 fn every_bad_field_is_reported_at_once() {
-    let e = outcome(r#"{"flow":"lots","fluid":{"kind":"water","temperature":"hot"},
-        "pipe":{"series":"steel-sch99"},"length":"","limits":{}}"#)
+    let e = outcome(
+        r#"{"flow":"lots","fluid":{"kind":"water","temperature":"hot"},
+        "pipe":{"series":"steel-sch99"},"length":"","limits":{}}"#,
+    )
     .unwrap_err();
     let fields: Vec<&str> = e.iter().map(|f| f.field).collect();
     for want in ["fluid.temperature", "pipe.series", "length", "limits"] {
@@ -76,9 +88,11 @@ fn every_bad_field_is_reported_at_once() {
 
 #[test]
 fn the_explain_trace_names_formula_and_source_for_each_step() {
-    let o = outcome(r#"{"flow":"6 L/s","fluid":{"kind":"water","temperature":"10"},
+    let o = outcome(
+        r#"{"flow":"6 L/s","fluid":{"kind":"water","temperature":"10"},
         "pipe":{"series":"steel-sch40"},"length":"20","rise":"3",
-        "fittings":[{"fitting":"valve-globe","count":1}],"limits":{"max_drop_per_length":"300"}}"#)
+        "fittings":[{"fitting":"valve-globe","count":1}],"limits":{"max_drop_per_length":"300"}}"#,
+    )
     .unwrap();
     let c = o.sizing.proposal().unwrap();
     let steps = sizing::trace(&o.line, &o.sizing.properties, c);
@@ -94,7 +108,8 @@ fn the_explain_trace_names_formula_and_source_for_each_step() {
 
 #[test]
 fn a_sheet_round_trips_through_its_json() {
-    let text = std::fs::read_to_string(concat!(env!("CARGO_MANIFEST_DIR"), "/examples/clinic-chilled-water.json")).unwrap();
+    let text =
+        std::fs::read_to_string(concat!(env!("CARGO_MANIFEST_DIR"), "/examples/clinic-chilled-water.json")).unwrap();
     let s = SheetFile::from_json(&text).unwrap();
     let again = SheetFile::from_json(&s.to_json()).unwrap();
     assert_eq!(s, again);

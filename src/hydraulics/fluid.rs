@@ -79,10 +79,9 @@ impl std::fmt::Display for FluidError {
                 p_sat_pa / 1e3,
                 p_pa / 1e3
             ),
-            FluidError::Freezes { t_c, freeze_c } => write!(
-                f,
-                "the mixture freezes at {freeze_c:.1} °C; {t_c:.1} °C is below that"
-            ),
+            FluidError::Freezes { t_c, freeze_c } => {
+                write!(f, "the mixture freezes at {freeze_c:.1} °C; {t_c:.1} °C is below that")
+            }
             FluidError::Concentration { fraction, min, max } => write!(
                 f,
                 "glycol strength {:.0} % is outside {:.0}–{:.0} % by mass",

@@ -33,10 +33,7 @@ mod tests {
     fn velocity_by_hand() {
         // Hand check: 2.5 L/s through a 52.5 mm bore.
         // A = π/4 · 0.0525² = 2.164754e-3 m²; V = 0.0025 / A = 1.154866 m/s.
-        let v = mean_velocity(
-            VolumeRate::new::<liter_per_second>(2.5),
-            Length::new::<millimeter>(52.5),
-        );
+        let v = mean_velocity(VolumeRate::new::<liter_per_second>(2.5), Length::new::<millimeter>(52.5));
         assert!((v.get::<meter_per_second>() - 1.154_866).abs() < 1e-6);
     }
 

@@ -163,14 +163,20 @@ impl Fitting {
         use KMethod::{Constant, ThreeK};
         match self {
             Fitting::Elbow90Threaded => (ThreeK(800.0, 0.14, 4.0), "Elbow, 90°, threaded, standard, (r/D = 1)"),
-            Fitting::Elbow90ThreadedLong => (ThreeK(800.0, 0.071, 4.2), "Elbow, 90°, threaded, long radius, (r/D = 1.5)"),
+            Fitting::Elbow90ThreadedLong => {
+                (ThreeK(800.0, 0.071, 4.2), "Elbow, 90°, threaded, long radius, (r/D = 1.5)")
+            }
             Fitting::Elbow90Welded => (ThreeK(800.0, 0.091, 4.0), "Elbow, 90°, flanged, welded, bends, (r/D = 1)"),
             Fitting::Elbow90LongRadius => (ThreeK(800.0, 0.056, 3.9), "Elbow, 90°, (r/D = 2)"),
             Fitting::Elbow45Threaded => (ThreeK(500.0, 0.071, 4.2), "Elbow, 45°, threaded standard, (r/D = 1)"),
             Fitting::Elbow45LongRadius => (ThreeK(500.0, 0.052, 4.0), "Elbow, 45°, long radius, (r/D = 1.5)"),
             Fitting::Return180Flanged => (ThreeK(1000.0, 0.12, 4.0), "Elbow, 180°, flanged, (r/D = 1)"),
-            Fitting::TeeBranchThreaded => (ThreeK(500.0, 0.274, 4.0), "Tee, Through-branch, (as elbow), threaded, (r/D = 1)"),
-            Fitting::TeeBranchFlanged => (ThreeK(800.0, 0.28, 4.0), "Tee, Through-branch, (as elbow), flanged, (r/D = 1)"),
+            Fitting::TeeBranchThreaded => {
+                (ThreeK(500.0, 0.274, 4.0), "Tee, Through-branch, (as elbow), threaded, (r/D = 1)")
+            }
+            Fitting::TeeBranchFlanged => {
+                (ThreeK(800.0, 0.28, 4.0), "Tee, Through-branch, (as elbow), flanged, (r/D = 1)")
+            }
             Fitting::TeeRunThreaded => (ThreeK(200.0, 0.091, 4.0), "Tee, Run-through, threaded, (r/D = 1)"),
             Fitting::TeeRunFlanged => (ThreeK(150.0, 0.05, 4.0), "Tee, Run-through, flanged, (r/D = 1)"),
             Fitting::GateValve => (ThreeK(300.0, 0.037, 3.9), "Valve, Gate valve, standard, β = 1"),

@@ -101,10 +101,7 @@ pub fn judge(line: &Line, p: &Point) -> (Vec<Check>, Option<Limit>) {
             headroom: (p.velocity.value - v.value) / v.value,
         });
     }
-    let binding = checks
-        .iter()
-        .min_by(|a, b| a.headroom.total_cmp(&b.headroom))
-        .map(|c| c.limit);
+    let binding = checks.iter().min_by(|a, b| a.headroom.total_cmp(&b.headroom)).map(|c| c.limit);
     (checks, binding)
 }
 
@@ -120,12 +117,8 @@ fn candidate(line: &Line, props: &Properties, nominal: &'static str, bore: Lengt
 /// A [`LineError`] for input the core cannot work with.
 pub fn size(line: &Line) -> Result<Sizing, LineError> {
     let props = line.validate()?;
-    let candidates: Vec<Candidate> = line
-        .pipe
-        .bores()
-        .into_iter()
-        .map(|(n, d)| candidate(line, &props, n, d))
-        .collect();
+    let candidates: Vec<Candidate> =
+        line.pipe.bores().into_iter().map(|(n, d)| candidate(line, &props, n, d)).collect();
     let finite = candidates.iter().all(|c| {
         let p = &c.point;
         [p.velocity.value, p.reynolds, p.friction_factor, p.drop_per_length.value, p.total_drop.value, p.sum_k]
@@ -153,12 +146,7 @@ pub fn size(line: &Line) -> Result<Sizing, LineError> {
 /// A [`LineError`] for bad input; `Ok(None)` when the series has no such size.
 pub fn check(line: &Line, nominal: &str) -> Result<Option<Candidate>, LineError> {
     let props = line.validate()?;
-    Ok(line
-        .pipe
-        .bores()
-        .into_iter()
-        .find(|(n, _)| *n == nominal)
-        .map(|(n, d)| candidate(line, &props, n, d)))
+    Ok(line.pipe.bores().into_iter().find(|(n, _)| *n == nominal).map(|(n, d)| candidate(line, &props, n, d)))
 }
 
 /// The largest flow a bore can carry within the line's maximum limits.
@@ -292,18 +280,109 @@ pub fn trace(line: &Line, props: &Properties, c: &Candidate) -> Vec<Step> {
         ),
     };
     vec![
-        Step { symbol: "ρ", name: "density", formula: "fluid property at T, p", value: props.density.value, unit: "kg/m³", source: fluid_source },
-        Step { symbol: "μ", name: "dynamic viscosity", formula: "fluid property at T, p", value: props.viscosity.value, unit: "Pa·s", source: fluid_source },
-        Step { symbol: "D", name: "inside diameter", formula: "D = OD − 2t", value: p.bore.value, unit: "m", source: "the pipe standard's table" },
-        Step { symbol: "V", name: "mean velocity", formula: "V = Q / (π D² / 4)", value: p.velocity.value, unit: "m/s", source: "continuity" },
-        Step { symbol: "Re", name: "Reynolds number", formula: "Re = ρ V D / μ", value: p.reynolds, unit: "", source: "Reynolds (1883)" },
-        Step { symbol: "ε/D", name: "relative roughness", formula: "ε / D", value: p.relative_roughness, unit: "", source: "roughness of the material" },
-        Step { symbol: "f", name: "Darcy friction factor", formula: f_formula, value: p.friction_factor, unit: "", source: f_source },
-        Step { symbol: "Δp/L", name: "friction drop per length", formula: "Δp/L = f ρ V² / (2 D)", value: p.drop_per_length.value, unit: "Pa/m", source: "Darcy–Weisbach" },
-        Step { symbol: "Δp_f", name: "friction drop", formula: "(Δp/L) · (L + L_eq)", value: p.friction_drop.value, unit: "Pa", source: "Darcy–Weisbach" },
-        Step { symbol: "ΣK", name: "fittings", formula: "Σ n (K1/Re + Ki (1 + Kd/D^0.3)) + K_extra", value: p.sum_k, unit: "", source: "Darby (2001) 3-K method" },
-        Step { symbol: "Δp_K", name: "fittings drop", formula: "ΣK ρ V² / 2", value: p.fittings_drop.value, unit: "Pa", source: "velocity-head method" },
-        Step { symbol: "Δp_z", name: "static (rise)", formula: "ρ g Δz, g = 9.80665 m/s²", value: p.static_drop.value, unit: "Pa", source: "hydrostatics" },
-        Step { symbol: "Δp", name: "total drop", formula: "Δp_f + Δp_K + Δp_z", value: p.total_drop.value, unit: "Pa", source: "sum" },
+        Step {
+            symbol: "ρ",
+            name: "density",
+            formula: "fluid property at T, p",
+            value: props.density.value,
+            unit: "kg/m³",
+            source: fluid_source,
+        },
+        Step {
+            symbol: "μ",
+            name: "dynamic viscosity",
+            formula: "fluid property at T, p",
+            value: props.viscosity.value,
+            unit: "Pa·s",
+            source: fluid_source,
+        },
+        Step {
+            symbol: "D",
+            name: "inside diameter",
+            formula: "D = OD − 2t",
+            value: p.bore.value,
+            unit: "m",
+            source: "the pipe standard's table",
+        },
+        Step {
+            symbol: "V",
+            name: "mean velocity",
+            formula: "V = Q / (π D² / 4)",
+            value: p.velocity.value,
+            unit: "m/s",
+            source: "continuity",
+        },
+        Step {
+            symbol: "Re",
+            name: "Reynolds number",
+            formula: "Re = ρ V D / μ",
+            value: p.reynolds,
+            unit: "",
+            source: "Reynolds (1883)",
+        },
+        Step {
+            symbol: "ε/D",
+            name: "relative roughness",
+            formula: "ε / D",
+            value: p.relative_roughness,
+            unit: "",
+            source: "roughness of the material",
+        },
+        Step {
+            symbol: "f",
+            name: "Darcy friction factor",
+            formula: f_formula,
+            value: p.friction_factor,
+            unit: "",
+            source: f_source,
+        },
+        Step {
+            symbol: "Δp/L",
+            name: "friction drop per length",
+            formula: "Δp/L = f ρ V² / (2 D)",
+            value: p.drop_per_length.value,
+            unit: "Pa/m",
+            source: "Darcy–Weisbach",
+        },
+        Step {
+            symbol: "Δp_f",
+            name: "friction drop",
+            formula: "(Δp/L) · (L + L_eq)",
+            value: p.friction_drop.value,
+            unit: "Pa",
+            source: "Darcy–Weisbach",
+        },
+        Step {
+            symbol: "ΣK",
+            name: "fittings",
+            formula: "Σ n (K1/Re + Ki (1 + Kd/D^0.3)) + K_extra",
+            value: p.sum_k,
+            unit: "",
+            source: "Darby (2001) 3-K method",
+        },
+        Step {
+            symbol: "Δp_K",
+            name: "fittings drop",
+            formula: "ΣK ρ V² / 2",
+            value: p.fittings_drop.value,
+            unit: "Pa",
+            source: "velocity-head method",
+        },
+        Step {
+            symbol: "Δp_z",
+            name: "static (rise)",
+            formula: "ρ g Δz, g = 9.80665 m/s²",
+            value: p.static_drop.value,
+            unit: "Pa",
+            source: "hydrostatics",
+        },
+        Step {
+            symbol: "Δp",
+            name: "total drop",
+            formula: "Δp_f + Δp_K + Δp_z",
+            value: p.total_drop.value,
+            unit: "Pa",
+            source: "sum",
+        },
     ]
 }

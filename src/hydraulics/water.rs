@@ -18,8 +18,8 @@
 //! We accept 0–150 °C (heating water is often pressurised above 100 °C) and
 //! refuse a state where the water would boil at the stated pressure.
 
-use uom::si::f64::{DynamicViscosity, MassDensity, Pressure, ThermodynamicTemperature};
 use uom::si::dynamic_viscosity::pascal_second;
+use uom::si::f64::{DynamicViscosity, MassDensity, Pressure, ThermodynamicTemperature};
 use uom::si::mass_density::kilogram_per_cubic_meter;
 use uom::si::pressure::pascal;
 use uom::si::thermodynamic_temperature::kelvin;
@@ -72,10 +72,8 @@ const REGION1: [(i32, i32, f64); 34] = [
 pub fn if97_region1_specific_volume(t_k: f64, p_pa: f64) -> f64 {
     let pi = p_pa / 16.53e6;
     let tau = 1386.0 / t_k;
-    let gamma_pi: f64 = REGION1
-        .iter()
-        .map(|&(i, j, n)| -n * i as f64 * (7.1 - pi).powi(i - 1) * (tau - 1.222).powi(j))
-        .sum();
+    let gamma_pi: f64 =
+        REGION1.iter().map(|&(i, j, n)| -n * i as f64 * (7.1 - pi).powi(i - 1) * (tau - 1.222).powi(j)).sum();
     R * t_k / p_pa * pi * gamma_pi
 }
 
@@ -178,11 +176,9 @@ mod tests {
     #[test]
     fn if97_table5_region1_specific_volume() {
         // IAPWS-IF97 (2007 revision), table 5, v in m³/kg.
-        for (t, p_mpa, v) in [
-            (300.0, 3.0, 0.100_215_168e-2),
-            (300.0, 80.0, 0.971_180_894e-3),
-            (500.0, 3.0, 0.120_241_800e-2),
-        ] {
+        for (t, p_mpa, v) in
+            [(300.0, 3.0, 0.100_215_168e-2), (300.0, 80.0, 0.971_180_894e-3), (500.0, 3.0, 0.120_241_800e-2)]
+        {
             let got = if97_region1_specific_volume(t, p_mpa * 1e6);
             assert!(close(got, v, 5e-9), "T {t} p {p_mpa}: {got} vs {v}");
         }
@@ -224,10 +220,7 @@ mod tests {
         use uom::si::pressure::kilopascal;
         use uom::si::thermodynamic_temperature::degree_celsius;
         // At 120 °C water boils below about 198.5 kPa.
-        let e = properties(
-            ThermodynamicTemperature::new::<degree_celsius>(120.0),
-            Pressure::new::<kilopascal>(150.0),
-        );
+        let e = properties(ThermodynamicTemperature::new::<degree_celsius>(120.0), Pressure::new::<kilopascal>(150.0));
         assert!(matches!(e, Err(FluidError::Boils { .. })), "{e:?}");
     }
 }

@@ -184,10 +184,8 @@ impl UnitChoice {
         let mut u = Units::defaults(self.system);
         let pick = |slot: &mut &'static Unit, choice: &Option<String>, d: Dimension, field: &'static str| {
             if let Some(text) = choice {
-                *slot = units::find(d, text).ok_or_else(|| FieldError {
-                    field,
-                    message: format!("'{text}' is not a unit of {field}"),
-                })?;
+                *slot = units::find(d, text)
+                    .ok_or_else(|| FieldError { field, message: format!("'{text}' is not a unit of {field}") })?;
             }
             Ok::<(), FieldError>(())
         };
@@ -737,22 +735,20 @@ impl LineFile {
         };
         // Properties first: mass flows and heads need the density.
         let props = match (fluid, temperature, pressure) {
-            (Some(f), Some(t), Some(p)) => match f.properties(
-                ThermodynamicTemperature::new::<kelvin>(t),
-                Pressure::new::<pascal>(p),
-            ) {
-                Ok(props) => Some(props),
-                Err(err) => {
-                    e.push(FieldError { field: "fluid", message: err.to_string() });
-                    None
+            (Some(f), Some(t), Some(p)) => {
+                match f.properties(ThermodynamicTemperature::new::<kelvin>(t), Pressure::new::<pascal>(p)) {
+                    Ok(props) => Some(props),
+                    Err(err) => {
+                        e.push(FieldError { field: "fluid", message: err.to_string() });
+                        None
+                    }
                 }
-            },
+            }
             _ => None,
         };
         let rho = props.map(|p| p.density_kg_m3());
-        let needs_rho = |text: &str, dim, unit| {
-            units::parse(dim, text, unit).map(|m| m.needs_density()).unwrap_or(false)
-        };
+        let needs_rho =
+            |text: &str, dim, unit| units::parse(dim, text, unit).map(|m| m.needs_density()).unwrap_or(false);
         let flow = if rho.is_none() && needs_rho(&self.flow, Dimension::Flow, units.flow) {
             None // the fluid error is already reported
         } else {
@@ -762,12 +758,22 @@ impl LineFile {
             PipeFile::Series(id) => match pipes::series(id) {
                 Some(s) => (Some(Pipe::Series(s)), Some(s.material)),
                 None => {
-                    e.push(FieldError { field: "pipe.series", message: format!("'{id}' is not a pipe series Headroom knows") });
+                    e.push(FieldError {
+                        field: "pipe.series",
+                        message: format!("'{id}' is not a pipe series Headroom knows"),
+                    });
                     (None, None)
                 }
             },
             PipeFile::Bore { diameter, material } => {
-                let d = measure(e, "pipe.diameter", diameter, Dimension::Length, units::find(Dimension::Length, "mm").unwrap(), None);
+                let d = measure(
+                    e,
+                    "pipe.diameter",
+                    diameter,
+                    Dimension::Length,
+                    units::find(Dimension::Length, "mm").unwrap(),
+                    None,
+                );
                 let m = material_from_id(material);
                 if m.is_none() {
                     e.push(FieldError {
@@ -806,40 +812,83 @@ impl LineFile {
             match (Fitting::from_id(&fc.fitting), n) {
                 (Some(f), Some(n)) => counts.push((f, n)),
                 (Some(_), None) => {}
-                (None, _) => e.push(FieldError { field: "fittings", message: format!("'{}' is not a fitting Headroom knows", fc.fitting) }),
+                (None, _) => e.push(FieldError {
+                    field: "fittings",
+                    message: format!("'{}' is not a fitting Headroom knows", fc.fitting),
+                }),
             }
         }
         let extra_k = match self.extra_k.as_deref().map(str::trim) {
             None | Some("") => Some(0.0),
             Some(t) => plain_number(e, "extra_k", t),
         };
-        let equivalent_length = optional(e, "equivalent_length", &self.equivalent_length, Dimension::Length, units.length, None);
+        let equivalent_length =
+            optional(e, "equivalent_length", &self.equivalent_length, Dimension::Length, units.length, None);
         let rise = optional(e, "rise", &self.rise, Dimension::Length, units.length, None).unwrap_or(0.0);
         let method = match self.method {
             MethodName::DarcyWeisbach => Some(Method::DarcyWeisbach),
             MethodName::HazenWilliams => match (self.hazen_williams_c.as_deref().map(str::trim), material) {
-                (Some(t), _) if !t.is_empty() => plain_number(e, "hazen_williams_c", t).map(|c| Method::HazenWilliams { c }),
+                (Some(t), _) if !t.is_empty() => {
+                    plain_number(e, "hazen_williams_c", t).map(|c| Method::HazenWilliams { c })
+                }
                 (_, Some(m)) => Some(Method::HazenWilliams { c: m.hazen_williams_c().0 }),
                 _ => None,
             },
         };
         let lim = &self.limits;
         let limits = Limits {
-            max_drop_per_length: optional(e, "limits.max_drop_per_length", &lim.max_drop_per_length, Dimension::DropPerLength, units.drop_per_length, rho).map(pa_per_m),
-            max_total_drop: optional(e, "limits.max_total_drop", &lim.max_total_drop, Dimension::Pressure, units.pressure, rho).map(Pressure::new::<pascal>),
-            max_velocity: optional(e, "limits.max_velocity", &lim.max_velocity, Dimension::Velocity, units.velocity, None).map(Velocity::new::<meter_per_second>),
-            min_velocity: optional(e, "limits.min_velocity", &lim.min_velocity, Dimension::Velocity, units.velocity, None).map(Velocity::new::<meter_per_second>),
+            max_drop_per_length: optional(
+                e,
+                "limits.max_drop_per_length",
+                &lim.max_drop_per_length,
+                Dimension::DropPerLength,
+                units.drop_per_length,
+                rho,
+            )
+            .map(pa_per_m),
+            max_total_drop: optional(
+                e,
+                "limits.max_total_drop",
+                &lim.max_total_drop,
+                Dimension::Pressure,
+                units.pressure,
+                rho,
+            )
+            .map(Pressure::new::<pascal>),
+            max_velocity: optional(
+                e,
+                "limits.max_velocity",
+                &lim.max_velocity,
+                Dimension::Velocity,
+                units.velocity,
+                None,
+            )
+            .map(Velocity::new::<meter_per_second>),
+            min_velocity: optional(
+                e,
+                "limits.min_velocity",
+                &lim.min_velocity,
+                Dimension::Velocity,
+                units.velocity,
+                None,
+            )
+            .map(Velocity::new::<meter_per_second>),
         };
         if let (Some(lo), Some(hi)) = (limits.min_velocity, limits.max_velocity) {
             if lo >= hi {
-                e.push(FieldError { field: "limits.min_velocity", message: "minimum velocity must be below the maximum".into() });
+                e.push(FieldError {
+                    field: "limits.min_velocity",
+                    message: "minimum velocity must be below the maximum".into(),
+                });
             }
         }
         if limits == Limits::default() {
             e.push(FieldError { field: "limits", message: "set at least one limit to size against".into() });
         }
         match (flow, fluid, temperature, pressure, pipe, roughness, length, extra_k, method) {
-            (Some(q), Some(fluid), Some(t), Some(p), Some(pipe), Some(r), Some(l), Some(k), Some(method)) if errors.is_empty() => {
+            (Some(q), Some(fluid), Some(t), Some(p), Some(pipe), Some(r), Some(l), Some(k), Some(method))
+                if errors.is_empty() =>
+            {
                 let line = Line {
                     flow: VolumeRate::new::<cubic_meter_per_second>(q),
                     fluid,

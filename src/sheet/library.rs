@@ -148,7 +148,11 @@ pub struct Library<K: Kv> {
 /// "Untitled worksheet".
 pub fn display_name(project: &str) -> String {
     let n = project.trim();
-    if n.is_empty() { "Untitled worksheet".to_owned() } else { n.to_owned() }
+    if n.is_empty() {
+        "Untitled worksheet".to_owned()
+    } else {
+        n.to_owned()
+    }
 }
 
 /// The project name in stored text, read loosely (any version, damaged
@@ -200,11 +204,7 @@ impl<K: Kv> Library<K> {
     /// Run at start and whenever another tab changed the index, since two
     /// tabs writing it at once can each drop the other's entry.
     pub fn reconcile(&self) -> Vec<Entry> {
-        let listed: Vec<Entry> = self
-            .kv
-            .get(INDEX_KEY)
-            .and_then(|t| serde_json::from_str(&t).ok())
-            .unwrap_or_default();
+        let listed: Vec<Entry> = self.kv.get(INDEX_KEY).and_then(|t| serde_json::from_str(&t).ok()).unwrap_or_default();
         let mut stored: Vec<String> =
             self.kv.keys().into_iter().filter_map(|k| k.strip_prefix(SHEET_PREFIX).map(str::to_owned)).collect();
         stored.sort();
@@ -287,7 +287,13 @@ impl<K: Kv> Library<K> {
     /// # Errors
     /// [`Problem::Conflict`] when another writer saved a newer revision
     /// (nothing is written); [`Problem::NotSaved`] when the store refuses.
-    pub fn save(&self, id: &str, sheet: &SheetFile, updated: &str, based_on: u64) -> Result<(Vec<Entry>, u64), Problem> {
+    pub fn save(
+        &self,
+        id: &str,
+        sheet: &SheetFile,
+        updated: &str,
+        based_on: u64,
+    ) -> Result<(Vec<Entry>, u64), Problem> {
         if self.revision(id) != based_on {
             return Err(Problem::Conflict { id: id.to_owned() });
         }
@@ -372,7 +378,8 @@ impl<K: Kv> Library<K> {
     /// Empties every worksheet deleted before `cutoff` (same clock and form
     /// as the `deleted` stamps); returns how many went.
     pub fn purge_before(&self, cutoff: &str) -> usize {
-        let old: Vec<String> = self.trash().into_iter().filter(|t| t.deleted.as_str() < cutoff).map(|t| t.entry.id).collect();
+        let old: Vec<String> =
+            self.trash().into_iter().filter(|t| t.deleted.as_str() < cutoff).map(|t| t.entry.id).collect();
         for id in &old {
             self.purge(id);
         }
@@ -552,7 +559,9 @@ mod tests {
         let lib = Library::new(MemoryKv::default());
         lib.save("a", &sheet("Kept"), "t", 0).unwrap();
         lib.save("b", &sheet("Lost from the index"), "t", 0).unwrap();
-        lib.kv().set(INDEX_KEY, r#"[{"id":"a","name":"Kept","updated":"t"},{"id":"gone","name":"Deleted","updated":""}]"#).unwrap();
+        lib.kv()
+            .set(INDEX_KEY, r#"[{"id":"a","name":"Kept","updated":"t"},{"id":"gone","name":"Deleted","updated":""}]"#)
+            .unwrap();
         let list = lib.reconcile();
         assert_eq!(list.iter().map(|e| e.id.as_str()).collect::<Vec<_>>(), ["a", "b"]);
         assert_eq!(list[1].name, "Lost from the index");

@@ -46,11 +46,19 @@ impl std::fmt::Display for LinkError {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
         match self {
             LinkError::NotALink => write!(f, "this link does not hold a Headroom worksheet"),
-            LinkError::NewerVersion(v) => write!(f, "this link was made by a newer Headroom (format {v}); update Headroom to open it"),
-            LinkError::TooLong(n) => write!(f, "this link is {n} characters long, more than the {MAX_LINK_CHARS} a worksheet link may be"),
+            LinkError::NewerVersion(v) => {
+                write!(f, "this link was made by a newer Headroom (format {v}); update Headroom to open it")
+            }
+            LinkError::TooLong(n) => {
+                write!(f, "this link is {n} characters long, more than the {MAX_LINK_CHARS} a worksheet link may be")
+            }
             LinkError::Damaged => write!(f, "this link is damaged or cut short: ask for it to be sent again"),
             LinkError::BadData => write!(f, "this link's worksheet is damaged"),
-            LinkError::TooBig => write!(f, "this link's worksheet unpacks to more than {} MiB, too large to open safely", MAX_INFLATED_BYTES >> 20),
+            LinkError::TooBig => write!(
+                f,
+                "this link's worksheet unpacks to more than {} MiB, too large to open safely",
+                MAX_INFLATED_BYTES >> 20
+            ),
             LinkError::Sheet(e) => write!(f, "the worksheet in this link cannot be read: {e}"),
         }
     }
@@ -68,7 +76,9 @@ pub fn encode(sheet: &SheetFile) -> String {
 /// Whether a fragment looks like a worksheet link at all (any version).
 pub fn is_link(fragment: &str) -> bool {
     let f = fragment.trim_start_matches('#');
-    f.len() > 2 && f.starts_with('h') && f[1..].split('.').next().is_some_and(|v| !v.is_empty() && v.chars().all(|c| c.is_ascii_digit()))
+    f.len() > 2
+        && f.starts_with('h')
+        && f[1..].split('.').next().is_some_and(|v| !v.is_empty() && v.chars().all(|c| c.is_ascii_digit()))
 }
 
 /// Reads a sheet from a fragment (with or without the leading `#`).
@@ -90,7 +100,11 @@ pub fn decode(fragment: &str) -> Result<SheetFile, LinkError> {
     };
     let packed = URL_SAFE_NO_PAD.decode(body.as_bytes()).map_err(|_| LinkError::Damaged)?;
     let json = miniz_oxide::inflate::decompress_to_vec_with_limit(&packed, MAX_INFLATED_BYTES).map_err(|e| {
-        if e.status == miniz_oxide::inflate::TINFLStatus::HasMoreOutput { LinkError::TooBig } else { LinkError::BadData }
+        if e.status == miniz_oxide::inflate::TINFLStatus::HasMoreOutput {
+            LinkError::TooBig
+        } else {
+            LinkError::BadData
+        }
     })?;
     let text = String::from_utf8(json).map_err(|_| LinkError::BadData)?;
     SheetFile::from_json(&text).map_err(LinkError::Sheet)

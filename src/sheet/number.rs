@@ -61,9 +61,7 @@ pub fn parse_decimal(text: &str) -> Result<f64, NumberError> {
         .collect();
     // Only digits, one point, a sign and an exponent: this refuses "inf",
     // "nan" and hex-looking input that `f64::from_str` would take.
-    let allowed = normalised
-        .chars()
-        .all(|c| c.is_ascii_digit() || matches!(c, '.' | '-' | '+' | 'e' | 'E'));
+    let allowed = normalised.chars().all(|c| c.is_ascii_digit() || matches!(c, '.' | '-' | '+' | 'e' | 'E'));
     match normalised.parse::<f64>() {
         Ok(v) if allowed && v.is_infinite() => Err(NumberError::TooLarge(trimmed.to_owned())),
         Ok(v) if allowed && v == 0.0 && mantissa_has_nonzero_digit(&normalised) => {

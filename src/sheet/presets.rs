@@ -26,10 +26,42 @@ pub struct Service {
 
 /// The services offered, in picker order.
 pub const SERVICES: &[Service] = &[
-    Service { id: "chilled", label: "Chilled water", temperature_c: "7", pressure_kpa: "300", series: "steel-sch40", max_drop_pa_m: "400", max_velocity_m_s: "2.4" },
-    Service { id: "heating", label: "Heating water", temperature_c: "80", pressure_kpa: "300", series: "steel-sch40", max_drop_pa_m: "300", max_velocity_m_s: "2.0" },
-    Service { id: "domestic-cold", label: "Domestic cold water", temperature_c: "12", pressure_kpa: "400", series: "copper-l", max_drop_pa_m: "600", max_velocity_m_s: "2.0" },
-    Service { id: "process", label: "Process water", temperature_c: "20", pressure_kpa: "500", series: "stainless-10s", max_drop_pa_m: "500", max_velocity_m_s: "3.0" },
+    Service {
+        id: "chilled",
+        label: "Chilled water",
+        temperature_c: "7",
+        pressure_kpa: "300",
+        series: "steel-sch40",
+        max_drop_pa_m: "400",
+        max_velocity_m_s: "2.4",
+    },
+    Service {
+        id: "heating",
+        label: "Heating water",
+        temperature_c: "80",
+        pressure_kpa: "300",
+        series: "steel-sch40",
+        max_drop_pa_m: "300",
+        max_velocity_m_s: "2.0",
+    },
+    Service {
+        id: "domestic-cold",
+        label: "Domestic cold water",
+        temperature_c: "12",
+        pressure_kpa: "400",
+        series: "copper-l",
+        max_drop_pa_m: "600",
+        max_velocity_m_s: "2.0",
+    },
+    Service {
+        id: "process",
+        label: "Process water",
+        temperature_c: "20",
+        pressure_kpa: "500",
+        series: "stainless-10s",
+        max_drop_pa_m: "500",
+        max_velocity_m_s: "3.0",
+    },
 ];
 
 impl Service {

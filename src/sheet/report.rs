@@ -110,7 +110,17 @@ fn figures(o: &Outcome, c: &Candidate, u: &Units) -> [String; 9] {
 pub fn table(sheet: &SheetFile, reports: &[LineReport]) -> String {
     let u = sheet.units();
     let mut rows: Vec<[String; 11]> = vec![[
-        "#", "line", "size", "bore", "velocity", "drop/length", "total drop", "Re", "f", "binding limit", "headroom",
+        "#",
+        "line",
+        "size",
+        "bore",
+        "velocity",
+        "drop/length",
+        "total drop",
+        "Re",
+        "f",
+        "binding limit",
+        "headroom",
     ]
     .map(String::from)];
     let mut notes = Vec::new();
@@ -125,19 +135,39 @@ pub fn table(sheet: &SheetFile, reports: &[LineReport]) -> String {
                         size.push_str(if c.passes() { " (checked)" } else { " (checked: FAILS)" });
                     }
                     rows.push([
-                        r.number.to_string(), r.name.clone(), size, f[1].clone(), f[2].clone(), f[3].clone(),
-                        f[4].clone(), f[5].clone(), f[6].clone(), f[7].clone(), f[8].clone(),
+                        r.number.to_string(),
+                        r.name.clone(),
+                        size,
+                        f[1].clone(),
+                        f[2].clone(),
+                        f[3].clone(),
+                        f[4].clone(),
+                        f[5].clone(),
+                        f[6].clone(),
+                        f[7].clone(),
+                        f[8].clone(),
                     ]);
                     if c.uncertain() {
-                        notes.push(format!("line {}: flow is in the transition zone; the friction factor is uncertain", r.number));
+                        notes.push(format!(
+                            "line {}: flow is in the transition zone; the friction factor is uncertain",
+                            r.number
+                        ));
                     }
                 }
                 None => {
                     let fails: Vec<&str> = o.sizing.failing_at_largest.iter().map(|l| l.name()).collect();
                     rows.push([
-                        r.number.to_string(), r.name.clone(), "NO SIZE".into(), String::new(), String::new(),
-                        String::new(), String::new(), String::new(), String::new(),
-                        format!("largest size fails {}", fails.join(", ")), String::new(),
+                        r.number.to_string(),
+                        r.name.clone(),
+                        "NO SIZE".into(),
+                        String::new(),
+                        String::new(),
+                        String::new(),
+                        String::new(),
+                        String::new(),
+                        String::new(),
+                        format!("largest size fails {}", fails.join(", ")),
+                        String::new(),
                     ]);
                 }
             },
@@ -145,7 +175,19 @@ pub fn table(sheet: &SheetFile, reports: &[LineReport]) -> String {
                 for e in errs {
                     notes.push(format!("line {} ({}): {e}", r.number, r.name));
                 }
-                rows.push([r.number.to_string(), r.name.clone(), "ERROR".into(), String::new(), String::new(), String::new(), String::new(), String::new(), String::new(), "see below".into(), String::new()]);
+                rows.push([
+                    r.number.to_string(),
+                    r.name.clone(),
+                    "ERROR".into(),
+                    String::new(),
+                    String::new(),
+                    String::new(),
+                    String::new(),
+                    String::new(),
+                    String::new(),
+                    "see below".into(),
+                    String::new(),
+                ]);
             }
         }
         if let Ok(o) = &r.outcome {
@@ -175,7 +217,11 @@ fn csv_field(s: &str) -> String {
     // Quote everything that could split a field, and defuse leading
     // characters that spreadsheets would run as a formula (OWASP, "CSV
     // Injection": =, +, -, @, tab and carriage return).
-    let s = if s.starts_with(['=', '+', '-', '@', '\t', '\r']) && s.parse::<f64>().is_err() { format!("'{s}") } else { s.to_owned() };
+    let s = if s.starts_with(['=', '+', '-', '@', '\t', '\r']) && s.parse::<f64>().is_err() {
+        format!("'{s}")
+    } else {
+        s.to_owned()
+    };
     if s.contains([',', '"', '\n', '\r', '\t']) {
         format!("\"{}\"", s.replace('"', "\"\""))
     } else {
@@ -205,7 +251,11 @@ pub fn csv(sheet: &SheetFile, reports: &[LineReport]) -> String {
                         (true, false) => "checked: fails limits",
                     };
                     let bore_mm = p.bore.value * 1e3;
-                    let headroom = c.binding.and_then(|b| c.checks.iter().find(|k| k.limit == b)).map(|k| format!("{:.1}", k.headroom * 100.0)).unwrap_or_default();
+                    let headroom = c
+                        .binding
+                        .and_then(|b| c.checks.iter().find(|k| k.limit == b))
+                        .map(|k| format!("{:.1}", k.headroom * 100.0))
+                        .unwrap_or_default();
                     out.push_str(&format!(
                         "{},{name},{status},{},{} mm,{},{},{},{},{},{},{},{headroom},{}\n",
                         r.number,
@@ -223,7 +273,11 @@ pub fn csv(sheet: &SheetFile, reports: &[LineReport]) -> String {
                 }
                 None => {
                     let fails: Vec<&str> = o.sizing.failing_at_largest.iter().map(|l| l.name()).collect();
-                    out.push_str(&format!("{},{name},no size meets the limits,,,,,,,,,,,{}\n", r.number, csv_field(&format!("largest size fails {}", fails.join(", ")))));
+                    out.push_str(&format!(
+                        "{},{name},no size meets the limits,,,,,,,,,,,{}\n",
+                        r.number,
+                        csv_field(&format!("largest size fails {}", fails.join(", ")))
+                    ));
                 }
             },
             Err(errs) => {

@@ -188,10 +188,9 @@ impl fmt::Display for UnitError {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         match self {
             UnitError::Number(e) => write!(f, "{e}"),
-            UnitError::AmbiguousComma(t) => write!(
-                f,
-                "'{t}' is ambiguous: write it without the comma for thousands, or with a point for decimals"
-            ),
+            UnitError::AmbiguousComma(t) => {
+                write!(f, "'{t}' is ambiguous: write it without the comma for thousands, or with a point for decimals")
+            }
             UnitError::UnknownUnit { dimension, unit } => {
                 let list: Vec<&str> = of(*dimension).map(|u| u.symbol).collect();
                 write!(f, "'{unit}' is not a unit of {}; use one of {}", dimension.name(), list.join(", "))
@@ -311,8 +310,7 @@ pub fn parse(dimension: Dimension, text: &str, default: &'static Unit) -> Result
     let unit = if unit_text.is_empty() {
         default
     } else {
-        find(dimension, unit_text)
-            .ok_or_else(|| UnitError::UnknownUnit { dimension, unit: unit_text.to_owned() })?
+        find(dimension, unit_text).ok_or_else(|| UnitError::UnknownUnit { dimension, unit: unit_text.to_owned() })?
     };
     Ok(Measure { value, unit })
 }
@@ -430,4 +428,3 @@ mod tests {
         assert_eq!(format_number(0.012345, 3), "0.0123");
     }
 }
-

@@ -7,8 +7,8 @@ use super::state::{Sheet, Slot};
 use crate::hydraulics::losses::Fitting;
 use crate::hydraulics::pipes::{self, Material, SERIES};
 use crate::sheet::file::{FittingCount, FluidFile, GlycolName, LineFile, MethodName, PipeFile};
-use crate::sheet::presets::{Service, SERVICES};
 use crate::sheet::number::parse_count;
+use crate::sheet::presets::{Service, SERVICES};
 use crate::sheet::units::{self, Dimension};
 
 fn material_of(f: &LineFile) -> Option<Material> {
@@ -42,11 +42,13 @@ pub fn LineEditor(
     let opt = |o: &Option<String>| o.clone().unwrap_or_default();
     let some = |s: String| if s.trim().is_empty() { None } else { Some(s) };
 
-    let fluid_kind = move || file.with(|f| match f.fluid {
-        FluidFile::Water { .. } => "water",
-        FluidFile::Glycol { .. } => "glycol",
-        FluidFile::Custom { .. } => "custom",
-    });
+    let fluid_kind = move || {
+        file.with(|f| match f.fluid {
+            FluidFile::Water { .. } => "water",
+            FluidFile::Glycol { .. } => "glycol",
+            FluidFile::Custom { .. } => "custom",
+        })
+    };
     let set_fluid_kind = move |kind: String| {
         file.update(|f| {
             let t = match &f.fluid {
@@ -55,15 +57,21 @@ pub fn LineEditor(
             };
             f.fluid = match kind.as_str() {
                 "glycol" => FluidFile::Glycol { glycol: GlycolName::Propylene, percent: "30".into(), temperature: t },
-                "custom" => FluidFile::Custom { density_kg_m3: "1000".into(), viscosity_mpa_s: Some("1.0".into()), kinematic_viscosity_mm2_s: None },
+                "custom" => FluidFile::Custom {
+                    density_kg_m3: "1000".into(),
+                    viscosity_mpa_s: Some("1.0".into()),
+                    kinematic_viscosity_mm2_s: None,
+                },
                 _ => FluidFile::Water { temperature: t, pressure: Some("300 kPa".into()) },
             };
         })
     };
-    let series_value = move || file.with(|f| match &f.pipe {
-        PipeFile::Series(id) => id.clone(),
-        PipeFile::Bore { .. } => "custom".to_owned(),
-    });
+    let series_value = move || {
+        file.with(|f| match &f.pipe {
+            PipeFile::Series(id) => id.clone(),
+            PipeFile::Bore { .. } => "custom".to_owned(),
+        })
+    };
     let set_series = move |v: String| {
         file.update(|f| {
             f.check_size = None;
@@ -90,7 +98,9 @@ pub fn LineEditor(
     let has_aged = move || file.with(|f| material_of(f).and_then(|m| m.roughness().aged_mm).is_some());
     let is_hw = move || file.with(|f| f.method == MethodName::HazenWilliams);
     let hw_hint = Signal::derive(move || {
-        file.with(|f| material_of(f).map(|m| format!("default {} for {}", m.hazen_williams_c().0, m.name())).unwrap_or_default())
+        file.with(|f| {
+            material_of(f).map(|m| format!("default {} for {}", m.hazen_williams_c().0, m.name())).unwrap_or_default()
+        })
     });
     let apply_service = move |id: String| {
         if let Some(s) = Service::by_id(&id) {
@@ -286,10 +296,12 @@ fn FittingList(
     let file = line.file;
     // Keyed by list length, position and kind (not count), so typing a
     // count keeps focus and removing a row re-draws the rows after it.
-    let rows = move || file.with(|f| {
-        let n = f.fittings.len();
-        f.fittings.iter().cloned().enumerate().map(|(i, fc)| (n, i, fc)).collect::<Vec<_>>()
-    });
+    let rows = move || {
+        file.with(|f| {
+            let n = f.fittings.len();
+            f.fittings.iter().cloned().enumerate().map(|(i, fc)| (n, i, fc)).collect::<Vec<_>>()
+        })
+    };
     view! {
         <div class="fittings" data-testid="fittings">
             <span class="label">"Fittings and valves (3-K method, Darby 2001)"</span>

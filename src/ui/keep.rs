@@ -41,7 +41,11 @@ impl Kv for WebKv {
         let s = self.0.as_ref().ok_or(StoreError::Unavailable)?;
         s.set_item(key, value).map_err(|e| {
             let name = js_sys::Reflect::get(&e, &"name".into()).ok().and_then(|n| n.as_string()).unwrap_or_default();
-            if name.contains("Quota") { StoreError::Full } else { StoreError::Unavailable }
+            if name.contains("Quota") {
+                StoreError::Full
+            } else {
+                StoreError::Unavailable
+            }
         })
     }
 
@@ -467,7 +471,8 @@ impl Keeper {
                 } else if theirs.is_some() {
                     // Nothing of this tab's would be lost: follow the other tab.
                     self.load(&current);
-                    self.notices.say("This worksheet was changed in another tab or window; this tab now shows those changes.");
+                    self.notices
+                        .say("This worksheet was changed in another tab or window; this tab now shows those changes.");
                 } else {
                     self.notices.say("This worksheet was deleted in another tab or window. It is still shown here: keep it as a new worksheet to store it again.");
                     self.halted.set(Some(Halt::OtherTab));
@@ -576,10 +581,11 @@ pub fn download(name: &str, mime: &str, text: &str) {
 
 /// A file name from a project name: letters, digits and dashes only.
 pub fn file_stem(project: &str) -> String {
-    let s: String = project
-        .chars()
-        .map(|c| if c.is_alphanumeric() { c.to_ascii_lowercase() } else { '-' })
-        .collect();
+    let s: String = project.chars().map(|c| if c.is_alphanumeric() { c.to_ascii_lowercase() } else { '-' }).collect();
     let s = s.split('-').filter(|p| !p.is_empty()).collect::<Vec<_>>().join("-");
-    if s.is_empty() { "worksheet".to_owned() } else { s.chars().take(60).collect() }
+    if s.is_empty() {
+        "worksheet".to_owned()
+    } else {
+        s.chars().take(60).collect()
+    }
 }

@@ -20,10 +20,12 @@ pub fn Status(
             "Not yet ready offline: keep this page open once while online."
         }
     };
-    let storage = move || match keeper.persisted.get() {
+    let storage = move || {
+        match keeper.persisted.get() {
         Some(true) => "This browser keeps Headroom's storage.",
         Some(false) => "This browser may clear Headroom's storage when space runs low: export worksheets you need as files (Files & print).",
         None => "",
+    }
     };
     view! {
         <p class="status screen-only" data-testid="status">

@@ -27,14 +27,19 @@ pub const SOURCES: &[&str] = &[
 
 fn fluid_text(f: &LineFile) -> String {
     match &f.fluid {
-        FluidFile::Water { temperature, pressure } => format!(
-            "water at {temperature}, {} absolute",
-            pressure.clone().unwrap_or_else(|| "101.325 kPa".into())
-        ),
-        FluidFile::Glycol { glycol, percent, temperature } => format!("{percent} % {glycol:?} glycol in water at {temperature}").to_lowercase(),
+        FluidFile::Water { temperature, pressure } => {
+            format!("water at {temperature}, {} absolute", pressure.clone().unwrap_or_else(|| "101.325 kPa".into()))
+        }
+        FluidFile::Glycol { glycol, percent, temperature } => {
+            format!("{percent} % {glycol:?} glycol in water at {temperature}").to_lowercase()
+        }
         FluidFile::Custom { density_kg_m3, viscosity_mpa_s, kinematic_viscosity_mm2_s } => format!(
             "entered: ρ {density_kg_m3} kg/m³, {}",
-            viscosity_mpa_s.as_ref().map(|m| format!("μ {m} mPa·s")).or_else(|| kinematic_viscosity_mm2_s.as_ref().map(|n| format!("ν {n} mm²/s"))).unwrap_or_default()
+            viscosity_mpa_s
+                .as_ref()
+                .map(|m| format!("μ {m} mPa·s"))
+                .or_else(|| kinematic_viscosity_mm2_s.as_ref().map(|n| format!("ν {n} mm²/s")))
+                .unwrap_or_default()
         ),
     }
 }
@@ -49,22 +54,56 @@ fn PrintLine(line: Slot, number: usize) -> impl IntoView {
         let inputs = vec![
             ("Flow", f.flow.clone()),
             ("Fluid", fluid_text(&f)),
-            ("Pipe", match &f.pipe {
-                PipeFile::Series(id) => crate::hydraulics::pipes::series(id).map(|s| format!("{} ({})", s.label, s.standard)).unwrap_or_else(|| id.clone()),
-                PipeFile::Bore { diameter, material } => format!("custom bore {diameter}, {material}"),
-            }),
+            (
+                "Pipe",
+                match &f.pipe {
+                    PipeFile::Series(id) => crate::hydraulics::pipes::series(id)
+                        .map(|s| format!("{} ({})", s.label, s.standard))
+                        .unwrap_or_else(|| id.clone()),
+                    PipeFile::Bore { diameter, material } => format!("custom bore {diameter}, {material}"),
+                },
+            ),
             ("Length", f.length.clone()),
             ("Rise", f.rise.clone().unwrap_or_else(|| "0".into())),
-            ("Fittings", if f.fittings.is_empty() { "none".into() } else {
-                f.fittings.iter().map(|fc| format!("{} × {}", fc.count, Fitting::from_id(&fc.fitting).map(|x| x.label()).unwrap_or("?"))).collect::<Vec<_>>().join("; ")
-            }),
-            ("Extra ΣK / equivalent length", format!("{} / {}", f.extra_k.clone().unwrap_or_else(|| "0".into()), f.equivalent_length.clone().unwrap_or_else(|| "0".into()))),
-            ("Limits", [
-                f.limits.max_drop_per_length.as_ref().map(|v| format!("drop per length ≤ {v}")),
-                f.limits.max_total_drop.as_ref().map(|v| format!("total drop ≤ {v}")),
-                f.limits.max_velocity.as_ref().map(|v| format!("velocity ≤ {v}")),
-                f.limits.min_velocity.as_ref().map(|v| format!("velocity ≥ {v}")),
-            ].into_iter().flatten().collect::<Vec<_>>().join("; ")),
+            (
+                "Fittings",
+                if f.fittings.is_empty() {
+                    "none".into()
+                } else {
+                    f.fittings
+                        .iter()
+                        .map(|fc| {
+                            format!(
+                                "{} × {}",
+                                fc.count,
+                                Fitting::from_id(&fc.fitting).map(|x| x.label()).unwrap_or("?")
+                            )
+                        })
+                        .collect::<Vec<_>>()
+                        .join("; ")
+                },
+            ),
+            (
+                "Extra ΣK / equivalent length",
+                format!(
+                    "{} / {}",
+                    f.extra_k.clone().unwrap_or_else(|| "0".into()),
+                    f.equivalent_length.clone().unwrap_or_else(|| "0".into())
+                ),
+            ),
+            (
+                "Limits",
+                [
+                    f.limits.max_drop_per_length.as_ref().map(|v| format!("drop per length ≤ {v}")),
+                    f.limits.max_total_drop.as_ref().map(|v| format!("total drop ≤ {v}")),
+                    f.limits.max_velocity.as_ref().map(|v| format!("velocity ≤ {v}")),
+                    f.limits.min_velocity.as_ref().map(|v| format!("velocity ≥ {v}")),
+                ]
+                .into_iter()
+                .flatten()
+                .collect::<Vec<_>>()
+                .join("; "),
+            ),
         ];
         let result = match &r.outcome {
             Err(errs) => view! {

@@ -57,18 +57,36 @@ fn Answer(o: Outcome, u: Units) -> impl IntoView {
                 <p class="answer-size" data-testid="proposed-size">"No size"</p>
                 <p data-testid="answer-why">{format!("Even the largest size fails: {}.", failing.join(", "))}</p>
             </div>
-        }.into_any(),
+        }
+        .into_any(),
         Some(c) => {
             let pass = c.passes();
             let p = c.point;
-            let head = if o.checked { if pass { "Checked size — meets every limit" } else { "Checked size — FAILS a limit" } } else { "Smallest size that meets every limit" };
-            let rows = c.checks.iter().map(|k| {
-                let txt = format!("{} {} of {}", k.limit.name(), limit_value(k.limit, k.value, &u, rho), limit_value(k.limit, k.allowed, &u, rho));
-                let pct = format!("{:+.0} %", k.headroom * 100.0);
-                let cls = if k.met() { "ok" } else { "bad" };
-                let id = format!("headroom-{}", k.limit.id());
-                view! { <li class=cls data-testid=id><span>{txt}</span><strong>{pct}</strong></li> }
-            }).collect_view();
+            let head = if o.checked {
+                if pass {
+                    "Checked size — meets every limit"
+                } else {
+                    "Checked size — FAILS a limit"
+                }
+            } else {
+                "Smallest size that meets every limit"
+            };
+            let rows = c
+                .checks
+                .iter()
+                .map(|k| {
+                    let txt = format!(
+                        "{} {} of {}",
+                        k.limit.name(),
+                        limit_value(k.limit, k.value, &u, rho),
+                        limit_value(k.limit, k.allowed, &u, rho)
+                    );
+                    let pct = format!("{:+.0} %", k.headroom * 100.0);
+                    let cls = if k.met() { "ok" } else { "bad" };
+                    let id = format!("headroom-{}", k.limit.id());
+                    view! { <li class=cls data-testid=id><span>{txt}</span><strong>{pct}</strong></li> }
+                })
+                .collect_view();
             view! {
                 <div class="answer" class:answer-bad=!pass data-testid="answer" role="status">
                     <p class="answer-head">{head}</p>
@@ -154,9 +172,7 @@ pub fn Moody(
     let c = chart::background();
     let (px, py, pw, ph) = chart::plot_area();
     let view_box = format!("0 0 {} {}", chart::WIDTH, chart::HEIGHT);
-    let points = move || {
-        outcome.with(|o| o.as_ref().map(|o| chart::points(&o.sizing)).unwrap_or_default())
-    };
+    let points = move || outcome.with(|o| o.as_ref().map(|o| chart::points(&o.sizing)).unwrap_or_default());
     view! {
         <figure class="moody" class:hidden=move || outcome.with(Option::is_none)>
             <svg viewBox=view_box role="img" aria-labelledby="moody-title" data-testid="moody">
@@ -193,7 +209,8 @@ pub fn Moody(
 
 #[component]
 fn Explain(o: Outcome) -> impl IntoView {
-    let steps = o.shown.map(|i| sizing::trace(&o.line, &o.sizing.properties, &o.sizing.candidates[i])).unwrap_or_default();
+    let steps =
+        o.shown.map(|i| sizing::trace(&o.line, &o.sizing.properties, &o.sizing.candidates[i])).unwrap_or_default();
     view! {
         <details class="explain" data-testid="explain">
             <summary>"How this was worked out"</summary>

@@ -18,9 +18,16 @@ pub fn Roster() -> impl IntoView {
         sheet.lines.with(|v| {
             for s in v.iter().filter(|s| s.in_path.get()) {
                 n += 1;
-                s.report.with(|r| match r.outcome.as_ref().ok().and_then(|o| o.shown.map(|i| o.sizing.candidates[i].point.total_drop.value)) {
-                    Some(dp) => sum += dp,
-                    None => bad += 1,
+                s.report.with(|r| {
+                    match r
+                        .outcome
+                        .as_ref()
+                        .ok()
+                        .and_then(|o| o.shown.map(|i| o.sizing.candidates[i].point.total_drop.value))
+                    {
+                        Some(dp) => sum += dp,
+                        None => bad += 1,
+                    }
                 });
             }
         });
@@ -82,7 +89,8 @@ fn RosterRow(line: Slot) -> impl IntoView {
     let file = line.file;
     let report = line.report;
     let selected = move || sheet.selected.get() == Some(id);
-    let name = move || file.with(|f| if f.name.trim().is_empty() { "(unnamed line)".to_owned() } else { f.name.clone() });
+    let name =
+        move || file.with(|f| if f.name.trim().is_empty() { "(unnamed line)".to_owned() } else { f.name.clone() });
     let answer = move || {
         let u = sheet.resolved.get();
         report.with(|r| match &r.outcome {
@@ -97,7 +105,13 @@ fn RosterRow(line: Slot) -> impl IntoView {
                         units::show(c.point.velocity.value, u.velocity, Some(rho), 3),
                         units::show(c.point.drop_per_length.value, u.drop_per_length, Some(rho), 3)
                     );
-                    let state = if !c.passes() { "bad" } else if o.checked { "pinned" } else { "ok" };
+                    let state = if !c.passes() {
+                        "bad"
+                    } else if o.checked {
+                        "pinned"
+                    } else {
+                        "ok"
+                    };
                     (c.nominal.to_owned(), detail, state)
                 }
             },

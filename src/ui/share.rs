@@ -60,7 +60,9 @@ pub fn SharePanel() -> impl IntoView {
     let copied = RwSignal::new(false);
     // The clipboard needs a secure context and a browser that offers it.
     let can_copy = web_sys::window()
-        .map(|w| js_sys::Reflect::get(&w.navigator(), &"clipboard".into()).is_ok_and(|c| !c.is_undefined() && !c.is_null()))
+        .map(|w| {
+            js_sys::Reflect::get(&w.navigator(), &"clipboard".into()).is_ok_and(|c| !c.is_undefined() && !c.is_null())
+        })
         .unwrap_or(false);
     let copy = move |_| {
         let Some(w) = web_sys::window() else { return };
@@ -135,12 +137,16 @@ pub fn FilesPanel() -> impl IntoView {
         let Some(input) = ev.target().and_then(|t| t.dyn_into::<web_sys::HtmlInputElement>().ok()) else { return };
         let Some(file) = input.files().and_then(|f| f.get(0)) else { return };
         input.set_value("");
-                wasm_bindgen_futures::spawn_local(async move {
+        wasm_bindgen_futures::spawn_local(async move {
             if file.size() > crate::sheet::file::MAX_FILE_BYTES as f64 {
                 notices.say("That file is too large to be a Headroom worksheet.");
                 return;
             }
-            let text = wasm_bindgen_futures::JsFuture::from(file.text()).await.ok().and_then(|t| t.as_string()).unwrap_or_default();
+            let text = wasm_bindgen_futures::JsFuture::from(file.text())
+                .await
+                .ok()
+                .and_then(|t| t.as_string())
+                .unwrap_or_default();
             match SheetFile::from_json(&text) {
                 Ok(s) => {
                     let name = if s.project.is_empty() { file.name() } else { s.project.clone() };

@@ -253,7 +253,8 @@ impl Sheet {
         let old = self.resolved.get_untracked();
         self.lines.with_untracked(|v| {
             for s in v {
-                let rho = s.report.with_untracked(|r| r.outcome.as_ref().ok().map(|o| o.sizing.properties.density_kg_m3()));
+                let rho =
+                    s.report.with_untracked(|r| r.outcome.as_ref().ok().map(|o| o.sizing.properties.density_kg_m3()));
                 s.file.update(|f| convert::line(f, &old, &new, rho));
             }
         });

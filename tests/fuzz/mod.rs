@@ -43,23 +43,94 @@ pub fn seeds() -> Vec<String> {
         r#""fluid": { "kind": "custom", "density_kg_m3": "870", "kinematic_viscosity_mm2_s": "32" }"#,
         1,
     );
-    let bore = demo.replacen(r#""pipe": { "series": "steel-sch40" }"#, r#""pipe": { "bore": { "diameter": "52.5 mm", "material": "pe" } }"#, 1);
+    let bore = demo.replacen(
+        r#""pipe": { "series": "steel-sch40" }"#,
+        r#""pipe": { "bore": { "diameter": "52.5 mm", "material": "pe" } }"#,
+        1,
+    );
     let us = demo.replacen(r#""units": { "system": "si" }"#, r#""units": { "system": "us", "flow": "m³/h" }"#, 1);
-    let hw = demo.replacen(r#""length": "42 m","#, r#""length": "42 m", "method": "hazen-williams", "hazen_williams_c": "120", "check_size": "4","#, 1);
+    let hw = demo.replacen(
+        r#""length": "42 m","#,
+        r#""length": "42 m", "method": "hazen-williams", "hazen_williams_c": "120", "check_size": "4","#,
+        1,
+    );
     vec![demo, glycol, custom, bore, us, hw]
 }
 
 const TOKENS: &[&str] = &[
-    "1e308", "-1e308", "1e-400", "0", "-0", "NaN", "inf", "1,000", "2,5", "99999999999", "-1", "2.5", "1e2", "\"\"",
-    "null", "true", "[]", "{}", "\"x\"", "\u{2212}3", "°F", "gpm", "m head", "kg/h", "\"count\": 2.5", "\"count\": -1",
-    "\"version\": 2", "\"version\": 0", "\"kind\": \"steam\"", "\"series\": \"nope\"", "\u{0}", "\t=cmd", "\r@x",
+    "1e308",
+    "-1e308",
+    "1e-400",
+    "0",
+    "-0",
+    "NaN",
+    "inf",
+    "1,000",
+    "2,5",
+    "99999999999",
+    "-1",
+    "2.5",
+    "1e2",
+    "\"\"",
+    "null",
+    "true",
+    "[]",
+    "{}",
+    "\"x\"",
+    "\u{2212}3",
+    "°F",
+    "gpm",
+    "m head",
+    "kg/h",
+    "\"count\": 2.5",
+    "\"count\": -1",
+    "\"version\": 2",
+    "\"version\": 0",
+    "\"kind\": \"steam\"",
+    "\"series\": \"nope\"",
+    "\u{0}",
+    "\t=cmd",
+    "\r@x",
 ];
 
 /// Text typed into a field, as found in stored sheets and links.
 const VALUES: &[&str] = &[
-    "1e308 kPa", "-1e308", "1e-400", "0", "-0", "NaN", "inf", "1,000 gpm", "2,5", "99999999999", "-1", "2.5", "1e2", "",
-    "\u{2212}3 °C", "212 °F", "-60 °C", "400 °C", "5 m head", "3 kg/h", "60 %", "100", "steel-sch80", "copper-k", "pe",
-    "nope", "9 ft/100 ft", "0.0001 mm", "2 km", "1e6 L/s", "7 K", "   ", "12.5 L/s", "3", "=cmd", "\t@x",
+    "1e308 kPa",
+    "-1e308",
+    "1e-400",
+    "0",
+    "-0",
+    "NaN",
+    "inf",
+    "1,000 gpm",
+    "2,5",
+    "99999999999",
+    "-1",
+    "2.5",
+    "1e2",
+    "",
+    "\u{2212}3 °C",
+    "212 °F",
+    "-60 °C",
+    "400 °C",
+    "5 m head",
+    "3 kg/h",
+    "60 %",
+    "100",
+    "steel-sch80",
+    "copper-k",
+    "pe",
+    "nope",
+    "9 ft/100 ft",
+    "0.0001 mm",
+    "2 km",
+    "1e6 L/s",
+    "7 K",
+    "   ",
+    "12.5 L/s",
+    "3",
+    "=cmd",
+    "\t@x",
 ];
 
 /// One mutation of `text`.

@@ -32,10 +32,7 @@ pub fn artifact_dir() -> PathBuf {
 }
 
 fn free_port() -> u16 {
-    TcpListener::bind("127.0.0.1:0")
-        .and_then(|l| l.local_addr())
-        .map(|a| a.port())
-        .expect("a free loopback port")
+    TcpListener::bind("127.0.0.1:0").and_then(|l| l.local_addr()).map(|a| a.port()).expect("a free loopback port")
 }
 
 fn content_type(path: &Path) -> &'static str {
@@ -73,22 +70,14 @@ impl StaticServer {
                 let path = url.split(['?', '#']).next().unwrap_or("/");
                 let relative = path.trim_start_matches('/');
                 let relative = if relative.is_empty() { "index.html" } else { relative };
-                let safe = Path::new(relative)
-                    .components()
-                    .all(|c| matches!(c, Component::Normal(_)));
+                let safe = Path::new(relative).components().all(|c| matches!(c, Component::Normal(_)));
                 let file = root.join(relative);
                 let response = match std::fs::read(&file) {
                     Ok(bytes) if safe => {
-                        let header = tiny_http::Header::from_bytes(
-                            "Content-Type",
-                            content_type(&file),
-                        )
-                        .unwrap();
+                        let header = tiny_http::Header::from_bytes("Content-Type", content_type(&file)).unwrap();
                         tiny_http::Response::from_data(bytes).with_header(header).boxed()
                     }
-                    _ => tiny_http::Response::from_string("not found")
-                        .with_status_code(404)
-                        .boxed(),
+                    _ => tiny_http::Response::from_string("not found").with_status_code(404).boxed(),
                 };
                 let _ = request.respond(response);
             }
@@ -227,7 +216,15 @@ impl Harness {
             .connect(&format!("http://127.0.0.1:{}", driver.port))
             .await
             .expect("a WebDriver session with headless Chromium");
-        Harness { server, base_url, client, _driver: driver, console: Vec::new(), requests: Vec::new(), expected_errors: Vec::new() }
+        Harness {
+            server,
+            base_url,
+            client,
+            _driver: driver,
+            console: Vec::new(),
+            requests: Vec::new(),
+            expected_errors: Vec::new(),
+        }
     }
 
     pub fn url(&self, path: &str) -> String {
@@ -314,7 +311,9 @@ impl Harness {
         let log = self.client.issue_cmd(Log("performance")).await.expect("read the performance log");
         if let Value::Array(entries) = log {
             for e in entries {
-                let Some(msg) = e["message"].as_str().and_then(|m| serde_json::from_str::<Value>(m).ok()) else { continue };
+                let Some(msg) = e["message"].as_str().and_then(|m| serde_json::from_str::<Value>(m).ok()) else {
+                    continue;
+                };
                 if msg["message"]["method"] == "Network.requestWillBeSent" {
                     if let Some(u) = msg["message"]["params"]["request"]["url"].as_str() {
                         self.requests.push(u.to_owned());
@@ -327,10 +326,7 @@ impl Harness {
 
     /// Runs a DevTools protocol command.
     pub async fn cdp(&self, cmd: &str, params: Value) -> Value {
-        self.client
-            .issue_cmd(Cdp(json!({"cmd": cmd, "params": params})))
-            .await
-            .unwrap_or_else(|e| panic!("{cmd}: {e}"))
+        self.client.issue_cmd(Cdp(json!({"cmd": cmd, "params": params}))).await.unwrap_or_else(|e| panic!("{cmd}: {e}"))
     }
 
     /// Stops serving `dist/`: from now on only the browser's own copy exists.
@@ -359,7 +355,12 @@ impl Harness {
         let foreign: Vec<&String> = self
             .requests
             .iter()
-            .filter(|u| !(u.starts_with(&format!("{origin}/")) || *u == &origin || u.starts_with("data:") || u.starts_with("blob:")))
+            .filter(|u| {
+                !(u.starts_with(&format!("{origin}/"))
+                    || *u == &origin
+                    || u.starts_with("data:")
+                    || u.starts_with("blob:"))
+            })
             .collect();
         let client = self.client.clone();
         let _ = client.close().await;
