@@ -249,3 +249,16 @@ fn the_panic_overlay_shows_the_message_as_text_with_a_reload_button() {
     // Leave the page usable for the tests after this one.
     overlay.remove();
 }
+
+#[wasm_bindgen_test]
+async fn an_error_that_belongs_to_no_input_is_shown_in_the_answer() {
+    // Regression: an unknown fitting kind (from a hand-edited file) left
+    // "Fix the fields marked in red" with nothing marked in red.
+    let (root, sheet) = mount_sheet(|s| chilled(s, "odd fitting", "4"));
+    sheet.lines.with_untracked(|v| {
+        v[0].file.update(|f| f.fittings.push(headroom::sheet::file::FittingCount::new("elbow-999", 1)))
+    });
+    leptos::task::tick().await;
+    assert_eq!(text(&root, "proposed-size"), "—");
+    assert_eq!(text(&root, "line-errors"), "fittings: 'elbow-999' is not a fitting Headroom knows");
+}

@@ -80,7 +80,7 @@ fn every_bad_field_is_reported_at_once() {
         "pipe":{"series":"steel-sch99"},"length":"","limits":{}}"#,
     )
     .unwrap_err();
-    let fields: Vec<&str> = e.iter().map(|f| f.field).collect();
+    let fields: Vec<&str> = e.iter().map(|f| f.field.path()).collect();
     for want in ["fluid.temperature", "pipe.series", "length", "limits"] {
         assert!(fields.contains(&want), "{fields:?}");
     }

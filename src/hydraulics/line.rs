@@ -15,6 +15,7 @@ use uom::si::velocity::meter_per_second;
 use uom::si::{Quantity, ISQ, SI};
 use uom::typenum::{N2, P1, Z0};
 
+use super::field::Field;
 use super::fluid::{Fluid, FluidError, Properties};
 use super::friction::{self, Regime};
 use super::geometry::mean_velocity;
@@ -114,16 +115,18 @@ pub enum LineError {
     /// Fluid properties could not be found.
     Fluid(FluidError),
     /// A value that must be positive and finite is not.
-    NotPositive(&'static str),
+    NotPositive(Field),
     /// A value that must be finite is not.
-    NotFinite(&'static str),
+    NotFinite(Field),
     /// The pipe roughness is negative or not finite.
     Roughness,
     /// The series has no sizes.
     NoSizes,
     /// A value outside the range the methods are meant for.
     OutOfRange {
-        /// What.
+        /// The input at fault.
+        field: Field,
+        /// What, with its SI unit, as the message names it.
         what: &'static str,
         /// Lowest accepted, SI.
         min: f64,
@@ -139,11 +142,11 @@ impl std::fmt::Display for LineError {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
         match self {
             LineError::Fluid(e) => write!(f, "{e}"),
-            LineError::NotPositive(what) => write!(f, "{what} must be greater than zero"),
-            LineError::NotFinite(what) => write!(f, "{what} must be a finite number"),
+            LineError::NotPositive(field) => write!(f, "{} must be greater than zero", field.label()),
+            LineError::NotFinite(field) => write!(f, "{} must be a finite number", field.label()),
             LineError::Roughness => write!(f, "roughness must be zero or more"),
             LineError::NoSizes => write!(f, "the pipe series has no sizes"),
-            LineError::OutOfRange { what, min, max } => {
+            LineError::OutOfRange { what, min, max, .. } => {
                 write!(f, "{what} must be between {min} and {max} (SI units)")
             }
             LineError::NotComputable => write!(f, "these inputs are beyond what the methods can compute"),
@@ -209,19 +212,32 @@ pub struct Point {
     pub total_drop: Pressure,
 }
 
-fn within(v: f64, what: &'static str, min: f64, max: f64) -> Result<(), LineError> {
+fn within(v: f64, field: Field, what: &'static str, min: f64, max: f64) -> Result<(), LineError> {
     if v.is_finite() && (min..=max).contains(&v) {
         Ok(())
     } else {
-        Err(LineError::OutOfRange { what, min, max })
+        Err(LineError::OutOfRange { field, what, min, max })
     }
 }
 
-fn positive(v: f64, what: &'static str) -> Result<(), LineError> {
+fn positive(v: f64, field: Field) -> Result<(), LineError> {
     if v.is_finite() && v > 0.0 {
         Ok(())
     } else {
-        Err(LineError::NotPositive(what))
+        Err(LineError::NotPositive(field))
+    }
+}
+
+impl LineError {
+    /// The input the error belongs to.
+    pub fn field(&self) -> Field {
+        match self {
+            LineError::Fluid(_) => Field::Fluid,
+            LineError::NotPositive(f) | LineError::NotFinite(f) | LineError::OutOfRange { field: f, .. } => *f,
+            LineError::Roughness => Field::Roughness,
+            LineError::NoSizes => Field::Pipe,
+            LineError::NotComputable => Field::Line,
+        }
     }
 }
 
@@ -239,57 +255,57 @@ impl Line {
     /// # Errors
     /// The first bad input, as a [`LineError`].
     pub fn validate(&self) -> Result<Properties, LineError> {
-        positive(self.flow.value, "flow")?;
+        positive(self.flow.value, Field::Flow)?;
         // Bounds far outside any pipe a person would size, so that no input
         // can overflow the arithmetic (they are not design advice).
-        within(self.flow.value, "flow (m³/s)", 1e-12, 1e3)?;
-        within(self.length.value, "length (m)", 0.0, 1e6)?;
-        within(self.rise.value, "rise (m)", -1e4, 1e4)?;
-        within(self.roughness.value, "roughness (m)", 0.0, 0.1)?;
-        within(self.fittings.extra_k, "ΣK", 0.0, 1e5)?;
+        within(self.flow.value, Field::Flow, "flow (m³/s)", 1e-12, 1e3)?;
+        within(self.length.value, Field::Length, "length (m)", 0.0, 1e6)?;
+        within(self.rise.value, Field::Rise, "rise (m)", -1e4, 1e4)?;
+        within(self.roughness.value, Field::Roughness, "roughness (m)", 0.0, 0.1)?;
+        within(self.fittings.extra_k, Field::ExtraK, "ΣK", 0.0, 1e5)?;
         if !(self.length.value.is_finite() && self.length.value >= 0.0) {
-            return Err(LineError::NotFinite("length"));
+            return Err(LineError::NotFinite(Field::Length));
         }
         if !(self.roughness.value.is_finite() && self.roughness.value >= 0.0) {
             return Err(LineError::Roughness);
         }
         if !self.rise.value.is_finite() {
-            return Err(LineError::NotFinite("rise"));
+            return Err(LineError::NotFinite(Field::Rise));
         }
         if !(self.fittings.extra_k.is_finite() && self.fittings.extra_k >= 0.0) {
-            return Err(LineError::NotFinite("ΣK"));
+            return Err(LineError::NotFinite(Field::ExtraK));
         }
         if let Some(le) = self.fittings.equivalent_length {
             if !(le.value.is_finite() && le.value >= 0.0) {
-                return Err(LineError::NotFinite("equivalent length"));
+                return Err(LineError::NotFinite(Field::EquivalentLength));
             }
         }
         if let Method::HazenWilliams { c } = self.method {
-            positive(c, "Hazen–Williams C")?;
-            within(c, "Hazen–Williams C", 1.0, 250.0)?;
+            positive(c, Field::HazenWilliamsC)?;
+            within(c, Field::HazenWilliamsC, "Hazen–Williams C", 1.0, 250.0)?;
         }
         let bores = self.pipe.bores();
         if bores.is_empty() {
             return Err(LineError::NoSizes);
         }
         for (_, d) in bores {
-            positive(d.value, "inside diameter")?;
-            within(d.value, "inside diameter (m)", 1e-4, 20.0)?;
+            positive(d.value, Field::PipeDiameter)?;
+            within(d.value, Field::PipeDiameter, "inside diameter (m)", 1e-4, 20.0)?;
         }
         let l = &self.limits;
         for (v, what) in [
-            (l.max_drop_per_length.map(|g| g.value), "drop-per-length limit"),
-            (l.max_total_drop.map(|p| p.value), "total-drop limit"),
-            (l.max_velocity.map(|v| v.value), "maximum velocity"),
-            (l.min_velocity.map(|v| v.value), "minimum velocity"),
+            (l.max_drop_per_length.map(|g| g.value), Field::MaxDropPerLength),
+            (l.max_total_drop.map(|p| p.value), Field::MaxTotalDrop),
+            (l.max_velocity.map(|v| v.value), Field::MaxVelocity),
+            (l.min_velocity.map(|v| v.value), Field::MinVelocity),
         ] {
             if let Some(v) = v {
                 positive(v, what)?;
             }
         }
         let props = self.properties()?;
-        within(props.density_kg_m3(), "density (kg/m³)", 1.0, 3e4)?;
-        within(props.viscosity_pa_s(), "viscosity (Pa·s)", 1e-7, 1e3)?;
+        within(props.density_kg_m3(), Field::Fluid, "density (kg/m³)", 1.0, 3e4)?;
+        within(props.viscosity_pa_s(), Field::Fluid, "viscosity (Pa·s)", 1e-7, 1e3)?;
         Ok(props)
     }
 

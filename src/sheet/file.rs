@@ -21,6 +21,7 @@ use uom::si::volume_rate::cubic_meter_per_second;
 
 use super::number::{parse_count, parse_decimal};
 use super::units::{self, Dimension, Unit};
+use crate::hydraulics::field::Field;
 use crate::hydraulics::fluid::{Fluid, Glycol, Properties};
 use crate::hydraulics::line::{pa_per_m, Limits, Line, Method, Pipe};
 use crate::hydraulics::losses::{Fitting, Fittings};
@@ -182,20 +183,20 @@ impl UnitChoice {
     /// A [`FieldError`] naming the unit field that is not a known unit.
     pub fn resolve(&self) -> Result<Units, FieldError> {
         let mut u = Units::defaults(self.system);
-        let pick = |slot: &mut &'static Unit, choice: &Option<String>, d: Dimension, field: &'static str| {
+        let pick = |slot: &mut &'static Unit, choice: &Option<String>, d: Dimension, field: Field| {
             if let Some(text) = choice {
                 *slot = units::find(d, text)
                     .ok_or_else(|| FieldError { field, message: format!("'{text}' is not a unit of {field}") })?;
             }
             Ok::<(), FieldError>(())
         };
-        pick(&mut u.flow, &self.flow, Dimension::Flow, "units.flow")?;
-        pick(&mut u.pressure, &self.pressure, Dimension::Pressure, "units.pressure")?;
-        pick(&mut u.drop_per_length, &self.drop_per_length, Dimension::DropPerLength, "units.drop_per_length")?;
-        pick(&mut u.length, &self.length, Dimension::Length, "units.length")?;
-        pick(&mut u.velocity, &self.velocity, Dimension::Velocity, "units.velocity")?;
-        pick(&mut u.temperature, &self.temperature, Dimension::Temperature, "units.temperature")?;
-        pick(&mut u.roughness, &self.roughness, Dimension::Roughness, "units.roughness")?;
+        pick(&mut u.flow, &self.flow, Dimension::Flow, Field::UnitsFlow)?;
+        pick(&mut u.pressure, &self.pressure, Dimension::Pressure, Field::UnitsPressure)?;
+        pick(&mut u.drop_per_length, &self.drop_per_length, Dimension::DropPerLength, Field::UnitsDropPerLength)?;
+        pick(&mut u.length, &self.length, Dimension::Length, Field::UnitsLength)?;
+        pick(&mut u.velocity, &self.velocity, Dimension::Velocity, Field::UnitsVelocity)?;
+        pick(&mut u.temperature, &self.temperature, Dimension::Temperature, Field::UnitsTemperature)?;
+        pick(&mut u.roughness, &self.roughness, Dimension::Roughness, Field::UnitsRoughness)?;
         Ok(u)
     }
 }
@@ -403,8 +404,8 @@ pub struct LimitsFile {
 /// A bad value in one field.
 #[derive(Debug, Clone, PartialEq, Eq)]
 pub struct FieldError {
-    /// The field, as named in the file ("flow", "limits.max_velocity").
-    pub field: &'static str,
+    /// The field ("flow", "limits.max_velocity" in the file).
+    pub field: Field,
     /// What is wrong and what is expected.
     pub message: String,
 }
@@ -581,7 +582,7 @@ impl SheetFile {
 
 fn measure(
     errors: &mut Vec<FieldError>,
-    field: &'static str,
+    field: Field,
     text: &str,
     dim: Dimension,
     unit: &'static Unit,
@@ -598,7 +599,7 @@ fn measure(
 
 fn optional(
     errors: &mut Vec<FieldError>,
-    field: &'static str,
+    field: Field,
     text: &Option<String>,
     dim: Dimension,
     unit: &'static Unit,
@@ -610,7 +611,7 @@ fn optional(
     }
 }
 
-fn plain_number(errors: &mut Vec<FieldError>, field: &'static str, text: &str) -> Option<f64> {
+fn plain_number(errors: &mut Vec<FieldError>, field: Field, text: &str) -> Option<f64> {
     match parse_decimal(text) {
         Ok(v) => Some(v),
         Err(e) => {
@@ -690,12 +691,12 @@ impl LineFile {
         let mut errors = Vec::new();
         let e = &mut errors;
         let kelvin_of = |e: &mut Vec<FieldError>, t: &str| {
-            measure(e, "fluid.temperature", t, Dimension::Temperature, units.temperature, None)
+            measure(e, Field::FluidTemperature, t, Dimension::Temperature, units.temperature, None)
         };
         let (fluid, temperature, pressure) = match &self.fluid {
             FluidFile::Water { temperature, pressure } => {
                 let t = kelvin_of(e, temperature);
-                let p = optional(e, "fluid.pressure", pressure, Dimension::Pressure, units.pressure, Some(1000.0));
+                let p = optional(e, Field::FluidPressure, pressure, Dimension::Pressure, units.pressure, Some(1000.0));
                 (Some(Fluid::Water), t, p.or(Some(101_325.0)))
             }
             FluidFile::Glycol { glycol, percent, temperature } => {
@@ -703,21 +704,21 @@ impl LineFile {
                     GlycolName::Ethylene => Glycol::Ethylene,
                     GlycolName::Propylene => Glycol::Propylene,
                 };
-                let pct = plain_number(e, "fluid.percent", percent.trim().trim_end_matches('%'));
+                let pct = plain_number(e, Field::FluidPercent, percent.trim().trim_end_matches('%'));
                 let t = kelvin_of(e, temperature);
                 (pct.map(|p| Fluid::GlycolMix(g, p / 100.0)), t, Some(101_325.0))
             }
             FluidFile::Custom { density_kg_m3, viscosity_mpa_s, kinematic_viscosity_mm2_s } => {
-                let rho = plain_number(e, "fluid.density_kg_m3", density_kg_m3);
+                let rho = plain_number(e, Field::FluidDensity, density_kg_m3);
                 let mu = match (viscosity_mpa_s, kinematic_viscosity_mm2_s, rho) {
-                    (Some(mu), None, _) => plain_number(e, "fluid.viscosity_mpa_s", mu).map(|v| v * 1e-3),
+                    (Some(mu), None, _) => plain_number(e, Field::FluidViscosity, mu).map(|v| v * 1e-3),
                     (None, Some(nu), Some(r)) => {
-                        plain_number(e, "fluid.kinematic_viscosity_mm2_s", nu).map(|v| v * 1e-6 * r)
+                        plain_number(e, Field::FluidKinematicViscosity, nu).map(|v| v * 1e-6 * r)
                     }
                     (None, Some(_), None) => None,
                     _ => {
                         e.push(FieldError {
-                            field: "fluid.viscosity_mpa_s",
+                            field: Field::FluidViscosity,
                             message: "give the dynamic viscosity (mPa·s) or the kinematic (mm²/s), not both".into(),
                         });
                         None
@@ -739,7 +740,7 @@ impl LineFile {
                 match f.properties(ThermodynamicTemperature::new::<kelvin>(t), Pressure::new::<pascal>(p)) {
                     Ok(props) => Some(props),
                     Err(err) => {
-                        e.push(FieldError { field: "fluid", message: err.to_string() });
+                        e.push(FieldError { field: Field::Fluid, message: err.to_string() });
                         None
                     }
                 }
@@ -752,14 +753,14 @@ impl LineFile {
         let flow = if rho.is_none() && needs_rho(&self.flow, Dimension::Flow, units.flow) {
             None // the fluid error is already reported
         } else {
-            measure(e, "flow", &self.flow, Dimension::Flow, units.flow, rho)
+            measure(e, Field::Flow, &self.flow, Dimension::Flow, units.flow, rho)
         };
         let (pipe, material) = match &self.pipe {
             PipeFile::Series(id) => match pipes::series(id) {
                 Some(s) => (Some(Pipe::Series(s)), Some(s.material)),
                 None => {
                     e.push(FieldError {
-                        field: "pipe.series",
+                        field: Field::PipeSeries,
                         message: format!("'{id}' is not a pipe series Headroom knows"),
                     });
                     (None, None)
@@ -768,7 +769,7 @@ impl LineFile {
             PipeFile::Bore { diameter, material } => {
                 let d = measure(
                     e,
-                    "pipe.diameter",
+                    Field::PipeDiameter,
                     diameter,
                     Dimension::Length,
                     units::find(Dimension::Length, "mm").unwrap(),
@@ -777,7 +778,7 @@ impl LineFile {
                 let m = material_from_id(material);
                 if m.is_none() {
                     e.push(FieldError {
-                        field: "pipe.material",
+                        field: Field::PipeMaterial,
                         message: format!("'{material}' is not one of carbon-steel, stainless, copper, pvc, pe"),
                     });
                 }
@@ -786,7 +787,7 @@ impl LineFile {
         };
         let roughness = match (&self.roughness, material) {
             (Some(t), _) if !t.trim().is_empty() => {
-                measure(e, "roughness", t, Dimension::Roughness, units.roughness, None)
+                measure(e, Field::Roughness, t, Dimension::Roughness, units.roughness, None)
             }
             (_, Some(m)) => {
                 let r = m.roughness();
@@ -795,17 +796,17 @@ impl LineFile {
             _ => None,
         };
         let length = if self.length.trim().is_empty() {
-            e.push(FieldError { field: "length", message: "enter the length of straight pipe".into() });
+            e.push(FieldError { field: Field::Length, message: "enter the length of straight pipe".into() });
             None
         } else {
-            measure(e, "length", &self.length, Dimension::Length, units.length, None)
+            measure(e, Field::Length, &self.length, Dimension::Length, units.length, None)
         };
         let mut counts = Vec::new();
         for (row, fc) in self.fittings.iter().enumerate() {
             let n = match parse_count(&fc.count) {
                 Ok(n) => Some(n),
                 Err(err) => {
-                    e.push(FieldError { field: "fittings.count", message: format!("row {}: {err}", row + 1) });
+                    e.push(FieldError { field: Field::FittingCount, message: format!("row {}: {err}", row + 1) });
                     None
                 }
             };
@@ -813,23 +814,23 @@ impl LineFile {
                 (Some(f), Some(n)) => counts.push((f, n)),
                 (Some(_), None) => {}
                 (None, _) => e.push(FieldError {
-                    field: "fittings",
+                    field: Field::Fittings,
                     message: format!("'{}' is not a fitting Headroom knows", fc.fitting),
                 }),
             }
         }
         let extra_k = match self.extra_k.as_deref().map(str::trim) {
             None | Some("") => Some(0.0),
-            Some(t) => plain_number(e, "extra_k", t),
+            Some(t) => plain_number(e, Field::ExtraK, t),
         };
         let equivalent_length =
-            optional(e, "equivalent_length", &self.equivalent_length, Dimension::Length, units.length, None);
-        let rise = optional(e, "rise", &self.rise, Dimension::Length, units.length, None).unwrap_or(0.0);
+            optional(e, Field::EquivalentLength, &self.equivalent_length, Dimension::Length, units.length, None);
+        let rise = optional(e, Field::Rise, &self.rise, Dimension::Length, units.length, None).unwrap_or(0.0);
         let method = match self.method {
             MethodName::DarcyWeisbach => Some(Method::DarcyWeisbach),
             MethodName::HazenWilliams => match (self.hazen_williams_c.as_deref().map(str::trim), material) {
                 (Some(t), _) if !t.is_empty() => {
-                    plain_number(e, "hazen_williams_c", t).map(|c| Method::HazenWilliams { c })
+                    plain_number(e, Field::HazenWilliamsC, t).map(|c| Method::HazenWilliams { c })
                 }
                 (_, Some(m)) => Some(Method::HazenWilliams { c: m.hazen_williams_c().0 }),
                 _ => None,
@@ -839,7 +840,7 @@ impl LineFile {
         let limits = Limits {
             max_drop_per_length: optional(
                 e,
-                "limits.max_drop_per_length",
+                Field::MaxDropPerLength,
                 &lim.max_drop_per_length,
                 Dimension::DropPerLength,
                 units.drop_per_length,
@@ -848,42 +849,28 @@ impl LineFile {
             .map(pa_per_m),
             max_total_drop: optional(
                 e,
-                "limits.max_total_drop",
+                Field::MaxTotalDrop,
                 &lim.max_total_drop,
                 Dimension::Pressure,
                 units.pressure,
                 rho,
             )
             .map(Pressure::new::<pascal>),
-            max_velocity: optional(
-                e,
-                "limits.max_velocity",
-                &lim.max_velocity,
-                Dimension::Velocity,
-                units.velocity,
-                None,
-            )
-            .map(Velocity::new::<meter_per_second>),
-            min_velocity: optional(
-                e,
-                "limits.min_velocity",
-                &lim.min_velocity,
-                Dimension::Velocity,
-                units.velocity,
-                None,
-            )
-            .map(Velocity::new::<meter_per_second>),
+            max_velocity: optional(e, Field::MaxVelocity, &lim.max_velocity, Dimension::Velocity, units.velocity, None)
+                .map(Velocity::new::<meter_per_second>),
+            min_velocity: optional(e, Field::MinVelocity, &lim.min_velocity, Dimension::Velocity, units.velocity, None)
+                .map(Velocity::new::<meter_per_second>),
         };
         if let (Some(lo), Some(hi)) = (limits.min_velocity, limits.max_velocity) {
             if lo >= hi {
                 e.push(FieldError {
-                    field: "limits.min_velocity",
+                    field: Field::MinVelocity,
                     message: "minimum velocity must be below the maximum".into(),
                 });
             }
         }
         if limits == Limits::default() {
-            e.push(FieldError { field: "limits", message: "set at least one limit to size against".into() });
+            e.push(FieldError { field: Field::Limits, message: "set at least one limit to size against".into() });
         }
         match (flow, fluid, temperature, pressure, pipe, roughness, length, extra_k, method) {
             (Some(q), Some(fluid), Some(t), Some(p), Some(pipe), Some(r), Some(l), Some(k), Some(method))
@@ -910,41 +897,10 @@ impl LineFile {
                 // reported against the field they concern.
                 match line.validate() {
                     Ok(_) => Ok(line),
-                    Err(err) => Err(vec![FieldError { field: core_field(&err), message: err.to_string() }]),
+                    Err(err) => Err(vec![FieldError { field: err.field(), message: err.to_string() }]),
                 }
             }
             _ => Err(errors),
         }
-    }
-}
-
-fn core_field(err: &crate::hydraulics::line::LineError) -> &'static str {
-    use crate::hydraulics::line::LineError as E;
-    match err {
-        E::Fluid(_) => "fluid",
-        E::NotPositive("flow") => "flow",
-        E::NotPositive("inside diameter") => "pipe.diameter",
-        E::NotPositive("Hazen–Williams C") => "hazen_williams_c",
-        E::NotPositive("drop-per-length limit") => "limits.max_drop_per_length",
-        E::NotPositive("total-drop limit") => "limits.max_total_drop",
-        E::NotPositive("maximum velocity") => "limits.max_velocity",
-        E::NotPositive("minimum velocity") => "limits.min_velocity",
-        E::NotPositive(_) => "line",
-        E::NotFinite("length") => "length",
-        E::NotFinite("rise") => "rise",
-        E::NotFinite("ΣK") => "extra_k",
-        E::NotFinite("equivalent length") => "equivalent_length",
-        E::NotFinite(_) => "line",
-        E::Roughness => "roughness",
-        E::NoSizes => "pipe",
-        E::OutOfRange { what, .. } if what.starts_with("flow") => "flow",
-        E::OutOfRange { what, .. } if what.starts_with("length") => "length",
-        E::OutOfRange { what, .. } if what.starts_with("rise") => "rise",
-        E::OutOfRange { what, .. } if what.starts_with("rough") => "roughness",
-        E::OutOfRange { what, .. } if what.starts_with("inside") => "pipe.diameter",
-        E::OutOfRange { what, .. } if what.starts_with("Hazen") => "hazen_williams_c",
-        E::OutOfRange { what, .. } if what.starts_with("ΣK") => "extra_k",
-        E::OutOfRange { .. } => "fluid",
-        E::NotComputable => "line",
     }
 }

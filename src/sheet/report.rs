@@ -5,6 +5,7 @@ use serde::Serialize;
 
 use super::file::{FieldError, LineFile, SheetFile, Units};
 use super::units::{format_number, from_si, show, Unit};
+use crate::hydraulics::field::Field;
 use crate::hydraulics::friction::Regime;
 use crate::hydraulics::line::Line;
 use crate::hydraulics::sizing::{self, Candidate, Capacity, Sizing};
@@ -44,13 +45,14 @@ pub struct LineReport {
 /// Evaluates one stored line.
 pub fn evaluate_line(number: usize, lf: &LineFile, units: &Units) -> LineReport {
     let outcome = lf.to_line(units).and_then(|line| {
-        let sizing = sizing::size(&line).map_err(|e| vec![FieldError { field: "line", message: e.to_string() }])?;
+        let sizing =
+            sizing::size(&line).map_err(|e| vec![FieldError { field: Field::Line, message: e.to_string() }])?;
         let (shown, checked) = match lf.check_size.as_deref().map(str::trim).filter(|s| !s.is_empty()) {
             Some(n) => match sizing.candidates.iter().position(|c| c.nominal == n) {
                 Some(i) => (Some(i), true),
                 None => {
                     return Err(vec![FieldError {
-                        field: "check_size",
+                        field: Field::CheckSize,
                         message: format!("'{n}' is not a size of this pipe series"),
                     }])
                 }

@@ -2,8 +2,9 @@
 
 use leptos::prelude::*;
 
-use super::fields::{errors_for, TextField};
+use super::fields::{errors_except, errors_for, TextField};
 use super::state::{Sheet, Slot};
+use crate::hydraulics::field::Field;
 use crate::hydraulics::losses::Fitting;
 use crate::hydraulics::pipes::{self, Material, SERIES};
 use crate::sheet::file::{FittingCount, FluidFile, GlycolName, LineFile, MethodName, PipeFile};
@@ -28,6 +29,32 @@ fn material_id(m: Material) -> &'static str {
     }
 }
 
+/// The fields whose errors the editor shows beside an input (each fitting
+/// row checks its own count); the others are listed at the top.
+pub const BESIDE_INPUTS: [Field; 21] = [
+    Field::FittingCount,
+    Field::Flow,
+    Field::Fluid,
+    Field::FluidTemperature,
+    Field::FluidPressure,
+    Field::FluidPercent,
+    Field::FluidDensity,
+    Field::FluidViscosity,
+    Field::PipeSeries,
+    Field::PipeDiameter,
+    Field::Roughness,
+    Field::Length,
+    Field::ExtraK,
+    Field::EquivalentLength,
+    Field::Rise,
+    Field::HazenWilliamsC,
+    Field::Limits,
+    Field::MaxDropPerLength,
+    Field::MaxTotalDrop,
+    Field::MaxVelocity,
+    Field::MinVelocity,
+];
+
 /// The editor for one line.
 #[component]
 pub fn LineEditor(
@@ -38,7 +65,7 @@ pub fn LineEditor(
     let file = line.file;
     let report = line.report;
     let get = move |f: fn(&LineFile) -> String| Signal::derive(move || file.with(f));
-    let err = move |field: &'static str| errors_for(report, field);
+    let err = move |field: Field| errors_for(report, field);
     let opt = |o: &Option<String>| o.clone().unwrap_or_default();
     let some = |s: String| if s.trim().is_empty() { None } else { Some(s) };
 
@@ -117,6 +144,7 @@ pub fn LineEditor(
 
     view! {
         <form class="editor" data-testid="editor" on:submit=|ev| ev.prevent_default() aria-label="Line inputs">
+            <p class="field-error" data-testid="line-errors" aria-live="polite">{move || errors_except(report, &BESIDE_INPUTS).get()}</p>
             <div class="editor-head">
                 <TextField label="Line name" id="line-name" inputmode="text"
                     value=get(|f| f.name.clone()) error=Signal::derive(String::new)
@@ -135,7 +163,7 @@ pub fn LineEditor(
             <fieldset>
                 <legend>"Flow and fluid"</legend>
                 <TextField label="Design flow" id="flow" unit=Dimension::Flow
-                    value=get(|f| f.flow.clone()) error=err("flow")
+                    value=get(|f| f.flow.clone()) error=err(Field::Flow)
                     placeholder="e.g. 12.5 or 95 gpm"
                     on_input=move |v| file.update(|f| f.flow = v)/>
                 <div class="field">
@@ -146,17 +174,17 @@ pub fn LineEditor(
                         <option value="glycol" selected=move || fluid_kind() == "glycol">"Glycol in water"</option>
                         <option value="custom" selected=move || fluid_kind() == "custom">"Other (enter ρ and μ)"</option>
                     </select>
-                    <span class="field-error" data-testid="fluid-error" aria-live="polite">{move || err("fluid").get()}</span>
+                    <span class="field-error" data-testid="fluid-error" aria-live="polite">{move || err(Field::Fluid).get()}</span>
                 </div>
                 {move || match fluid_kind() {
                     "water" => view! {
                         <TextField label="Temperature" id="fluid-temperature" unit=Dimension::Temperature
                             value=Signal::derive(move || file.with(|f| match &f.fluid { FluidFile::Water { temperature, .. } => temperature.clone(), _ => String::new() }))
-                            error=err("fluid.temperature")
+                            error=err(Field::FluidTemperature)
                             on_input=move |v| file.update(|f| if let FluidFile::Water { temperature, .. } = &mut f.fluid { *temperature = v })/>
                         <TextField label="System pressure (absolute)" id="fluid-pressure" unit=Dimension::Pressure
                             value=Signal::derive(move || file.with(|f| match &f.fluid { FluidFile::Water { pressure, .. } => opt(pressure), _ => String::new() }))
-                            error=err("fluid.pressure") placeholder="101.325 kPa if empty"
+                            error=err(Field::FluidPressure) placeholder="101.325 kPa if empty"
                             on_input=move |v| file.update(|f| if let FluidFile::Water { pressure, .. } = &mut f.fluid { *pressure = some(v) })/>
                     }.into_any(),
                     "glycol" => view! {
@@ -170,21 +198,21 @@ pub fn LineEditor(
                         </div>
                         <TextField label="Strength" id="glycol-percent" suffix="% by mass"
                             value=Signal::derive(move || file.with(|f| match &f.fluid { FluidFile::Glycol { percent, .. } => percent.clone(), _ => String::new() }))
-                            error=err("fluid.percent")
+                            error=err(Field::FluidPercent)
                             on_input=move |v| file.update(|f| if let FluidFile::Glycol { percent, .. } = &mut f.fluid { *percent = v })/>
                         <TextField label="Temperature" id="fluid-temperature" unit=Dimension::Temperature
                             value=Signal::derive(move || file.with(|f| match &f.fluid { FluidFile::Glycol { temperature, .. } => temperature.clone(), _ => String::new() }))
-                            error=err("fluid.temperature")
+                            error=err(Field::FluidTemperature)
                             on_input=move |v| file.update(|f| if let FluidFile::Glycol { temperature, .. } = &mut f.fluid { *temperature = v })/>
                     }.into_any(),
                     _ => view! {
                         <TextField label="Density" id="fluid-density" suffix="kg/m³"
                             value=Signal::derive(move || file.with(|f| match &f.fluid { FluidFile::Custom { density_kg_m3, .. } => density_kg_m3.clone(), _ => String::new() }))
-                            error=err("fluid.density_kg_m3")
+                            error=err(Field::FluidDensity)
                             on_input=move |v| file.update(|f| if let FluidFile::Custom { density_kg_m3, .. } = &mut f.fluid { *density_kg_m3 = v })/>
                         <TextField label="Dynamic viscosity" id="fluid-viscosity" suffix="mPa·s"
                             value=Signal::derive(move || file.with(|f| match &f.fluid { FluidFile::Custom { viscosity_mpa_s, .. } => opt(viscosity_mpa_s), _ => String::new() }))
-                            error=err("fluid.viscosity_mpa_s")
+                            error=err(Field::FluidViscosity)
                             on_input=move |v| file.update(|f| if let FluidFile::Custom { viscosity_mpa_s, .. } = &mut f.fluid { *viscosity_mpa_s = some(v) })/>
                     }.into_any(),
                 }}
@@ -202,12 +230,12 @@ pub fn LineEditor(
                         }).collect_view()}
                         <option value="custom" selected=move || series_value() == "custom">"Custom bore (enter the inside diameter)"</option>
                     </select>
-                    <span class="field-error" aria-live="polite">{move || err("pipe.series").get()}</span>
+                    <span class="field-error" aria-live="polite">{move || err(Field::PipeSeries).get()}</span>
                 </div>
                 {move || (series_value() == "custom").then(|| view! {
                     <TextField label="Inside diameter" id="pipe-diameter" suffix="mm unless typed"
                         value=Signal::derive(move || file.with(|f| match &f.pipe { PipeFile::Bore { diameter, .. } => diameter.clone(), _ => String::new() }))
-                        error=err("pipe.diameter")
+                        error=err(Field::PipeDiameter)
                         on_input=move |v| file.update(|f| if let PipeFile::Bore { diameter, .. } = &mut f.pipe { *diameter = v })/>
                     <div class="field">
                         <label for="pipe-material">"Material (for roughness)"</label>
@@ -221,7 +249,7 @@ pub fn LineEditor(
                     </div>
                 })}
                 <TextField label="Roughness ε" id="roughness" unit=Dimension::Roughness
-                    value=get(|f| f.roughness.clone().unwrap_or_default()) error=err("roughness")
+                    value=get(|f| f.roughness.clone().unwrap_or_default()) error=err(Field::Roughness)
                     placeholder=roughness_hint
                     on_input=move |v| file.update(|f| f.roughness = some(v))/>
                 {move || has_aged().then(|| view! {
@@ -236,34 +264,34 @@ pub fn LineEditor(
             <fieldset>
                 <legend>"Run"</legend>
                 <TextField label="Length of straight pipe" id="length" unit=Dimension::Length
-                    value=get(|f| f.length.clone()) error=err("length")
+                    value=get(|f| f.length.clone()) error=err(Field::Length)
                     on_input=move |v| file.update(|f| f.length = v)/>
                 <TextField label="Rise, end above start (negative for a fall)" id="rise" unit=Dimension::Length
-                    value=get(|f| f.rise.clone().unwrap_or_default()) error=err("rise") placeholder="0"
+                    value=get(|f| f.rise.clone().unwrap_or_default()) error=err(Field::Rise) placeholder="0"
                     on_input=move |v| file.update(|f| f.rise = some(v))/>
                 <FittingList line=line.clone()/>
                 <TextField label="Extra ΣK" id="extra-k" value=get(|f| f.extra_k.clone().unwrap_or_default())
-                    error=err("extra_k") placeholder="0"
+                    error=err(Field::ExtraK) placeholder="0"
                     on_input=move |v| file.update(|f| f.extra_k = some(v))/>
                 <TextField label="Equivalent length for other losses" id="equivalent-length" unit=Dimension::Length
-                    value=get(|f| f.equivalent_length.clone().unwrap_or_default()) error=err("equivalent_length") placeholder="0"
+                    value=get(|f| f.equivalent_length.clone().unwrap_or_default()) error=err(Field::EquivalentLength) placeholder="0"
                     on_input=move |v| file.update(|f| f.equivalent_length = some(v))/>
             </fieldset>
 
             <fieldset>
                 <legend>"Limits"</legend>
-                <span class="field-error" data-testid="limits-error" aria-live="polite">{move || err("limits").get()}</span>
+                <span class="field-error" data-testid="limits-error" aria-live="polite">{move || err(Field::Limits).get()}</span>
                 <TextField label="Largest friction drop per length" id="max-drop-per-length" unit=Dimension::DropPerLength
-                    value=get(|f| f.limits.max_drop_per_length.clone().unwrap_or_default()) error=err("limits.max_drop_per_length")
+                    value=get(|f| f.limits.max_drop_per_length.clone().unwrap_or_default()) error=err(Field::MaxDropPerLength)
                     on_input=move |v| file.update(|f| f.limits.max_drop_per_length = some(v))/>
                 <TextField label="Largest total drop" id="max-total-drop" unit=Dimension::Pressure
-                    value=get(|f| f.limits.max_total_drop.clone().unwrap_or_default()) error=err("limits.max_total_drop") placeholder="none"
+                    value=get(|f| f.limits.max_total_drop.clone().unwrap_or_default()) error=err(Field::MaxTotalDrop) placeholder="none"
                     on_input=move |v| file.update(|f| f.limits.max_total_drop = some(v))/>
                 <TextField label="Largest velocity" id="max-velocity" unit=Dimension::Velocity
-                    value=get(|f| f.limits.max_velocity.clone().unwrap_or_default()) error=err("limits.max_velocity") placeholder="none"
+                    value=get(|f| f.limits.max_velocity.clone().unwrap_or_default()) error=err(Field::MaxVelocity) placeholder="none"
                     on_input=move |v| file.update(|f| f.limits.max_velocity = some(v))/>
                 <TextField label="Smallest velocity (optional)" id="min-velocity" unit=Dimension::Velocity
-                    value=get(|f| f.limits.min_velocity.clone().unwrap_or_default()) error=err("limits.min_velocity") placeholder="none"
+                    value=get(|f| f.limits.min_velocity.clone().unwrap_or_default()) error=err(Field::MinVelocity) placeholder="none"
                     on_input=move |v| file.update(|f| f.limits.min_velocity = some(v))/>
             </fieldset>
 
@@ -279,7 +307,7 @@ pub fn LineEditor(
                 </div>
                 {move || is_hw().then(|| view! {
                     <TextField label="Hazen–Williams C" id="hw-c" value=get(|f| f.hazen_williams_c.clone().unwrap_or_default())
-                        error=err("hazen_williams_c") placeholder=hw_hint
+                        error=err(Field::HazenWilliamsC) placeholder=hw_hint
                         on_input=move |v| file.update(|f| f.hazen_williams_c = some(v))/>
                 })}
             </fieldset>

@@ -1,0 +1,243 @@
+//! The inputs of a worksheet, named once. The core's errors, the sheet
+//! reader's field errors, the page's error placement and the file format
+//! documentation all use this one list.
+//!
+//! - A type, not strings: an error is routed to its input by matching a
+//!   variant, never by the words of its message, and a renamed input fails
+//!   to compile instead of silently losing its error.
+//! - The path is the field's place in the sheet file (`docs/sheet-format.md`
+//!   lists the same paths; a test holds the two together).
+
+/// One input of a line or of the sheet.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+pub enum Field {
+    /// The line as a whole (no single input is at fault).
+    Line,
+    /// Design flow.
+    Flow,
+    /// The fluid as a whole (its properties could not be found).
+    Fluid,
+    /// Fluid temperature.
+    FluidTemperature,
+    /// Water's absolute pressure.
+    FluidPressure,
+    /// Glycol strength.
+    FluidPercent,
+    /// A custom fluid's density.
+    FluidDensity,
+    /// A custom fluid's dynamic viscosity.
+    FluidViscosity,
+    /// A custom fluid's kinematic viscosity.
+    FluidKinematicViscosity,
+    /// The pipe as a whole.
+    Pipe,
+    /// The pipe series id.
+    PipeSeries,
+    /// A custom bore's inside diameter.
+    PipeDiameter,
+    /// A custom bore's material id.
+    PipeMaterial,
+    /// Absolute roughness.
+    Roughness,
+    /// Length of straight pipe.
+    Length,
+    /// The fitting rows (a kind not known).
+    Fittings,
+    /// The count of a fitting row.
+    FittingCount,
+    /// Extra ΣK.
+    ExtraK,
+    /// Equivalent length for other losses.
+    EquivalentLength,
+    /// Rise from start to end.
+    Rise,
+    /// Hazen–Williams C.
+    HazenWilliamsC,
+    /// The limits as a whole (none set, or set against each other).
+    Limits,
+    /// Largest friction drop per length.
+    MaxDropPerLength,
+    /// Largest total drop.
+    MaxTotalDrop,
+    /// Largest velocity.
+    MaxVelocity,
+    /// Smallest velocity.
+    MinVelocity,
+    /// Check mode's pinned size.
+    CheckSize,
+    /// The sheet's flow unit.
+    UnitsFlow,
+    /// The sheet's pressure unit.
+    UnitsPressure,
+    /// The sheet's drop-per-length unit.
+    UnitsDropPerLength,
+    /// The sheet's length unit.
+    UnitsLength,
+    /// The sheet's velocity unit.
+    UnitsVelocity,
+    /// The sheet's temperature unit.
+    UnitsTemperature,
+    /// The sheet's roughness unit.
+    UnitsRoughness,
+}
+
+impl Field {
+    /// Every field, in the order of the sheet file.
+    pub const ALL: [Field; 34] = [
+        Field::Line,
+        Field::Flow,
+        Field::Fluid,
+        Field::FluidTemperature,
+        Field::FluidPressure,
+        Field::FluidPercent,
+        Field::FluidDensity,
+        Field::FluidViscosity,
+        Field::FluidKinematicViscosity,
+        Field::Pipe,
+        Field::PipeSeries,
+        Field::PipeDiameter,
+        Field::PipeMaterial,
+        Field::Roughness,
+        Field::Length,
+        Field::Fittings,
+        Field::FittingCount,
+        Field::ExtraK,
+        Field::EquivalentLength,
+        Field::Rise,
+        Field::HazenWilliamsC,
+        Field::Limits,
+        Field::MaxDropPerLength,
+        Field::MaxTotalDrop,
+        Field::MaxVelocity,
+        Field::MinVelocity,
+        Field::CheckSize,
+        Field::UnitsFlow,
+        Field::UnitsPressure,
+        Field::UnitsDropPerLength,
+        Field::UnitsLength,
+        Field::UnitsVelocity,
+        Field::UnitsTemperature,
+        Field::UnitsRoughness,
+    ];
+
+    /// Its place in the sheet file, e.g. "limits.max_velocity".
+    pub fn path(self) -> &'static str {
+        match self {
+            Field::Line => "line",
+            Field::Flow => "flow",
+            Field::Fluid => "fluid",
+            Field::FluidTemperature => "fluid.temperature",
+            Field::FluidPressure => "fluid.pressure",
+            Field::FluidPercent => "fluid.percent",
+            Field::FluidDensity => "fluid.density_kg_m3",
+            Field::FluidViscosity => "fluid.viscosity_mpa_s",
+            Field::FluidKinematicViscosity => "fluid.kinematic_viscosity_mm2_s",
+            Field::Pipe => "pipe",
+            Field::PipeSeries => "pipe.series",
+            Field::PipeDiameter => "pipe.diameter",
+            Field::PipeMaterial => "pipe.material",
+            Field::Roughness => "roughness",
+            Field::Length => "length",
+            Field::Fittings => "fittings",
+            Field::FittingCount => "fittings.count",
+            Field::ExtraK => "extra_k",
+            Field::EquivalentLength => "equivalent_length",
+            Field::Rise => "rise",
+            Field::HazenWilliamsC => "hazen_williams_c",
+            Field::Limits => "limits",
+            Field::MaxDropPerLength => "limits.max_drop_per_length",
+            Field::MaxTotalDrop => "limits.max_total_drop",
+            Field::MaxVelocity => "limits.max_velocity",
+            Field::MinVelocity => "limits.min_velocity",
+            Field::CheckSize => "check_size",
+            Field::UnitsFlow => "units.flow",
+            Field::UnitsPressure => "units.pressure",
+            Field::UnitsDropPerLength => "units.drop_per_length",
+            Field::UnitsLength => "units.length",
+            Field::UnitsVelocity => "units.velocity",
+            Field::UnitsTemperature => "units.temperature",
+            Field::UnitsRoughness => "units.roughness",
+        }
+    }
+
+    /// How the core's messages name it ("inside diameter must be …").
+    pub fn label(self) -> &'static str {
+        match self {
+            Field::Line => "the line",
+            Field::Flow => "flow",
+            Field::Fluid => "the fluid",
+            Field::FluidTemperature => "temperature",
+            Field::FluidPressure => "pressure",
+            Field::FluidPercent => "glycol strength",
+            Field::FluidDensity => "density",
+            Field::FluidViscosity | Field::FluidKinematicViscosity => "viscosity",
+            Field::Pipe | Field::PipeSeries => "the pipe",
+            Field::PipeDiameter => "inside diameter",
+            Field::PipeMaterial => "material",
+            Field::Roughness => "roughness",
+            Field::Length => "length",
+            Field::Fittings => "fittings",
+            Field::FittingCount => "count",
+            Field::ExtraK => "ΣK",
+            Field::EquivalentLength => "equivalent length",
+            Field::Rise => "rise",
+            Field::HazenWilliamsC => "Hazen–Williams C",
+            Field::Limits => "limits",
+            Field::MaxDropPerLength => "drop-per-length limit",
+            Field::MaxTotalDrop => "total-drop limit",
+            Field::MaxVelocity => "maximum velocity",
+            Field::MinVelocity => "minimum velocity",
+            Field::CheckSize => "checked size",
+            Field::UnitsFlow => "flow unit",
+            Field::UnitsPressure => "pressure unit",
+            Field::UnitsDropPerLength => "drop-per-length unit",
+            Field::UnitsLength => "length unit",
+            Field::UnitsVelocity => "velocity unit",
+            Field::UnitsTemperature => "temperature unit",
+            Field::UnitsRoughness => "roughness unit",
+        }
+    }
+
+    /// The field of a path, if it is one.
+    pub fn from_path(path: &str) -> Option<Field> {
+        Field::ALL.into_iter().find(|f| f.path() == path)
+    }
+}
+
+impl std::fmt::Display for Field {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(self.path())
+    }
+}
+
+impl PartialEq<&str> for Field {
+    fn eq(&self, other: &&str) -> bool {
+        self.path() == *other
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn paths_are_unique_and_read_back() {
+        for f in Field::ALL {
+            assert_eq!(Field::from_path(f.path()), Some(f));
+        }
+        let mut paths: Vec<&str> = Field::ALL.iter().map(|f| f.path()).collect();
+        paths.sort_unstable();
+        paths.dedup();
+        assert_eq!(paths.len(), Field::ALL.len());
+    }
+
+    #[test]
+    fn the_format_documentation_lists_exactly_these_paths() {
+        let doc = include_str!("../../docs/sheet-format.md");
+        let start = doc.find("<!-- field paths -->").expect("marker in docs/sheet-format.md");
+        let end = doc.find("<!-- end field paths -->").expect("end marker");
+        let listed: Vec<&str> = doc[start..end].split('`').skip(1).step_by(2).collect();
+        let ours: Vec<&str> = Field::ALL.iter().map(|f| f.path()).collect();
+        assert_eq!(listed, ours);
+    }
+}
