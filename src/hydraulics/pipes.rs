@@ -62,6 +62,26 @@ pub struct Roughness {
 }
 
 impl Material {
+    /// Every material, in listing order.
+    pub const ALL: [Material; 5] =
+        [Material::CarbonSteel, Material::StainlessSteel, Material::Copper, Material::Pvc, Material::Polyethylene];
+
+    /// Its stable id in sheet files (a format: never change one).
+    pub fn id(self) -> &'static str {
+        match self {
+            Material::CarbonSteel => "carbon-steel",
+            Material::StainlessSteel => "stainless",
+            Material::Copper => "copper",
+            Material::Pvc => "pvc",
+            Material::Polyethylene => "pe",
+        }
+    }
+
+    /// The material of an id.
+    pub fn from_id(id: &str) -> Option<Material> {
+        Material::ALL.into_iter().find(|m| m.id() == id)
+    }
+
     /// A plain name for display.
     pub fn name(self) -> &'static str {
         match self {

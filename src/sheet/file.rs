@@ -623,14 +623,7 @@ fn plain_number(errors: &mut Vec<FieldError>, field: Field, text: &str) -> Optio
 
 /// Material ids accepted for a custom bore.
 pub fn material_from_id(id: &str) -> Option<pipes::Material> {
-    Some(match id {
-        "carbon-steel" => pipes::Material::CarbonSteel,
-        "stainless" => pipes::Material::StainlessSteel,
-        "copper" => pipes::Material::Copper,
-        "pvc" => pipes::Material::Pvc,
-        "pe" => pipes::Material::Polyethylene,
-        _ => return None,
-    })
+    pipes::Material::from_id(id)
 }
 
 impl LineFile {
@@ -779,7 +772,10 @@ impl LineFile {
                 if m.is_none() {
                     e.push(FieldError {
                         field: Field::PipeMaterial,
-                        message: format!("'{material}' is not one of carbon-steel, stainless, copper, pvc, pe"),
+                        message: format!(
+                            "'{material}' is not one of {}",
+                            pipes::Material::ALL.map(pipes::Material::id).join(", ")
+                        ),
                     });
                 }
                 (d.map(|d| Pipe::Custom(Length::new::<meter>(d))), m)

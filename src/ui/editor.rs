@@ -19,16 +19,6 @@ fn material_of(f: &LineFile) -> Option<Material> {
     }
 }
 
-fn material_id(m: Material) -> &'static str {
-    match m {
-        Material::CarbonSteel => "carbon-steel",
-        Material::StainlessSteel => "stainless",
-        Material::Copper => "copper",
-        Material::Pvc => "pvc",
-        Material::Polyethylene => "pe",
-    }
-}
-
 /// The fields whose errors the editor shows beside an input (each fitting
 /// row checks its own count); the others are listed at the top.
 pub const BESIDE_INPUTS: [Field; 21] = [
@@ -104,7 +94,7 @@ pub fn LineEditor(
             f.check_size = None;
             f.pipe = if v == "custom" {
                 let m = material_of(f).unwrap_or(Material::CarbonSteel);
-                PipeFile::Bore { diameter: "50 mm".into(), material: material_id(m).into() }
+                PipeFile::Bore { diameter: "50 mm".into(), material: m.id().into() }
             } else {
                 PipeFile::Series(v)
             };
@@ -241,8 +231,8 @@ pub fn LineEditor(
                         <label for="pipe-material">"Material (for roughness)"</label>
                         <select id="pipe-material" data-testid="pipe-material"
                             on:change=move |ev| { let v = event_target_value(&ev); file.update(|f| if let PipeFile::Bore { material, .. } = &mut f.pipe { *material = v }) }>
-                            {[Material::CarbonSteel, Material::StainlessSteel, Material::Copper, Material::Pvc, Material::Polyethylene].into_iter().map(|m| {
-                                let id = material_id(m);
+                            {Material::ALL.into_iter().map(|m| {
+                                let id = m.id();
                                 view! { <option value=id selected=move || file.with(|f| matches!(&f.pipe, PipeFile::Bore { material, .. } if material == id))>{m.name()}</option> }
                             }).collect_view()}
                         </select>

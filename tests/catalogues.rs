@@ -1,0 +1,37 @@
+//! The catalogues' ids are a file format: the documentation lists exactly
+//! the ids the code reads, in the code's order.
+#![cfg(not(target_arch = "wasm32"))]
+
+use headroom::hydraulics::field::Field;
+use headroom::hydraulics::losses::Fitting;
+use headroom::hydraulics::pipes::{Material, SERIES};
+
+const DOC: &str = include_str!("../docs/sheet-format.md");
+
+/// The `backticked` words between `<!-- NAME -->` and `<!-- end NAME -->`.
+fn listed(name: &str) -> Vec<&'static str> {
+    let start = DOC.find(&format!("<!-- {name} -->")).unwrap_or_else(|| panic!("no {name} list in the docs"));
+    let end = DOC.find(&format!("<!-- end {name} -->")).unwrap_or_else(|| panic!("no end of {name}"));
+    DOC[start..end].split('`').skip(1).step_by(2).collect()
+}
+
+#[test]
+fn the_docs_list_every_series_material_fitting_and_field_id() {
+    assert_eq!(listed("series ids"), SERIES.iter().map(|s| s.id).collect::<Vec<_>>());
+    assert_eq!(listed("material ids"), Material::ALL.map(Material::id));
+    assert_eq!(listed("fitting ids"), Fitting::ALL.map(Fitting::id));
+    assert_eq!(listed("field paths"), Field::ALL.map(Field::path));
+}
+
+#[test]
+fn every_id_reads_back_to_its_entry() {
+    for m in Material::ALL {
+        assert_eq!(Material::from_id(m.id()), Some(m));
+    }
+    for f in Fitting::ALL {
+        assert_eq!(Fitting::from_id(f.id()), Some(f));
+    }
+    for s in SERIES {
+        assert_eq!(headroom::hydraulics::pipes::series(s.id).map(|x| x.id), Some(s.id));
+    }
+}
