@@ -28,6 +28,25 @@ fn keys() -> Vec<String> {
     (0..s.length().unwrap()).filter_map(|i| s.key(i).unwrap()).collect()
 }
 
+/// Fills the origin's storage to the brim with other data, then in ever
+/// smaller pieces until not even a byte fits.
+fn fill_storage() {
+    let s = storage();
+    let chunk = "x".repeat(256 * 1024);
+    let mut n = 0;
+    while s.set_item(&format!("filler.{n}"), &chunk).is_ok() {
+        n += 1;
+        assert!(n < 200, "storage never filled");
+    }
+    for (size, tag) in [(4096, "a"), (256, "b"), (16, "c"), (1, "d")] {
+        let piece = "y".repeat(size);
+        let mut m = 0;
+        while s.set_item(&format!("f{tag}{m}"), &piece).is_ok() {
+            m += 1;
+        }
+    }
+}
+
 /// A fresh page: empty storage, no fragment, no earlier mounts visible.
 fn fresh() {
     storage().clear().unwrap();
@@ -136,22 +155,8 @@ async fn full_storage_says_so_and_work_goes_on() {
     fresh();
     let page = mount_app();
     settle().await;
-    // Fill the origin's storage to the brim with other data.
     let s = storage();
-    let chunk = "x".repeat(256 * 1024);
-    let mut n = 0;
-    while s.set_item(&format!("filler.{n}"), &chunk).is_ok() {
-        n += 1;
-        assert!(n < 200, "storage never filled");
-    }
-    // Then in ever smaller pieces, until not even a few bytes fit.
-    for (size, tag) in [(4096, "a"), (256, "b"), (16, "c"), (1, "d")] {
-        let piece = "y".repeat(size);
-        let mut m = 0;
-        while s.set_item(&format!("f{tag}{m}"), &piece).is_ok() {
-            m += 1;
-        }
-    }
+    fill_storage();
     click(&page, "add-line");
     settle().await;
     type_into(&page, "flow", "2");
@@ -479,19 +484,7 @@ async fn a_link_that_cannot_be_stored_stays_in_the_address() {
     hashchange();
     settle().await;
     let s = storage();
-    let chunk = "x".repeat(256 * 1024);
-    let mut n = 0;
-    while s.set_item(&format!("filler.{n}"), &chunk).is_ok() {
-        n += 1;
-        assert!(n < 200, "storage never filled");
-    }
-    for (size, tag) in [(4096, "a"), (256, "b"), (16, "c"), (1, "d")] {
-        let piece = "y".repeat(size);
-        let mut m = 0;
-        while s.set_item(&format!("f{tag}{m}"), &piece).is_ok() {
-            m += 1;
-        }
-    }
+    fill_storage();
     click(&page, "open-link");
     settle().await;
     let notices = all_text(&page, "notice").join(" ");
