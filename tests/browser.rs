@@ -262,3 +262,33 @@ async fn an_error_that_belongs_to_no_input_is_shown_in_the_answer() {
     assert_eq!(text(&root, "proposed-size"), "—");
     assert_eq!(text(&root, "line-errors"), "fittings: 'elbow-999' is not a fitting Headroom knows");
 }
+
+#[wasm_bindgen_test]
+async fn drawing_results_runs_no_solve_and_an_edit_solves_one_line_only() {
+    use headroom::hydraulics::sizing::SOLVES;
+    let (root, sheet) = mount_sheet(|s| {
+        for i in 0..20 {
+            chilled(s, &format!("line {i}"), &format!("{}", 2 + i));
+        }
+    });
+    let ids: Vec<u32> = sheet.lines.with_untracked(|v| v.iter().map(|s| s.id).collect());
+    sheet.selected.set(Some(ids[0]));
+    leptos::task::tick().await;
+    // Showing other lines' results (size table, capacities, chart, worked
+    // steps) draws what each line's result already holds.
+    let before = SOLVES.load(Ordering::Relaxed);
+    for id in [ids[7], ids[12], ids[0]] {
+        sheet.selected.set(Some(id));
+        leptos::task::tick().await;
+        assert_eq!(all_text(&root, "size-row").len(), 5);
+    }
+    assert_eq!(SOLVES.load(Ordering::Relaxed) - before, 0, "drawing a result ran a solve");
+    // An edit of one line runs that line's solves and nobody else's: one
+    // search, a capacity for each size in the table, one worked trace.
+    let before = SOLVES.load(Ordering::Relaxed);
+    type_into(&root, "flow", "9");
+    leptos::task::tick().await;
+    let o = sheet.lines.with_untracked(|v| v[0].report.get_untracked()).outcome.unwrap();
+    let one_line = 1 + o.nearby.len() + usize::from(o.shown.is_some());
+    assert_eq!(SOLVES.load(Ordering::Relaxed) - before, one_line);
+}

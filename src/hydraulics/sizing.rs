@@ -111,11 +111,21 @@ fn candidate(line: &Line, props: &Properties, nominal: &'static str, bore: Lengt
     Candidate { nominal, point, checks, binding }
 }
 
+/// How many sizing solves (searches, checks, capacity solves, traces) have
+/// run in this process: instrumentation, so tests can show that drawing a
+/// result runs none.
+pub static SOLVES: std::sync::atomic::AtomicUsize = std::sync::atomic::AtomicUsize::new(0);
+
+fn count_solve() {
+    SOLVES.fetch_add(1, std::sync::atomic::Ordering::Relaxed);
+}
+
 /// Evaluates every size and proposes the smallest that meets every limit.
 ///
 /// # Errors
 /// A [`LineError`] for input the core cannot work with.
 pub fn size(line: &Line) -> Result<Sizing, LineError> {
+    count_solve();
     let props = line.validate()?;
     let candidates: Vec<Candidate> =
         line.pipe.bores().into_iter().map(|(n, d)| candidate(line, &props, n, d)).collect();
@@ -145,6 +155,7 @@ pub fn size(line: &Line) -> Result<Sizing, LineError> {
 /// # Errors
 /// A [`LineError`] for bad input; `Ok(None)` when the series has no such size.
 pub fn check(line: &Line, nominal: &str) -> Result<Option<Candidate>, LineError> {
+    count_solve();
     let props = line.validate()?;
     Ok(line.pipe.bores().into_iter().find(|(n, _)| *n == nominal).map(|(n, d)| candidate(line, &props, n, d)))
 }
@@ -211,6 +222,7 @@ fn largest_within(mut g: impl FnMut(f64) -> f64, start: f64) -> Option<f64> {
 /// # Errors
 /// A [`LineError`] for bad input.
 pub fn capacity(line: &Line, bore: Length) -> Result<Capacity, LineError> {
+    count_solve();
     let props = line.validate()?;
     let area = super::geometry::flow_area(bore);
     let l = &line.limits;
@@ -257,6 +269,7 @@ pub struct Step {
 
 /// The explain trace for one candidate of a line.
 pub fn trace(line: &Line, props: &Properties, c: &Candidate) -> Vec<Step> {
+    count_solve();
     use super::fluid::Fluid;
     let p = &c.point;
     let fluid_source = match line.fluid {

@@ -8,7 +8,7 @@ use super::units::{format_number, from_si, show, Unit};
 use crate::hydraulics::field::Field;
 use crate::hydraulics::friction::Regime;
 use crate::hydraulics::line::Line;
-use crate::hydraulics::sizing::{self, Candidate, Capacity, Sizing};
+use crate::hydraulics::sizing::{self, Candidate, Capacity, Sizing, Step};
 
 /// Shown on every result, export and printout.
 pub const CAUTION: &str = "Design guidance only. Check every result against the governing \
@@ -29,6 +29,28 @@ pub struct Outcome {
     pub checked: bool,
     /// Capacity of the shown size.
     pub capacity: Option<Capacity>,
+    /// The sizes shown around the answer (up to two either side of it, or
+    /// the largest sizes when none meets the limits), with their capacity.
+    pub nearby: Vec<Nearby>,
+    /// The worked steps for the shown size (empty when there is none).
+    pub trace: Vec<Step>,
+}
+
+/// A size near the answer, with the largest flow it carries within the
+/// limits: computed once with the line's result, only drawn by views.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Nearby {
+    /// Index into the candidates.
+    pub index: usize,
+    /// Its capacity, when one can be found.
+    pub capacity: Option<Capacity>,
+}
+
+/// The candidates around the answer: two either side of `shown`, or the
+/// last five when no size meets the limits.
+pub fn window(shown: Option<usize>, n: usize) -> std::ops::Range<usize> {
+    let centre = shown.unwrap_or(n.saturating_sub(1));
+    centre.saturating_sub(2)..(centre + 3).min(n)
 }
 
 /// One line of the sheet, evaluated.
@@ -59,8 +81,12 @@ pub fn evaluate_line(number: usize, lf: &LineFile, units: &Units) -> LineReport 
             },
             None => (sizing.proposed, false),
         };
-        let capacity = shown.and_then(|i| sizing::capacity(&line, sizing.candidates[i].point.bore).ok());
-        Ok(Outcome { line, sizing, shown, checked, capacity })
+        let nearby: Vec<Nearby> = window(shown, sizing.candidates.len())
+            .map(|index| Nearby { index, capacity: sizing::capacity(&line, sizing.candidates[index].point.bore).ok() })
+            .collect();
+        let capacity = shown.and_then(|i| nearby.iter().find(|n| n.index == i)).and_then(|n| n.capacity);
+        let trace = shown.map(|i| sizing::trace(&line, &sizing.properties, &sizing.candidates[i])).unwrap_or_default();
+        Ok(Outcome { line, sizing, shown, checked, capacity, nearby, trace })
     });
     LineReport { number, name: lf.name.clone(), outcome }
 }

@@ -5,7 +5,7 @@ use leptos::prelude::*;
 
 use super::state::{Sheet, Slot};
 use crate::hydraulics::line::Limit;
-use crate::hydraulics::sizing::{self, Candidate};
+use crate::hydraulics::sizing::Candidate;
 use crate::sheet::chart;
 use crate::sheet::file::Units;
 use crate::sheet::report::{regime_name, Outcome};
@@ -110,14 +110,12 @@ fn Answer(o: Outcome, u: Units) -> impl IntoView {
 #[component]
 fn SizeTable(o: Outcome, u: Units, file: RwSignal<crate::sheet::file::LineFile>) -> impl IntoView {
     let rho = o.sizing.properties.density_kg_m3();
-    let n = o.sizing.candidates.len();
-    let centre = o.shown.unwrap_or(n.saturating_sub(1));
-    let (from, to) = (centre.saturating_sub(2), (centre + 3).min(n));
     let pinned = o.checked;
-    let rows = o.sizing.candidates[from..to].iter().enumerate().map(|(k, c): (usize, &Candidate)| {
-        let i = from + k;
+    let rows = o.nearby.iter().map(|near| {
+        let i = near.index;
+        let c: &Candidate = &o.sizing.candidates[i];
         let p = c.point;
-        let cap = sizing::capacity(&o.line, p.bore).ok().and_then(|c| c.max_flow).map(|q| units::show(q.value, u.flow, Some(rho), 3)).unwrap_or_else(|| "—".into());
+        let cap = near.capacity.and_then(|c| c.max_flow).map(|q| units::show(q.value, u.flow, Some(rho), 3)).unwrap_or_else(|| "—".into());
         let verdict = if c.passes() { "meets" } else { "fails" };
         let nominal = c.nominal;
         let is_shown = o.shown == Some(i);
@@ -209,8 +207,7 @@ pub fn Moody(
 
 #[component]
 fn Explain(o: Outcome) -> impl IntoView {
-    let steps =
-        o.shown.map(|i| sizing::trace(&o.line, &o.sizing.properties, &o.sizing.candidates[i])).unwrap_or_default();
+    let steps = o.trace;
     view! {
         <details class="explain" data-testid="explain">
             <summary>"How this was worked out"</summary>
