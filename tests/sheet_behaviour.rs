@@ -95,7 +95,7 @@ fn the_explain_trace_names_formula_and_source_for_each_step() {
     )
     .unwrap();
     let c = o.sizing.proposal().unwrap();
-    let steps = sizing::trace(&o.line, &o.sizing.properties, c);
+    let steps = sizing::trace(&o.line, c);
     let symbols: Vec<&str> = steps.iter().map(|s| s.symbol).collect();
     assert_eq!(symbols, ["ρ", "μ", "D", "V", "Re", "ε/D", "f", "Δp/L", "Δp_f", "ΣK", "Δp_K", "Δp_z", "Δp"]);
     assert!(steps.iter().all(|s| !s.formula.is_empty() && !s.source.is_empty() && s.value.is_finite()));

@@ -135,7 +135,7 @@ fn check_mode_and_capacity() {
     let cap = o.capacity.unwrap();
     let q = cap.max_flow.unwrap();
     // At the capacity flow the drop is the limit, to solver precision.
-    let mut at_cap = o.line.clone();
+    let mut at_cap = o.line.line().clone();
     at_cap.flow = q;
     let p = at_cap.point(&o.sizing.properties, c.point.bore, q);
     let limit = 0.04 * o.sizing.properties.density_kg_m3() * 9.80665;

@@ -241,6 +241,38 @@ impl LineError {
     }
 }
 
+/// A line whose inputs passed [`Line::validate`], with its fluid's
+/// properties found once. Reads as the [`Line`] it holds.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Valid {
+    line: Line,
+    props: Properties,
+}
+
+impl Valid {
+    /// The line.
+    pub fn line(&self) -> &Line {
+        &self.line
+    }
+
+    /// Density and viscosity at the line's temperature and pressure.
+    pub fn properties(&self) -> Properties {
+        self.props
+    }
+
+    /// The line, to change and validate again.
+    pub fn into_line(self) -> Line {
+        self.line
+    }
+}
+
+impl std::ops::Deref for Valid {
+    type Target = Line;
+    fn deref(&self) -> &Line {
+        &self.line
+    }
+}
+
 impl Line {
     /// Density and viscosity at the line's temperature and pressure.
     ///
@@ -250,11 +282,18 @@ impl Line {
         self.fluid.properties(self.temperature, self.pressure).map_err(LineError::Fluid)
     }
 
-    /// Checks every input that the core cannot work without.
+    /// Checks every input that the core cannot work without, once: the
+    /// sizing functions take the [`Valid`] line this returns, so nothing
+    /// re-checks per size or per table row.
     ///
     /// # Errors
     /// The first bad input, as a [`LineError`].
-    pub fn validate(&self) -> Result<Properties, LineError> {
+    pub fn validate(self) -> Result<Valid, LineError> {
+        let props = self.check_inputs()?;
+        Ok(Valid { line: self, props })
+    }
+
+    fn check_inputs(&self) -> Result<Properties, LineError> {
         positive(self.flow.value, Field::Flow)?;
         // Bounds far outside any pipe a person would size, so that no input
         // can overflow the arithmetic (they are not design advice).

@@ -8,7 +8,7 @@ use uom::si::volume_rate::cubic_meter_per_second;
 
 use super::fluid::Properties;
 use super::friction::Regime;
-use super::line::{Limit, Line, LineError, Method, Point};
+use super::line::{Limit, Line, LineError, Method, Point, Valid};
 
 /// One limit checked at one size.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -124,9 +124,9 @@ fn count_solve() {
 ///
 /// # Errors
 /// A [`LineError`] for input the core cannot work with.
-pub fn size(line: &Line) -> Result<Sizing, LineError> {
+pub fn size(line: &Valid) -> Result<Sizing, LineError> {
     count_solve();
-    let props = line.validate()?;
+    let props = line.properties();
     let candidates: Vec<Candidate> =
         line.pipe.bores().into_iter().map(|(n, d)| candidate(line, &props, n, d)).collect();
     let finite = candidates.iter().all(|c| {
@@ -154,9 +154,9 @@ pub fn size(line: &Line) -> Result<Sizing, LineError> {
 ///
 /// # Errors
 /// A [`LineError`] for bad input; `Ok(None)` when the series has no such size.
-pub fn check(line: &Line, nominal: &str) -> Result<Option<Candidate>, LineError> {
+pub fn check(line: &Valid, nominal: &str) -> Result<Option<Candidate>, LineError> {
     count_solve();
-    let props = line.validate()?;
+    let props = line.properties();
     Ok(line.pipe.bores().into_iter().find(|(n, _)| *n == nominal).map(|(n, d)| candidate(line, &props, n, d)))
 }
 
@@ -221,9 +221,9 @@ fn largest_within(mut g: impl FnMut(f64) -> f64, start: f64) -> Option<f64> {
 ///
 /// # Errors
 /// A [`LineError`] for bad input.
-pub fn capacity(line: &Line, bore: Length) -> Result<Capacity, LineError> {
+pub fn capacity(line: &Valid, bore: Length) -> Result<Capacity, LineError> {
     count_solve();
-    let props = line.validate()?;
+    let props = line.properties();
     let area = super::geometry::flow_area(bore);
     let l = &line.limits;
     let mut best: Option<(f64, Limit)> = None;
@@ -268,8 +268,9 @@ pub struct Step {
 }
 
 /// The explain trace for one candidate of a line.
-pub fn trace(line: &Line, props: &Properties, c: &Candidate) -> Vec<Step> {
+pub fn trace(line: &Valid, c: &Candidate) -> Vec<Step> {
     count_solve();
+    let props = &line.properties();
     use super::fluid::Fluid;
     let p = &c.point;
     let fluid_source = match line.fluid {

@@ -23,7 +23,7 @@ use super::number::{parse_count, parse_decimal};
 use super::units::{self, Dimension, Unit};
 use crate::hydraulics::field::Field;
 use crate::hydraulics::fluid::{Fluid, Glycol, Properties};
-use crate::hydraulics::line::{pa_per_m, Limits, Line, Method, Pipe};
+use crate::hydraulics::line::{pa_per_m, Limits, Line, Method, Pipe, Valid};
 use crate::hydraulics::losses::{Fitting, Fittings};
 use crate::hydraulics::pipes;
 
@@ -680,7 +680,7 @@ impl LineFile {
     ///
     /// # Errors
     /// Every [`FieldError`] found.
-    pub fn to_line(&self, units: &Units) -> Result<Line, Vec<FieldError>> {
+    pub fn to_line(&self, units: &Units) -> Result<Valid, Vec<FieldError>> {
         let mut errors = Vec::new();
         let e = &mut errors;
         let kelvin_of = |e: &mut Vec<FieldError>, t: &str| {
@@ -891,10 +891,7 @@ impl LineFile {
                 };
                 // The core's own checks (positive flow, finite values …),
                 // reported against the field they concern.
-                match line.validate() {
-                    Ok(_) => Ok(line),
-                    Err(err) => Err(vec![FieldError { field: err.field(), message: err.to_string() }]),
-                }
+                line.validate().map_err(|err| vec![FieldError { field: err.field(), message: err.to_string() }])
             }
             _ => Err(errors),
         }

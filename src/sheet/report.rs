@@ -7,7 +7,7 @@ use super::file::{FieldError, LineFile, SheetFile, Units};
 use super::units::{format_number, from_si, show, Unit};
 use crate::hydraulics::field::Field;
 use crate::hydraulics::friction::Regime;
-use crate::hydraulics::line::Line;
+use crate::hydraulics::line::Valid;
 use crate::hydraulics::sizing::{self, Candidate, Capacity, Sizing, Step};
 
 /// Shown on every result, export and printout.
@@ -18,8 +18,8 @@ pub const CAUTION: &str = "Design guidance only. Check every result against the 
 /// A line's result.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Outcome {
-    /// The core's line.
-    pub line: Line,
+    /// The core's line, validated.
+    pub line: Valid,
     /// Every candidate size and the proposal.
     pub sizing: Sizing,
     /// The candidate reported: the checked size in check mode, else the
@@ -85,7 +85,7 @@ pub fn evaluate_line(number: usize, lf: &LineFile, units: &Units) -> LineReport 
             .map(|index| Nearby { index, capacity: sizing::capacity(&line, sizing.candidates[index].point.bore).ok() })
             .collect();
         let capacity = shown.and_then(|i| nearby.iter().find(|n| n.index == i)).and_then(|n| n.capacity);
-        let trace = shown.map(|i| sizing::trace(&line, &sizing.properties, &sizing.candidates[i])).unwrap_or_default();
+        let trace = shown.map(|i| sizing::trace(&line, &sizing.candidates[i])).unwrap_or_default();
         Ok(Outcome { line, sizing, shown, checked, capacity, nearby, trace })
     });
     LineReport { number, name: lf.name.clone(), outcome }
