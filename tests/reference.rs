@@ -8,11 +8,11 @@
 
 use std::path::PathBuf;
 
+use headroom::hydraulics::fluid::{glycol, water};
 use headroom::hydraulics::fluid::{Fluid, Glycol};
 use headroom::hydraulics::friction::colebrook;
 use headroom::hydraulics::losses::{Fitting, KMethod};
 use headroom::hydraulics::pipes::SERIES;
-use headroom::hydraulics::{glycol, water};
 use serde_json::Value;
 use uom::si::f64::{Pressure, ThermodynamicTemperature};
 use uom::si::length::millimeter;

@@ -271,13 +271,8 @@ pub struct Step {
 pub fn trace(line: &Valid, c: &Candidate) -> Vec<Step> {
     count_solve();
     let props = &line.properties();
-    use super::fluid::Fluid;
     let p = &c.point;
-    let fluid_source = match line.fluid {
-        Fluid::Water => "IAPWS-IF97 region 1 (density); IAPWS 2008 (viscosity)",
-        Fluid::GlycolMix(..) => "Melinder (2010) via CoolProp INCOMP tables, interpolated",
-        Fluid::Custom(_) => "entered by the user",
-    };
+    let fluid_source = line.fluid.sources();
     let (f_formula, f_source) = match (line.method, p.regime) {
         (Method::HazenWilliams { .. }, _) => (
             "f = 2 g D S / V², S from V = 0.849 C (D/4)^0.63 S^0.54",

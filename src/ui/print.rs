@@ -115,8 +115,8 @@ fn PrintLine(line: Slot, number: usize) -> impl IntoView {
                 let method = match o.line.method { Method::DarcyWeisbach => "Darcy–Weisbach, Colebrook".to_owned(), Method::HazenWilliams { c } => format!("Hazen–Williams, C = {c}") };
                 let bores = match o.line.pipe { Pipe::Series(_) => "standard inside diameters", Pipe::Custom(_) => "the bore entered" };
                 let assumptions = format!(
-                    "ρ = {} kg/m³, μ = {} mPa·s; ε = {} mm; {method}; {bores}",
-                    format_number(rho, 5), format_number(mu * 1e3, 4), format_number(o.line.roughness.value * 1e3, 3)
+                    "ρ = {} kg/m³, μ = {} mPa·s ({}); ε = {} mm; {method}; {bores}",
+                    format_number(rho, 5), format_number(mu * 1e3, 4), o.line.fluid.sources(), format_number(o.line.roughness.value * 1e3, 3)
                 );
                 let answer = match o.shown {
                     None => format!("No size meets the limits; the largest fails {}.", o.sizing.failing_at_largest.iter().map(|l| l.name()).collect::<Vec<_>>().join(", ")),

@@ -1,4 +1,4 @@
-"""Writes src/hydraulics/glycol_table.rs: density and viscosity of ethylene
+"""Writes src/hydraulics/fluid/glycol_table.rs: density and viscosity of ethylene
 and propylene glycol solutions on a grid, tabulated from CoolProp's
 incompressible mixtures INCOMP::MEG and INCOMP::MPG, which implement the
 fits of Melinder, Å. (2010), Properties of Secondary Working Fluids for
@@ -78,5 +78,5 @@ for code, label in [("MEG", "ETHYLENE"), ("MPG", "PROPYLENE")]:
         rows(code, "V", math.log),
         "];",
     ]
-open("src/hydraulics/glycol_table.rs", "w").write("\n".join(lines) + "\n")
-print("wrote src/hydraulics/glycol_table.rs")
+open("src/hydraulics/fluid/glycol_table.rs", "w").write("\n".join(lines) + "\n")
+print("wrote src/hydraulics/fluid/glycol_table.rs")

@@ -24,7 +24,10 @@ use uom::si::mass_density::kilogram_per_cubic_meter;
 use uom::si::pressure::pascal;
 use uom::si::thermodynamic_temperature::kelvin;
 
-use super::fluid::{FluidError, Properties};
+use super::properties::{FluidError, Properties};
+
+/// Where water's numbers come from.
+pub const SOURCES: &str = "IAPWS-IF97 region 1 (density); IAPWS 2008 (viscosity)";
 
 /// Specific gas constant of water used by IF97, J/(kg·K) (IF97 eq. 1).
 const R: f64 = 461.526;
@@ -139,7 +142,7 @@ pub const RANGE_C: (f64, f64) = (0.0, 150.0);
 /// ```
 /// use uom::si::f64::{Pressure, ThermodynamicTemperature};
 /// use uom::si::{pressure::kilopascal, thermodynamic_temperature::degree_celsius};
-/// let w = headroom::hydraulics::water::properties(
+/// let w = headroom::hydraulics::fluid::water::properties(
 ///     ThermodynamicTemperature::new::<degree_celsius>(20.0),
 ///     Pressure::new::<kilopascal>(101.325),
 /// ).unwrap();

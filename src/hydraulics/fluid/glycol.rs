@@ -18,8 +18,12 @@ use uom::si::f64::{DynamicViscosity, MassDensity, ThermodynamicTemperature};
 use uom::si::mass_density::kilogram_per_cubic_meter;
 use uom::si::thermodynamic_temperature::degree_celsius;
 
-use super::fluid::{FluidError, Glycol, Properties};
 use super::glycol_table as table;
+use super::properties::{FluidError, Properties};
+use super::Glycol;
+
+/// Where a glycol solution's numbers come from.
+pub const SOURCES: &str = "Melinder (2010) via CoolProp INCOMP tables, interpolated";
 
 /// Highest temperature tabulated, °C.
 pub const T_MAX_C: f64 = 100.0;
@@ -63,7 +67,7 @@ pub fn freezing_point_c(g: Glycol, fraction: f64) -> Result<f64, FluidError> {
 ///
 /// # Examples
 /// ```
-/// use headroom::hydraulics::{fluid::Glycol, glycol};
+/// use headroom::hydraulics::fluid::{glycol, Glycol};
 /// use uom::si::{f64::ThermodynamicTemperature, thermodynamic_temperature::degree_celsius};
 /// let p = glycol::properties(Glycol::Ethylene, 0.30, ThermodynamicTemperature::new::<degree_celsius>(20.0)).unwrap();
 /// // CoolProp 8.0.0 INCOMP::MEG-30% at 20 °C: 1038.05 kg/m³, 2.166 mPa·s.

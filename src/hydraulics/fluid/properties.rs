@@ -1,8 +1,8 @@
-//! Fluid properties a line needs: density and dynamic viscosity, and the
-//! fluids we know (water, glycol solutions, or a fluid typed in directly).
+//! What a line needs of its fluid (density and dynamic viscosity), and why
+//! a fluid may not be able to give it. Depends on no other fluid module.
 
 use uom::si::dynamic_viscosity::pascal_second;
-use uom::si::f64::{DynamicViscosity, MassDensity, Pressure, ThermodynamicTemperature};
+use uom::si::f64::{DynamicViscosity, MassDensity};
 use uom::si::mass_density::kilogram_per_cubic_meter;
 
 /// Density and dynamic viscosity at the line's conditions.
@@ -95,45 +95,3 @@ impl std::fmt::Display for FluidError {
 }
 
 impl std::error::Error for FluidError {}
-
-/// Which glycol is mixed with the water.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
-pub enum Glycol {
-    /// Ethylene glycol (monoethylene glycol, MEG).
-    Ethylene,
-    /// Propylene glycol (monopropylene glycol, MPG).
-    Propylene,
-}
-
-/// The fluid in a line.
-#[derive(Debug, Clone, Copy, PartialEq)]
-pub enum Fluid {
-    /// Liquid water (IAPWS).
-    Water,
-    /// A glycol in water, by mass fraction of glycol (0.3 = 30 %).
-    GlycolMix(Glycol, f64),
-    /// Properties typed in directly.
-    Custom(Properties),
-}
-
-impl Fluid {
-    /// Properties at a temperature and absolute pressure.
-    ///
-    /// # Errors
-    /// See [`FluidError`].
-    pub fn properties(&self, t: ThermodynamicTemperature, p: Pressure) -> Result<Properties, FluidError> {
-        match *self {
-            Fluid::Water => super::water::properties(t, p),
-            Fluid::GlycolMix(g, x) => super::glycol::properties(g, x, t),
-            Fluid::Custom(props) => {
-                if !(props.density_kg_m3().is_finite() && props.density_kg_m3() > 0.0) {
-                    return Err(FluidError::Custom("density"));
-                }
-                if !(props.viscosity_pa_s().is_finite() && props.viscosity_pa_s() > 0.0) {
-                    return Err(FluidError::Custom("viscosity"));
-                }
-                Ok(props)
-            }
-        }
-    }
-}
