@@ -11,5 +11,6 @@ pub mod library;
 pub mod link;
 pub mod number;
 pub mod presets;
+pub mod reader;
 pub mod report;
 pub mod units;

@@ -15,7 +15,7 @@ use crate::sheet::units::{self, Dimension};
 fn material_of(f: &LineFile) -> Option<Material> {
     match &f.pipe {
         PipeFile::Series(id) => pipes::series(id).map(|s| s.material),
-        PipeFile::Bore { material, .. } => crate::sheet::file::material_from_id(material),
+        PipeFile::Bore { material, .. } => Material::from_id(material),
     }
 }
 

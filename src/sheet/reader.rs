@@ -1,0 +1,328 @@
+//! Reading a stored line: its typed text becomes the core's [`Line`], every
+//! bad field reported at once (not just the first), each against its
+//! [`Field`].
+//!
+//! - One small function per part of a line (fluid, pipe, fittings, method,
+//!   limits), each pushing its own field errors; `LineFile::to_line` only
+//!   puts the parts together.
+//! - The fluid is read first: mass flows, heads and head-per-length limits
+//!   need its density.
+
+use uom::si::dynamic_viscosity::pascal_second;
+use uom::si::f64::{DynamicViscosity, Length, MassDensity, Pressure, ThermodynamicTemperature, Velocity, VolumeRate};
+use uom::si::length::meter;
+use uom::si::mass_density::kilogram_per_cubic_meter;
+use uom::si::pressure::pascal;
+use uom::si::thermodynamic_temperature::kelvin;
+use uom::si::velocity::meter_per_second;
+use uom::si::volume_rate::cubic_meter_per_second;
+
+use super::file::{FieldError, FluidFile, GlycolName, LineFile, MethodName, PipeFile, Units};
+use super::number::{parse_count, parse_decimal};
+use super::units::{self, Dimension, Unit};
+use crate::hydraulics::field::Field;
+use crate::hydraulics::fluid::{Fluid, Glycol, Properties};
+use crate::hydraulics::line::{pa_per_m, Limits, Line, Method, Pipe, Valid};
+use crate::hydraulics::losses::{Fitting, Fittings};
+use crate::hydraulics::pipes::{self, Material};
+
+/// Atmospheric pressure where none is given: the standard atmosphere,
+/// 101 325 Pa (ISO 2533).
+const ATMOSPHERE_PA: f64 = 101_325.0;
+
+/// The errors found so far and the sheet's units.
+struct Reader<'a> {
+    errors: Vec<FieldError>,
+    units: &'a Units,
+}
+
+/// A fluid read from its text, with the temperature and absolute pressure
+/// its properties are taken at (K, Pa).
+struct FluidAt {
+    fluid: Option<Fluid>,
+    t_k: Option<f64>,
+    p_pa: Option<f64>,
+}
+
+impl Reader<'_> {
+    fn fail(&mut self, field: Field, message: impl Into<String>) {
+        self.errors.push(FieldError { field, message: message.into() });
+    }
+
+    /// A value with its unit (or in `unit` when bare), in SI.
+    fn measure(
+        &mut self,
+        field: Field,
+        text: &str,
+        dim: Dimension,
+        unit: &'static Unit,
+        rho: Option<f64>,
+    ) -> Option<f64> {
+        match units::parse(dim, text, unit).and_then(|m| m.to_si(rho)) {
+            Ok(v) => Some(v),
+            Err(e) => {
+                self.fail(field, e.to_string());
+                None
+            }
+        }
+    }
+
+    /// As [`Reader::measure`], `None` without an error when left empty.
+    fn optional(
+        &mut self,
+        field: Field,
+        text: &Option<String>,
+        dim: Dimension,
+        unit: &'static Unit,
+        rho: Option<f64>,
+    ) -> Option<f64> {
+        match text.as_deref().map(str::trim) {
+            None | Some("") => None,
+            Some(t) => self.measure(field, t, dim, unit, rho),
+        }
+    }
+
+    /// A number without a unit.
+    fn number(&mut self, field: Field, text: &str) -> Option<f64> {
+        match parse_decimal(text) {
+            Ok(v) => Some(v),
+            Err(e) => {
+                self.fail(field, e.to_string());
+                None
+            }
+        }
+    }
+
+    fn fluid(&mut self, f: &FluidFile) -> FluidAt {
+        let temperature = self.units.temperature;
+        match f {
+            FluidFile::Water { temperature: t, pressure } => {
+                let t_k = self.measure(Field::FluidTemperature, t, Dimension::Temperature, temperature, None);
+                // A head typed for the pressure is taken in water at about
+                // 1000 kg/m³: the density is not known before the pressure.
+                let p = self.optional(
+                    Field::FluidPressure,
+                    pressure,
+                    Dimension::Pressure,
+                    self.units.pressure,
+                    Some(1000.0),
+                );
+                FluidAt { fluid: Some(Fluid::Water), t_k, p_pa: Some(p.unwrap_or(ATMOSPHERE_PA)) }
+            }
+            FluidFile::Glycol { glycol, percent, temperature: t } => {
+                let g = match glycol {
+                    GlycolName::Ethylene => Glycol::Ethylene,
+                    GlycolName::Propylene => Glycol::Propylene,
+                };
+                let pct = self.number(Field::FluidPercent, percent.trim().trim_end_matches('%'));
+                let t_k = self.measure(Field::FluidTemperature, t, Dimension::Temperature, temperature, None);
+                FluidAt { fluid: pct.map(|p| Fluid::GlycolMix(g, p / 100.0)), t_k, p_pa: Some(ATMOSPHERE_PA) }
+            }
+            FluidFile::Custom { density_kg_m3, viscosity_mpa_s, kinematic_viscosity_mm2_s } => {
+                let rho = self.number(Field::FluidDensity, density_kg_m3);
+                let mu = match (viscosity_mpa_s, kinematic_viscosity_mm2_s, rho) {
+                    (Some(mu), None, _) => self.number(Field::FluidViscosity, mu).map(|v| v * 1e-3),
+                    (None, Some(nu), Some(r)) => self.number(Field::FluidKinematicViscosity, nu).map(|v| v * 1e-6 * r),
+                    (None, Some(_), None) => None,
+                    _ => {
+                        self.fail(
+                            Field::FluidViscosity,
+                            "give the dynamic viscosity (mPa·s) or the kinematic (mm²/s), not both",
+                        );
+                        None
+                    }
+                };
+                let fluid = rho.zip(mu).map(|(r, m)| {
+                    Fluid::Custom(Properties {
+                        density: MassDensity::new::<kilogram_per_cubic_meter>(r),
+                        viscosity: DynamicViscosity::new::<pascal_second>(m),
+                    })
+                });
+                // Entered properties do not depend on the state; 20 °C and
+                // one atmosphere stand in for it.
+                FluidAt { fluid, t_k: Some(293.15), p_pa: Some(ATMOSPHERE_PA) }
+            }
+        }
+    }
+
+    fn properties(&mut self, at: &FluidAt) -> Option<Properties> {
+        let (f, t, p) = (at.fluid?, at.t_k?, at.p_pa?);
+        match f.properties(ThermodynamicTemperature::new::<kelvin>(t), Pressure::new::<pascal>(p)) {
+            Ok(props) => Some(props),
+            Err(err) => {
+                self.fail(Field::Fluid, err.to_string());
+                None
+            }
+        }
+    }
+
+    fn flow(&mut self, text: &str, rho: Option<f64>) -> Option<f64> {
+        let unit = self.units.flow;
+        let needs_rho = units::parse(Dimension::Flow, text, unit).map(|m| m.needs_density()).unwrap_or(false);
+        if rho.is_none() && needs_rho {
+            return None; // the fluid's error is already reported
+        }
+        self.measure(Field::Flow, text, Dimension::Flow, unit, rho)
+    }
+
+    fn pipe(&mut self, p: &PipeFile) -> (Option<Pipe>, Option<Material>) {
+        match p {
+            PipeFile::Series(id) => match pipes::series(id) {
+                Some(s) => (Some(Pipe::Series(s)), Some(s.material)),
+                None => {
+                    self.fail(Field::PipeSeries, format!("'{id}' is not a pipe series Headroom knows"));
+                    (None, None)
+                }
+            },
+            PipeFile::Bore { diameter, material } => {
+                let mm = units::find(Dimension::Length, "mm").expect("mm is a length unit");
+                let d = self.measure(Field::PipeDiameter, diameter, Dimension::Length, mm, None);
+                let m = Material::from_id(material);
+                if m.is_none() {
+                    let ids = Material::ALL.map(Material::id).join(", ");
+                    self.fail(Field::PipeMaterial, format!("'{material}' is not one of {ids}"));
+                }
+                (d.map(|d| Pipe::Custom(Length::new::<meter>(d))), m)
+            }
+        }
+    }
+
+    fn roughness(&mut self, lf: &LineFile, material: Option<Material>) -> Option<f64> {
+        match (&lf.roughness, material) {
+            (Some(t), _) if !t.trim().is_empty() => {
+                self.measure(Field::Roughness, t, Dimension::Roughness, self.units.roughness, None)
+            }
+            (_, Some(m)) => {
+                let r = m.roughness();
+                Some(if lf.aged { r.aged_mm.unwrap_or(r.new_mm) } else { r.new_mm } * 1e-3)
+            }
+            _ => None,
+        }
+    }
+
+    fn length(&mut self, text: &str) -> Option<f64> {
+        if text.trim().is_empty() {
+            self.fail(Field::Length, "enter the length of straight pipe");
+            return None;
+        }
+        self.measure(Field::Length, text, Dimension::Length, self.units.length, None)
+    }
+
+    fn fittings(&mut self, lf: &LineFile) -> Vec<(Fitting, u32)> {
+        let mut counts = Vec::new();
+        for (row, fc) in lf.fittings.iter().enumerate() {
+            let n = match parse_count(&fc.count) {
+                Ok(n) => Some(n),
+                Err(err) => {
+                    self.fail(Field::FittingCount, format!("row {}: {err}", row + 1));
+                    None
+                }
+            };
+            match (Fitting::from_id(&fc.fitting), n) {
+                (Some(f), Some(n)) => counts.push((f, n)),
+                (Some(_), None) => {}
+                (None, _) => self.fail(Field::Fittings, format!("'{}' is not a fitting Headroom knows", fc.fitting)),
+            }
+        }
+        counts
+    }
+
+    fn method(&mut self, lf: &LineFile, material: Option<Material>) -> Option<Method> {
+        match lf.method {
+            MethodName::DarcyWeisbach => Some(Method::DarcyWeisbach),
+            MethodName::HazenWilliams => match (lf.hazen_williams_c.as_deref().map(str::trim), material) {
+                (Some(t), _) if !t.is_empty() => {
+                    self.number(Field::HazenWilliamsC, t).map(|c| Method::HazenWilliams { c })
+                }
+                (_, Some(m)) => Some(Method::HazenWilliams { c: m.hazen_williams_c().0 }),
+                _ => None,
+            },
+        }
+    }
+
+    fn limits(&mut self, lf: &LineFile, rho: Option<f64>) -> Limits {
+        let (lim, u) = (&lf.limits, self.units);
+        let limits = Limits {
+            max_drop_per_length: self
+                .optional(
+                    Field::MaxDropPerLength,
+                    &lim.max_drop_per_length,
+                    Dimension::DropPerLength,
+                    u.drop_per_length,
+                    rho,
+                )
+                .map(pa_per_m),
+            max_total_drop: self
+                .optional(Field::MaxTotalDrop, &lim.max_total_drop, Dimension::Pressure, u.pressure, rho)
+                .map(Pressure::new::<pascal>),
+            max_velocity: self
+                .optional(Field::MaxVelocity, &lim.max_velocity, Dimension::Velocity, u.velocity, None)
+                .map(Velocity::new::<meter_per_second>),
+            min_velocity: self
+                .optional(Field::MinVelocity, &lim.min_velocity, Dimension::Velocity, u.velocity, None)
+                .map(Velocity::new::<meter_per_second>),
+        };
+        if let (Some(lo), Some(hi)) = (limits.min_velocity, limits.max_velocity) {
+            if lo >= hi {
+                self.fail(Field::MinVelocity, "minimum velocity must be below the maximum");
+            }
+        }
+        if limits == Limits::default() {
+            self.fail(Field::Limits, "set at least one limit to size against");
+        }
+        limits
+    }
+}
+
+impl LineFile {
+    /// Turns the stored text into the core's [`Line`], validated, reporting
+    /// every bad field, not just the first.
+    ///
+    /// # Errors
+    /// Every [`FieldError`] found; then the core's own checks (positive
+    /// flow, finite values …), each against the field it concerns.
+    pub fn to_line(&self, units: &Units) -> Result<Valid, Vec<FieldError>> {
+        let mut r = Reader { errors: Vec::new(), units };
+        let at = r.fluid(&self.fluid);
+        let rho = r.properties(&at).map(|p| p.density_kg_m3());
+        let flow = r.flow(&self.flow, rho);
+        let (pipe, material) = r.pipe(&self.pipe);
+        let roughness = r.roughness(self, material);
+        let length = r.length(&self.length);
+        let counts = r.fittings(self);
+        let extra_k = match self.extra_k.as_deref().map(str::trim) {
+            None | Some("") => Some(0.0),
+            Some(t) => r.number(Field::ExtraK, t),
+        };
+        let equivalent_length =
+            r.optional(Field::EquivalentLength, &self.equivalent_length, Dimension::Length, units.length, None);
+        let rise = r.optional(Field::Rise, &self.rise, Dimension::Length, units.length, None).unwrap_or(0.0);
+        let method = r.method(self, material);
+        let limits = r.limits(self, rho);
+        let complete = (|| {
+            Some(Line {
+                flow: VolumeRate::new::<cubic_meter_per_second>(flow?),
+                fluid: at.fluid?,
+                temperature: ThermodynamicTemperature::new::<kelvin>(at.t_k?),
+                pressure: Pressure::new::<pascal>(at.p_pa?),
+                pipe: pipe?,
+                roughness: Length::new::<meter>(roughness?),
+                length: Length::new::<meter>(length?),
+                fittings: Fittings {
+                    counts,
+                    extra_k: extra_k?,
+                    equivalent_length: equivalent_length.map(Length::new::<meter>),
+                },
+                rise: Length::new::<meter>(rise),
+                method: method?,
+                limits,
+            })
+        })();
+        match complete {
+            Some(line) if r.errors.is_empty() => {
+                line.validate().map_err(|err| vec![FieldError { field: err.field(), message: err.to_string() }])
+            }
+            _ => Err(r.errors),
+        }
+    }
+}
