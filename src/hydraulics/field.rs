@@ -13,6 +13,8 @@
 pub enum Field {
     /// The line as a whole (no single input is at fault).
     Line,
+    /// The line's name.
+    Name,
     /// Design flow.
     Flow,
     /// The fluid as a whole (its properties could not be found).
@@ -83,8 +85,9 @@ pub enum Field {
 
 impl Field {
     /// Every field, in the order of the sheet file.
-    pub const ALL: [Field; 34] = [
+    pub const ALL: [Field; 35] = [
         Field::Line,
+        Field::Name,
         Field::Flow,
         Field::Fluid,
         Field::FluidTemperature,
@@ -124,6 +127,7 @@ impl Field {
     pub fn path(self) -> &'static str {
         match self {
             Field::Line => "line",
+            Field::Name => "name",
             Field::Flow => "flow",
             Field::Fluid => "fluid",
             Field::FluidTemperature => "fluid.temperature",
@@ -164,6 +168,7 @@ impl Field {
     pub fn label(self) -> &'static str {
         match self {
             Field::Line => "the line",
+            Field::Name => "line name",
             Field::Flow => "flow",
             Field::Fluid => "the fluid",
             Field::FluidTemperature => "temperature",

@@ -60,10 +60,10 @@ pub fn TextField(
     #[prop(into)]
     error: Signal<String>,
     /// A unit picker for this field's dimension.
-    #[prop(optional)]
+    #[prop(optional_no_strip)]
     unit: Option<Dimension>,
     /// A fixed unit shown after the input.
-    #[prop(optional)]
+    #[prop(optional_no_strip)]
     suffix: Option<&'static str>,
     /// Greyed hint shown when empty.
     #[prop(optional, into)]

@@ -111,39 +111,45 @@ fn Answer(o: Outcome, u: Units) -> impl IntoView {
 fn SizeTable(o: Outcome, u: Units, file: RwSignal<crate::sheet::file::LineFile>) -> impl IntoView {
     let rho = o.sizing.properties.density_kg_m3();
     let pinned = o.checked;
-    let rows = o.nearby.iter().map(|near| {
-        let i = near.index;
-        let c: &Candidate = &o.sizing.candidates[i];
-        let p = c.point;
-        let cap = near.capacity.and_then(|c| c.max_flow).map(|q| units::show(q.value, u.flow, Some(rho), 3)).unwrap_or_else(|| "—".into());
-        let verdict = if c.passes() { "meets" } else { "fails" };
-        let nominal = c.nominal;
-        let is_shown = o.shown == Some(i);
-        view! {
-            <tr class:shown=is_shown class:fails=!c.passes() data-testid="size-row">
-                <th scope="row">{nominal}</th>
-                <td>{units::show(p.bore.value, u.bore(), None, 4)}</td>
-                <td>{units::show(p.velocity.value, u.velocity, Some(rho), 3)}</td>
-                <td>{format_number(p.reynolds, 3)}</td>
-                <td>{format_number(p.friction_factor, 3)}</td>
-                <td>{regime_name(p.regime)}</td>
-                <td>{units::show(p.drop_per_length.value, u.drop_per_length, Some(rho), 3)}</td>
-                <td>{units::show(p.total_drop.value, u.pressure, Some(rho), 3)}</td>
-                <td>{cap}</td>
-                <td class="verdict">{verdict}</td>
-                <td>{c.binding.map(|b| b.name()).unwrap_or("")}</td>
-                <td>
-                    <button type="button" class="quiet" data-testid=format!("pin-{nominal}")
-                        aria-pressed=if is_shown && pinned { "true" } else { "false" }
-                        on:click=move |_| file.update(|f| {
-                            f.check_size = if f.check_size.as_deref() == Some(nominal) { None } else { Some(nominal.to_owned()) };
-                        })>
-                        {if is_shown && pinned { "Unpin" } else { "Check" }}
-                    </button>
-                </td>
-            </tr>
-        }
-    }).collect_view();
+    let rows = o
+        .nearby
+        .iter()
+        .map(|near| {
+            let i = near.index;
+            let c: &Candidate = &o.sizing.candidates[i];
+            let p = c.point;
+            let cap = near
+                .capacity
+                .and_then(|c| c.max_flow)
+                .map(|q| units::show(q.value, u.flow, Some(rho), 3))
+                .unwrap_or_else(|| "—".into());
+            let verdict = if c.passes() { "meets" } else { "fails" };
+            let nominal = c.nominal;
+            let is_shown = o.shown == Some(i);
+            view! {
+                <tr class:shown=is_shown class:fails=!c.passes() data-testid="size-row">
+                    <th scope="row">{nominal}</th>
+                    <td>{units::show(p.bore.value, u.bore(), None, 4)}</td>
+                    <td>{units::show(p.velocity.value, u.velocity, Some(rho), 3)}</td>
+                    <td>{format_number(p.reynolds, 3)}</td>
+                    <td>{format_number(p.friction_factor, 3)}</td>
+                    <td>{regime_name(p.regime)}</td>
+                    <td>{units::show(p.drop_per_length.value, u.drop_per_length, Some(rho), 3)}</td>
+                    <td>{units::show(p.total_drop.value, u.pressure, Some(rho), 3)}</td>
+                    <td>{cap}</td>
+                    <td class="verdict">{verdict}</td>
+                    <td>{c.binding.map(|b| b.name()).unwrap_or("")}</td>
+                    <td>
+                        <button type="button" class="quiet" data-testid=format!("pin-{nominal}")
+                            aria-pressed=if is_shown && pinned { "true" } else { "false" }
+                            on:click=move |_| file.update(|f| f.toggle_check(nominal))>
+                            {if is_shown && pinned { "Unpin" } else { "Check" }}
+                        </button>
+                    </td>
+                </tr>
+            }
+        })
+        .collect_view();
     view! {
         <div class="table-wrap">
             <table class="sizes" data-testid="size-table">
