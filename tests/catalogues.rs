@@ -35,3 +35,17 @@ fn every_id_reads_back_to_its_entry() {
         assert_eq!(headroom::hydraulics::pipes::series(s.id).map(|x| x.id), Some(s.id));
     }
 }
+
+#[test]
+fn the_ids_are_the_names_sheet_files_use() {
+    use headroom::hydraulics::fluid::Glycol;
+    use headroom::sheet::file::MethodName;
+    for g in Glycol::ALL {
+        assert_eq!(serde_json::to_string(&g).unwrap(), format!("\"{}\"", g.id()));
+        assert_eq!(Glycol::from_id(g.id()), Some(g));
+    }
+    for m in MethodName::ALL {
+        assert_eq!(serde_json::to_string(&m).unwrap(), format!("\"{}\"", m.id()));
+        assert_eq!(MethodName::from_id(m.id()), Some(m));
+    }
+}

@@ -226,8 +226,8 @@ impl LineFile {
     }
 
     /// Chooses the friction method.
-    pub fn set_hazen_williams(&mut self, on: bool) {
-        self.method = if on { MethodName::HazenWilliams } else { MethodName::DarcyWeisbach };
+    pub fn set_method(&mut self, method: MethodName) {
+        self.method = method;
     }
 
     /// Adds a row of one welded 90° elbow.

@@ -16,6 +16,7 @@ use serde::{Deserialize, Serialize};
 
 use super::units::{self, Dimension, Unit};
 use crate::hydraulics::field::Field;
+use crate::hydraulics::fluid::Glycol;
 
 /// The value of the `format` field.
 pub const FORMAT: &str = "headroom-sheet";
@@ -277,15 +278,8 @@ pub enum FluidFile {
     },
 }
 
-/// Which glycol.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
-#[serde(rename_all = "lowercase")]
-pub enum GlycolName {
-    /// Ethylene glycol.
-    Ethylene,
-    /// Propylene glycol.
-    Propylene,
-}
+/// Which glycol: the core's own list ([`Glycol`]) is the file's too.
+pub type GlycolName = Glycol;
 
 /// The pipe of a line.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
@@ -362,7 +356,7 @@ mod count_text {
     }
 }
 
-/// Friction method name.
+/// Friction method name (the core's `Method` also carries Hazen–Williams C).
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize, Default)]
 #[serde(rename_all = "kebab-case")]
 pub enum MethodName {
@@ -371,6 +365,32 @@ pub enum MethodName {
     DarcyWeisbach,
     /// Hazen–Williams.
     HazenWilliams,
+}
+
+impl MethodName {
+    /// Every method, in listing order.
+    pub const ALL: [MethodName; 2] = [MethodName::DarcyWeisbach, MethodName::HazenWilliams];
+
+    /// Its stable id (the file's `method`).
+    pub fn id(self) -> &'static str {
+        match self {
+            MethodName::DarcyWeisbach => "darcy-weisbach",
+            MethodName::HazenWilliams => "hazen-williams",
+        }
+    }
+
+    /// How a list shows it.
+    pub fn label(self) -> &'static str {
+        match self {
+            MethodName::DarcyWeisbach => "Darcy–Weisbach with Colebrook (any fluid)",
+            MethodName::HazenWilliams => "Hazen–Williams (water near room temperature only)",
+        }
+    }
+
+    /// The method of an id.
+    pub fn from_id(id: &str) -> Option<MethodName> {
+        MethodName::ALL.into_iter().find(|m| m.id() == id)
+    }
 }
 
 /// Design limits as stored; each may be absent.

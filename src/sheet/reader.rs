@@ -17,11 +17,11 @@ use uom::si::thermodynamic_temperature::kelvin;
 use uom::si::velocity::meter_per_second;
 use uom::si::volume_rate::cubic_meter_per_second;
 
-use super::file::{FieldError, FluidFile, GlycolName, LineFile, MethodName, PipeFile, Units};
+use super::file::{FieldError, FluidFile, LineFile, MethodName, PipeFile, Units};
 use super::number::{parse_count, parse_decimal};
 use super::units::{self, Dimension, Unit};
 use crate::hydraulics::field::Field;
-use crate::hydraulics::fluid::{Fluid, Glycol, Properties};
+use crate::hydraulics::fluid::{Fluid, Properties};
 use crate::hydraulics::line::{pa_per_m, Limits, Line, Method, Pipe, Valid};
 use crate::hydraulics::losses::{Fitting, Fittings};
 use crate::hydraulics::pipes::{self, Material};
@@ -110,10 +110,7 @@ impl Reader<'_> {
                 FluidAt { fluid: Some(Fluid::Water), t_k, p_pa: Some(p.unwrap_or(ATMOSPHERE_PA)) }
             }
             FluidFile::Glycol { glycol, percent, temperature: t } => {
-                let g = match glycol {
-                    GlycolName::Ethylene => Glycol::Ethylene,
-                    GlycolName::Propylene => Glycol::Propylene,
-                };
+                let g = *glycol;
                 let pct = self.number(Field::FluidPercent, percent.trim().trim_end_matches('%'));
                 let t_k = self.measure(Field::FluidTemperature, t, Dimension::Temperature, temperature, None);
                 FluidAt { fluid: pct.map(|p| Fluid::GlycolMix(g, p / 100.0)), t_k, p_pa: Some(ATMOSPHERE_PA) }

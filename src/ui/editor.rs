@@ -7,10 +7,11 @@ use leptos::prelude::*;
 use super::fields::{errors_except, errors_for, TextField};
 use super::state::{Sheet, Slot};
 use crate::hydraulics::field::Field;
+use crate::hydraulics::fluid::Glycol;
 use crate::hydraulics::losses::Fitting;
 use crate::hydraulics::pipes::{Material, SERIES};
 use crate::sheet::edit::{FluidKind, CUSTOM_BORE};
-use crate::sheet::file::{FluidFile, GlycolName, MethodName};
+use crate::sheet::file::{FluidFile, MethodName};
 use crate::sheet::number::parse_count;
 use crate::sheet::presets::{Service, SERVICES};
 use crate::sheet::units::{self, Dimension};
@@ -118,7 +119,7 @@ fn FlowAndFluid() -> impl IntoView {
     let file = line.file;
     let kind = move || file.with(|f| f.fluid_kind());
     let is_glycol =
-        move |g: GlycolName| file.with(|f| matches!(&f.fluid, FluidFile::Glycol { glycol, .. } if *glycol == g));
+        move |g: Glycol| file.with(|f| matches!(&f.fluid, FluidFile::Glycol { glycol, .. } if *glycol == g));
     view! {
         <fieldset>
             <legend>"Flow and fluid"</legend>
@@ -140,9 +141,8 @@ fn FlowAndFluid() -> impl IntoView {
                     <div class="field">
                         <label for="glycol-kind">"Glycol"</label>
                         <select id="glycol-kind" data-testid="glycol-kind"
-                            on:change=move |ev| { let g = if event_target_value(&ev) == "ethylene" { GlycolName::Ethylene } else { GlycolName::Propylene }; file.update(|f| f.set_glycol(g)) }>
-                            <option value="propylene" selected=move || is_glycol(GlycolName::Propylene)>"Propylene glycol"</option>
-                            <option value="ethylene" selected=move || is_glycol(GlycolName::Ethylene)>"Ethylene glycol"</option>
+                            on:change=move |ev| { if let Some(g) = Glycol::from_id(&event_target_value(&ev)) { file.update(|f| f.set_glycol(g)) } }>
+                            {Glycol::ALL.into_iter().map(|g| view! { <option value=g.id() selected=move || is_glycol(g)>{g.label()}</option> }).collect_view()}
                         </select>
                     </div>
                     <LineText field=Field::FluidPercent label="Strength" id="glycol-percent" suffix="% by mass"/>
@@ -248,7 +248,8 @@ fn LimitFields() -> impl IntoView {
 #[component]
 fn MethodFields() -> impl IntoView {
     let file = expect_context::<Slot>().file;
-    let is_hw = move || file.with(|f| f.method == MethodName::HazenWilliams);
+    let method = move || file.with(|f| f.method);
+    let is_hw = move || method() == MethodName::HazenWilliams;
     let hw_hint = Signal::derive(move || {
         file.with(|f| {
             f.material().map(|m| format!("default {} for {}", m.hazen_williams_c().0, m.name())).unwrap_or_default()
@@ -260,9 +261,8 @@ fn MethodFields() -> impl IntoView {
             <div class="field">
                 <label for="method">"Friction method"</label>
                 <select id="method" data-testid="method"
-                    on:change=move |ev| { let hw = event_target_value(&ev) == "hazen-williams"; file.update(|f| f.set_hazen_williams(hw)) }>
-                    <option value="darcy-weisbach" selected=move || !is_hw()>"Darcy–Weisbach with Colebrook (any fluid)"</option>
-                    <option value="hazen-williams" selected=is_hw>"Hazen–Williams (water near room temperature only)"</option>
+                    on:change=move |ev| { if let Some(m) = MethodName::from_id(&event_target_value(&ev)) { file.update(|f| f.set_method(m)) } }>
+                    {MethodName::ALL.into_iter().map(|m| view! { <option value=m.id() selected=move || method() == m>{m.label()}</option> }).collect_view()}
                 </select>
             </div>
             {move || is_hw().then(|| view! {

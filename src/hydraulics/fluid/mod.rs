@@ -19,13 +19,41 @@ use uom::si::f64::{Pressure, ThermodynamicTemperature};
 
 pub use properties::{FluidError, Properties};
 
-/// Which glycol is mixed with the water.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+/// Which glycol is mixed with the water. Its id is also its name in sheet
+/// files.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize, serde::Deserialize)]
+#[serde(rename_all = "lowercase")]
 pub enum Glycol {
     /// Ethylene glycol (monoethylene glycol, MEG).
     Ethylene,
     /// Propylene glycol (monopropylene glycol, MPG).
     Propylene,
+}
+
+impl Glycol {
+    /// Every glycol, in listing order.
+    pub const ALL: [Glycol; 2] = [Glycol::Propylene, Glycol::Ethylene];
+
+    /// Its stable id (the file's `fluid.glycol`).
+    pub fn id(self) -> &'static str {
+        match self {
+            Glycol::Ethylene => "ethylene",
+            Glycol::Propylene => "propylene",
+        }
+    }
+
+    /// How a list shows it.
+    pub fn label(self) -> &'static str {
+        match self {
+            Glycol::Ethylene => "Ethylene glycol",
+            Glycol::Propylene => "Propylene glycol",
+        }
+    }
+
+    /// The glycol of an id.
+    pub fn from_id(id: &str) -> Option<Glycol> {
+        Glycol::ALL.into_iter().find(|g| g.id() == id)
+    }
 }
 
 /// The fluid in a line.
