@@ -343,7 +343,10 @@ fn copy_dir(from: &std::path::Path, to: &std::path::Path) {
     std::fs::create_dir_all(to).unwrap();
     for e in std::fs::read_dir(from).unwrap() {
         let e = e.unwrap();
-        std::fs::copy(e.path(), to.join(e.file_name())).unwrap();
+        // Files only: a build that stopped half-way leaves Trunk's staging folder.
+        if e.file_type().unwrap().is_file() {
+            std::fs::copy(e.path(), to.join(e.file_name())).unwrap();
+        }
     }
 }
 
