@@ -16,7 +16,8 @@ use headroom::sheet::report;
 
 const USAGE: &str = "usage: headroom-batch SHEET.json [--format table|csv|json]";
 
-fn main() -> ExitCode {
+/// The sheet's path and the output format, or the exit code to stop with.
+fn parse_args() -> Result<(String, String), ExitCode> {
     let mut path = None;
     let mut format = "table".to_owned();
     let mut args = std::env::args().skip(1);
@@ -26,23 +27,33 @@ fn main() -> ExitCode {
                 Some(f) if ["table", "csv", "json"].contains(&f.as_str()) => format = f,
                 _ => {
                     eprintln!("headroom-batch: --format takes table, csv or json\n{USAGE}");
-                    return ExitCode::from(2);
+                    return Err(ExitCode::from(2));
                 }
             },
             "--help" | "-h" => {
                 println!("{USAGE}");
-                return ExitCode::SUCCESS;
+                return Err(ExitCode::SUCCESS);
             }
             _ if path.is_none() && !a.starts_with('-') => path = Some(a),
             other => {
                 eprintln!("headroom-batch: unexpected argument '{other}'\n{USAGE}");
-                return ExitCode::from(2);
+                return Err(ExitCode::from(2));
             }
         }
     }
-    let Some(path) = path else {
-        eprintln!("{USAGE}");
-        return ExitCode::from(2);
+    match path {
+        Some(p) => Ok((p, format)),
+        None => {
+            eprintln!("{USAGE}");
+            Err(ExitCode::from(2))
+        }
+    }
+}
+
+fn main() -> ExitCode {
+    let (path, format) = match parse_args() {
+        Ok(a) => a,
+        Err(code) => return code,
     };
     let bytes = match std::fs::read(&path) {
         Ok(b) => b,

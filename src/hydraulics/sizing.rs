@@ -268,6 +268,9 @@ pub struct Step {
 }
 
 /// The explain trace for one candidate of a line.
+///
+/// Long on purpose: one step per quantity, in the order a reviewer checks
+/// them; split up, the list would no longer read top to bottom.
 pub fn trace(line: &Valid, c: &Candidate) -> Vec<Step> {
     count_solve();
     let props = &line.properties();

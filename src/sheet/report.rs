@@ -134,96 +134,60 @@ fn figures(o: &Outcome, c: &Candidate, u: &Units) -> [String; 9] {
     ]
 }
 
+/// A table row with only a status and a note (no size to report).
+fn status_row(r: &LineReport, status: &str, note: String) -> [String; 11] {
+    let mut row: [String; 11] = Default::default();
+    row[0] = r.number.to_string();
+    row[1] = r.name.clone();
+    row[2] = status.to_owned();
+    row[9] = note;
+    row
+}
+
+/// One line's table row; its notes (transition zone, method warnings,
+/// errors) are added to `notes`.
+fn table_row(r: &LineReport, u: &Units, notes: &mut Vec<String>) -> [String; 11] {
+    let o = match &r.outcome {
+        Err(errs) => {
+            notes.extend(errs.iter().map(|e| format!("line {} ({}): {e}", r.number, r.name)));
+            return status_row(r, "ERROR", "see below".into());
+        }
+        Ok(o) => o,
+    };
+    let row = match o.shown {
+        None => {
+            let fails: Vec<&str> = o.sizing.failing_at_largest.iter().map(|l| l.name()).collect();
+            status_row(r, "NO SIZE", format!("largest size fails {}", fails.join(", ")))
+        }
+        Some(i) => {
+            let c = &o.sizing.candidates[i];
+            if c.uncertain() {
+                notes.push(format!(
+                    "line {}: flow is in the transition zone; the friction factor is uncertain",
+                    r.number
+                ));
+            }
+            let [size, bore, v, dpl, dp, re, f, binding, headroom] = figures(o, c, u);
+            let size = match (o.checked, c.passes()) {
+                (true, true) => format!("{size} (checked)"),
+                (true, false) => format!("{size} (checked: FAILS)"),
+                _ => size,
+            };
+            [r.number.to_string(), r.name.clone(), size, bore, v, dpl, dp, re, f, binding, headroom]
+        }
+    };
+    notes.extend(o.sizing.warnings.iter().map(|w| format!("line {}: {w}", r.number)));
+    row
+}
+
 /// A fixed-width table for a terminal.
 pub fn table(sheet: &SheetFile, reports: &[LineReport]) -> String {
     let u = sheet.units();
-    let mut rows: Vec<[String; 11]> = vec![[
-        "#",
-        "line",
-        "size",
-        "bore",
-        "velocity",
-        "drop/length",
-        "total drop",
-        "Re",
-        "f",
-        "binding limit",
-        "headroom",
-    ]
-    .map(String::from)];
+    let head =
+        ["#", "line", "size", "bore", "velocity", "drop/length", "total drop", "Re", "f", "binding limit", "headroom"];
+    let mut rows: Vec<[String; 11]> = vec![head.map(String::from)];
     let mut notes = Vec::new();
-    for r in reports {
-        match &r.outcome {
-            Ok(o) => match o.shown {
-                Some(i) => {
-                    let c = &o.sizing.candidates[i];
-                    let f = figures(o, c, &u);
-                    let mut size = f[0].clone();
-                    if o.checked {
-                        size.push_str(if c.passes() { " (checked)" } else { " (checked: FAILS)" });
-                    }
-                    rows.push([
-                        r.number.to_string(),
-                        r.name.clone(),
-                        size,
-                        f[1].clone(),
-                        f[2].clone(),
-                        f[3].clone(),
-                        f[4].clone(),
-                        f[5].clone(),
-                        f[6].clone(),
-                        f[7].clone(),
-                        f[8].clone(),
-                    ]);
-                    if c.uncertain() {
-                        notes.push(format!(
-                            "line {}: flow is in the transition zone; the friction factor is uncertain",
-                            r.number
-                        ));
-                    }
-                }
-                None => {
-                    let fails: Vec<&str> = o.sizing.failing_at_largest.iter().map(|l| l.name()).collect();
-                    rows.push([
-                        r.number.to_string(),
-                        r.name.clone(),
-                        "NO SIZE".into(),
-                        String::new(),
-                        String::new(),
-                        String::new(),
-                        String::new(),
-                        String::new(),
-                        String::new(),
-                        format!("largest size fails {}", fails.join(", ")),
-                        String::new(),
-                    ]);
-                }
-            },
-            Err(errs) => {
-                for e in errs {
-                    notes.push(format!("line {} ({}): {e}", r.number, r.name));
-                }
-                rows.push([
-                    r.number.to_string(),
-                    r.name.clone(),
-                    "ERROR".into(),
-                    String::new(),
-                    String::new(),
-                    String::new(),
-                    String::new(),
-                    String::new(),
-                    String::new(),
-                    "see below".into(),
-                    String::new(),
-                ]);
-            }
-        }
-        if let Ok(o) = &r.outcome {
-            for w in &o.sizing.warnings {
-                notes.push(format!("line {}: {w}", r.number));
-            }
-        }
-    }
+    rows.extend(reports.iter().map(|r| table_row(r, &u, &mut notes)));
     let widths: Vec<usize> = (0..11).map(|k| rows.iter().map(|r| r[k].chars().count()).max().unwrap_or(0)).collect();
     let mut out = String::new();
     if !sheet.project.is_empty() || !sheet.date.is_empty() {

@@ -44,6 +44,7 @@ fn fluid_text(f: &LineFile) -> String {
     }
 }
 
+// Over 60 lines on purpose: one line's printed record (inputs, assumptions, answer), kept whole so it reads as printed.
 #[component]
 fn PrintLine(line: Slot, number: usize) -> impl IntoView {
     let sheet = expect_context::<Sheet>();

@@ -8,6 +8,7 @@ use crate::sheet::presets::SERVICES;
 use crate::sheet::units;
 
 /// The worksheet's lines.
+// Over 60 lines on purpose: the markup of one panel, kept whole so its layout reads in one place.
 #[component]
 pub fn Roster() -> impl IntoView {
     let sheet = expect_context::<Sheet>();
