@@ -114,3 +114,35 @@ fn a_sheet_round_trips_through_its_json() {
     let again = SheetFile::from_json(&s.to_json()).unwrap();
     assert_eq!(s, again);
 }
+
+#[test]
+fn the_view_model_holds_what_every_view_shows() {
+    use headroom::sheet::file::{System, Units};
+    use headroom::sheet::units::show;
+    let o = outcome(
+        r#"{"flow":"6 L/s","fluid":{"kind":"water","temperature":"10"},
+        "pipe":{"series":"steel-sch40"},"length":"20",
+        "limits":{"max_drop_per_length":"300","max_velocity":"2"}}"#,
+    )
+    .unwrap();
+    let shown = o.shown.unwrap();
+    // The sizes around the answer: two either side of it, in order.
+    let idx: Vec<usize> = o.nearby.iter().map(|n| n.index).collect();
+    assert_eq!(idx, (shown - 2..=shown + 2).collect::<Vec<_>>());
+    // Each one's figures are the point's values in the sheet's units, and
+    // its capacity is the capacity solve's answer.
+    let u = Units::defaults(System::Si);
+    let rho = o.sizing.properties.density_kg_m3();
+    for n in &o.nearby {
+        let c = &o.sizing.candidates[n.index];
+        assert_eq!(n.figures.size, c.nominal);
+        assert_eq!(n.figures.velocity, show(c.point.velocity.value, u.velocity, Some(rho), 3));
+        assert_eq!(n.figures.total_drop, show(c.point.total_drop.value, u.pressure, Some(rho), 3));
+        let cap = sizing::capacity(&o.line, c.point.bore).unwrap().max_flow.unwrap();
+        assert_eq!(n.capacity_text, show(cap.value, u.flow, Some(rho), 3));
+        assert_eq!(n.figures.checks.len(), 2, "one per limit set");
+    }
+    assert_eq!(o.capacity, o.nearby[2].capacity, "the shown size's capacity");
+    assert_eq!(o.trace, sizing::trace(&o.line, &o.sizing.candidates[shown]));
+    assert!(o.figures_of(shown).unwrap().checks.iter().all(|k| k.met));
+}

@@ -7,6 +7,7 @@ use super::file::{FieldError, LineFile, SheetFile, Units};
 use super::units::{format_number, from_si, show, Unit};
 use crate::hydraulics::field::Field;
 use crate::hydraulics::friction::Regime;
+use crate::hydraulics::line::Limit;
 use crate::hydraulics::line::Valid;
 use crate::hydraulics::sizing::{self, Candidate, Capacity, Sizing, Step};
 
@@ -38,12 +39,23 @@ pub struct Outcome {
 
 /// A size near the answer, with the largest flow it carries within the
 /// limits: computed once with the line's result, only drawn by views.
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, PartialEq)]
 pub struct Nearby {
     /// Index into the candidates.
     pub index: usize,
     /// Its capacity, when one can be found.
     pub capacity: Option<Capacity>,
+    /// The capacity as shown ("—" when there is none).
+    pub capacity_text: String,
+    /// Its figures as shown.
+    pub figures: Figures,
+}
+
+impl Outcome {
+    /// The figures of a candidate near the answer.
+    pub fn figures_of(&self, index: usize) -> Option<&Figures> {
+        self.nearby.iter().find(|n| n.index == index).map(|n| &n.figures)
+    }
 }
 
 /// The candidates around the answer: two either side of `shown`, or the
@@ -81,8 +93,17 @@ pub fn evaluate_line(number: usize, lf: &LineFile, units: &Units) -> LineReport 
             },
             None => (sizing.proposed, false),
         };
+        let rho = sizing.properties.density_kg_m3();
         let nearby: Vec<Nearby> = window(shown, sizing.candidates.len())
-            .map(|index| Nearby { index, capacity: sizing::capacity(&line, sizing.candidates[index].point.bore).ok() })
+            .map(|index| {
+                let c = &sizing.candidates[index];
+                let capacity = sizing::capacity(&line, c.point.bore).ok();
+                let capacity_text = capacity
+                    .and_then(|k| k.max_flow)
+                    .map(|q| show(q.value, units.flow, Some(rho), 3))
+                    .unwrap_or_else(|| "—".into());
+                Nearby { index, capacity, capacity_text, figures: Figures::of(c, units, rho) }
+            })
             .collect();
         let capacity = shown.and_then(|i| nearby.iter().find(|n| n.index == i)).and_then(|n| n.capacity);
         let trace = shown.map(|i| sizing::trace(&line, &sizing.candidates[i])).unwrap_or_default();
@@ -117,21 +138,86 @@ pub fn regime_name(r: Regime) -> &'static str {
     }
 }
 
-/// The row of figures for one result, in the sheet's units.
-fn figures(o: &Outcome, c: &Candidate, u: &Units) -> [String; 9] {
-    let rho = Some(o.sizing.properties.density_kg_m3());
-    let p = &c.point;
-    [
-        c.nominal.to_owned(),
-        show(p.bore.value, u.bore(), rho, 4),
-        show(p.velocity.value, u.velocity, rho, 3),
-        show(p.drop_per_length.value, u.drop_per_length, rho, 3),
-        show(p.total_drop.value, u.pressure, rho, 3),
-        format_number(p.reynolds, 3),
-        format_number(p.friction_factor, 4),
-        c.binding.map(|b| b.name()).unwrap_or("").to_owned(),
-        headroom_pct(c),
-    ]
+/// What is shown of one size, in the sheet's units: every view, the
+/// printed sheet and the batch table take their text from here, so a
+/// velocity or a drop is formatted in one place.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Figures {
+    /// Nominal size.
+    pub size: &'static str,
+    /// Inside diameter with its unit.
+    pub bore: String,
+    /// Mean velocity with its unit.
+    pub velocity: String,
+    /// Friction drop per length with its unit.
+    pub drop_per_length: String,
+    /// Total drop with its unit.
+    pub total_drop: String,
+    /// Reynolds number.
+    pub reynolds: String,
+    /// Darcy friction factor.
+    pub friction: String,
+    /// Flow regime in words.
+    pub regime: &'static str,
+    /// The limit with the least headroom ("" when none).
+    pub binding: &'static str,
+    /// Headroom to that limit, e.g. "+12 %".
+    pub headroom: String,
+    /// Each limit: what it is at this size against what is allowed.
+    pub checks: Vec<CheckFigures>,
+}
+
+/// One limit at one size, as shown.
+#[derive(Debug, Clone, PartialEq)]
+pub struct CheckFigures {
+    /// The limit's stable id.
+    pub id: &'static str,
+    /// "velocity 1.2 m/s of 2.4 m/s".
+    pub text: String,
+    /// "+50 %".
+    pub headroom: String,
+    /// Whether it is met.
+    pub met: bool,
+}
+
+impl Figures {
+    /// The figures of one candidate, with the fluid's density `rho` (kg/m³)
+    /// for heads.
+    pub fn of(c: &Candidate, u: &Units, rho: f64) -> Figures {
+        let p = &c.point;
+        let limit_text = |limit: Limit, si: f64| match limit {
+            Limit::DropPerLength => show(si, u.drop_per_length, Some(rho), 3),
+            Limit::TotalDrop => show(si, u.pressure, Some(rho), 3),
+            Limit::MaxVelocity | Limit::MinVelocity => show(si, u.velocity, Some(rho), 3),
+        };
+        Figures {
+            size: c.nominal,
+            bore: show(p.bore.value, u.bore(), Some(rho), 4),
+            velocity: show(p.velocity.value, u.velocity, Some(rho), 3),
+            drop_per_length: show(p.drop_per_length.value, u.drop_per_length, Some(rho), 3),
+            total_drop: show(p.total_drop.value, u.pressure, Some(rho), 3),
+            reynolds: format_number(p.reynolds, 3),
+            friction: format_number(p.friction_factor, 4),
+            regime: regime_name(p.regime),
+            binding: c.binding.map(|b| b.name()).unwrap_or(""),
+            headroom: headroom_pct(c),
+            checks: c
+                .checks
+                .iter()
+                .map(|k| CheckFigures {
+                    id: k.limit.id(),
+                    text: format!(
+                        "{} {} of {}",
+                        k.limit.name(),
+                        limit_text(k.limit, k.value),
+                        limit_text(k.limit, k.allowed)
+                    ),
+                    headroom: format!("{:+.0} %", k.headroom * 100.0),
+                    met: k.met(),
+                })
+                .collect(),
+        }
+    }
 }
 
 /// A table row with only a status and a note (no size to report).
@@ -167,13 +253,26 @@ fn table_row(r: &LineReport, u: &Units, notes: &mut Vec<String>) -> [String; 11]
                     r.number
                 ));
             }
-            let [size, bore, v, dpl, dp, re, f, binding, headroom] = figures(o, c, u);
+            let f = o.figures_of(i).cloned().unwrap_or_else(|| Figures::of(c, u, o.sizing.properties.density_kg_m3()));
             let size = match (o.checked, c.passes()) {
-                (true, true) => format!("{size} (checked)"),
-                (true, false) => format!("{size} (checked: FAILS)"),
-                _ => size,
+                (true, true) => format!("{} (checked)", f.size),
+                (true, false) => format!("{} (checked: FAILS)", f.size),
+                _ => f.size.to_owned(),
             };
-            [r.number.to_string(), r.name.clone(), size, bore, v, dpl, dp, re, f, binding, headroom]
+            let Figures { bore, velocity, drop_per_length, total_drop, reynolds, friction, binding, headroom, .. } = f;
+            [
+                r.number.to_string(),
+                r.name.clone(),
+                size,
+                bore,
+                velocity,
+                drop_per_length,
+                total_drop,
+                reynolds,
+                friction,
+                binding.to_owned(),
+                headroom,
+            ]
         }
     };
     notes.extend(o.sizing.warnings.iter().map(|w| format!("line {}: {w}", r.number)));

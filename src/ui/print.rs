@@ -10,7 +10,7 @@ use crate::hydraulics::losses::Fitting;
 use crate::sheet::file::{FluidFile, LineFile, PipeFile};
 use crate::sheet::library::display_name;
 use crate::sheet::report::CAUTION;
-use crate::sheet::units::{self, format_number};
+use crate::sheet::units::format_number;
 
 /// The sources every printed sheet lists.
 pub const SOURCES: &[&str] = &[
@@ -47,9 +47,7 @@ fn fluid_text(f: &LineFile) -> String {
 // Over 60 lines on purpose: one line's printed record (inputs, assumptions, answer), kept whole so it reads as printed.
 #[component]
 fn PrintLine(line: Slot, number: usize) -> impl IntoView {
-    let sheet = expect_context::<Sheet>();
     let body = move || {
-        let u = sheet.resolved.get();
         let f = line.file.get();
         let r = line.report.get();
         let inputs = vec![
@@ -123,16 +121,16 @@ fn PrintLine(line: Slot, number: usize) -> impl IntoView {
                     None => format!("No size meets the limits; the largest fails {}.", o.sizing.failing_at_largest.iter().map(|l| l.name()).collect::<Vec<_>>().join(", ")),
                     Some(i) => {
                         let c = &o.sizing.candidates[i];
-                        let p = &c.point;
+                        let f = o.figures_of(i).cloned().expect("the shown size is among the sizes near it");
                         format!(
                             "{} {}: velocity {}, drop per length {}, total drop {}, Re {}, f {}{}",
                             if o.checked { "Checked size" } else { "Proposed size" },
-                            c.nominal,
-                            units::show(p.velocity.value, u.velocity, Some(rho), 3),
-                            units::show(p.drop_per_length.value, u.drop_per_length, Some(rho), 3),
-                            units::show(p.total_drop.value, u.pressure, Some(rho), 3),
-                            format_number(p.reynolds, 3),
-                            format_number(p.friction_factor, 3),
+                            f.size,
+                            f.velocity,
+                            f.drop_per_length,
+                            f.total_drop,
+                            f.reynolds,
+                            f.friction,
                             if c.passes() { String::new() } else { " — FAILS a limit".into() },
                         )
                     }

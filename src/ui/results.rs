@@ -3,21 +3,11 @@
 
 use leptos::prelude::*;
 
-use super::state::{Sheet, Slot};
-use crate::hydraulics::line::Limit;
+use super::state::Slot;
 use crate::hydraulics::sizing::Candidate;
 use crate::sheet::chart;
-use crate::sheet::file::Units;
-use crate::sheet::report::{regime_name, Outcome};
-use crate::sheet::units::{self, format_number};
-
-fn limit_value(limit: Limit, si: f64, u: &Units, rho: f64) -> String {
-    match limit {
-        Limit::DropPerLength => units::show(si, u.drop_per_length, Some(rho), 3),
-        Limit::TotalDrop => units::show(si, u.pressure, Some(rho), 3),
-        Limit::MaxVelocity | Limit::MinVelocity => units::show(si, u.velocity, Some(rho), 3),
-    }
-}
+use crate::sheet::report::Outcome;
+use crate::sheet::units::format_number;
 
 /// The answer for the selected line.
 #[component]
@@ -25,20 +15,19 @@ pub fn LineResults(
     /// The line.
     line: Slot,
 ) -> impl IntoView {
-    let sheet = expect_context::<Sheet>();
     let report = line.report;
     let file = line.file;
     let outcome = Memo::new(move |_| report.with(|r| r.outcome.clone().ok()));
     view! {
         <section class="results" aria-label="Answer" data-testid="results">
-            {move || { let u = sheet.resolved.get(); match outcome.get() {
+            {move || { match outcome.get() {
                 None => view! {
                     <div class="answer answer-wait" data-testid="answer">
                         <p class="answer-size" data-testid="proposed-size">"—"</p>
                         <p>"Fix the fields marked in red to see sizes."</p>
                     </div>
                 }.into_any(),
-                Some(o) => view! { <Answer o=o.clone() u=u/> <SizeTable o=o.clone() u=u file=file/> <Explain o=o/> }.into_any(),
+                Some(o) => view! { <Answer o=o.clone()/> <SizeTable o=o.clone() file=file/> <Explain o=o/> }.into_any(),
             }}}
             <Moody outcome=outcome/>
         </section>
@@ -46,8 +35,7 @@ pub fn LineResults(
 }
 
 #[component]
-fn Answer(o: Outcome, u: Units) -> impl IntoView {
-    let rho = o.sizing.properties.density_kg_m3();
+fn Answer(o: Outcome) -> impl IntoView {
     let shown = o.shown.map(|i| o.sizing.candidates[i].clone());
     let failing: Vec<&str> = o.sizing.failing_at_largest.iter().map(|l| l.name()).collect();
     let warnings = o.sizing.warnings.clone();
@@ -61,7 +49,8 @@ fn Answer(o: Outcome, u: Units) -> impl IntoView {
         .into_any(),
         Some(c) => {
             let pass = c.passes();
-            let p = c.point;
+            let fig =
+                o.shown.and_then(|i| o.figures_of(i)).cloned().expect("the shown size is among the sizes near it");
             let head = if o.checked {
                 if pass {
                     "Checked size — meets every limit"
@@ -71,20 +60,13 @@ fn Answer(o: Outcome, u: Units) -> impl IntoView {
             } else {
                 "Smallest size that meets every limit"
             };
-            let rows = c
+            let rows = fig
                 .checks
                 .iter()
                 .map(|k| {
-                    let txt = format!(
-                        "{} {} of {}",
-                        k.limit.name(),
-                        limit_value(k.limit, k.value, &u, rho),
-                        limit_value(k.limit, k.allowed, &u, rho)
-                    );
-                    let pct = format!("{:+.0} %", k.headroom * 100.0);
-                    let cls = if k.met() { "ok" } else { "bad" };
-                    let id = format!("headroom-{}", k.limit.id());
-                    view! { <li class=cls data-testid=id><span>{txt}</span><strong>{pct}</strong></li> }
+                    let cls = if k.met { "ok" } else { "bad" };
+                    let id = format!("headroom-{}", k.id);
+                    view! { <li class=cls data-testid=id><span>{k.text.clone()}</span><strong>{k.headroom.clone()}</strong></li> }
                 })
                 .collect_view();
             view! {
@@ -92,10 +74,10 @@ fn Answer(o: Outcome, u: Units) -> impl IntoView {
                     <p class="answer-head">{head}</p>
                     <p class="answer-size" data-testid="proposed-size">{c.nominal}</p>
                     <dl class="answer-figures">
-                        <div><dt>"Velocity"</dt><dd data-testid="answer-velocity">{units::show(p.velocity.value, u.velocity, Some(rho), 3)}</dd></div>
-                        <div><dt>"Drop per length"</dt><dd data-testid="answer-drop-per-length">{units::show(p.drop_per_length.value, u.drop_per_length, Some(rho), 3)}</dd></div>
-                        <div><dt>"Total drop"</dt><dd data-testid="answer-total-drop">{units::show(p.total_drop.value, u.pressure, Some(rho), 3)}</dd></div>
-                        <div><dt>"Inside diameter"</dt><dd>{units::show(p.bore.value, u.bore(), None, 4)}</dd></div>
+                        <div><dt>"Velocity"</dt><dd data-testid="answer-velocity">{fig.velocity.clone()}</dd></div>
+                        <div><dt>"Drop per length"</dt><dd data-testid="answer-drop-per-length">{fig.drop_per_length.clone()}</dd></div>
+                        <div><dt>"Total drop"</dt><dd data-testid="answer-total-drop">{fig.total_drop.clone()}</dd></div>
+                        <div><dt>"Inside diameter"</dt><dd>{fig.bore.clone()}</dd></div>
                     </dl>
                     <p class="headroom-title">"Headroom to each limit"</p>
                     <ul class="headroom">{rows}</ul>
@@ -108,8 +90,7 @@ fn Answer(o: Outcome, u: Units) -> impl IntoView {
 }
 
 #[component]
-fn SizeTable(o: Outcome, u: Units, file: RwSignal<crate::sheet::file::LineFile>) -> impl IntoView {
-    let rho = o.sizing.properties.density_kg_m3();
+fn SizeTable(o: Outcome, file: RwSignal<crate::sheet::file::LineFile>) -> impl IntoView {
     let pinned = o.checked;
     let rows = o
         .nearby
@@ -117,28 +98,23 @@ fn SizeTable(o: Outcome, u: Units, file: RwSignal<crate::sheet::file::LineFile>)
         .map(|near| {
             let i = near.index;
             let c: &Candidate = &o.sizing.candidates[i];
-            let p = c.point;
-            let cap = near
-                .capacity
-                .and_then(|c| c.max_flow)
-                .map(|q| units::show(q.value, u.flow, Some(rho), 3))
-                .unwrap_or_else(|| "—".into());
+            let f = near.figures.clone();
             let verdict = if c.passes() { "meets" } else { "fails" };
             let nominal = c.nominal;
             let is_shown = o.shown == Some(i);
             view! {
                 <tr class:shown=is_shown class:fails=!c.passes() data-testid="size-row">
                     <th scope="row">{nominal}</th>
-                    <td>{units::show(p.bore.value, u.bore(), None, 4)}</td>
-                    <td>{units::show(p.velocity.value, u.velocity, Some(rho), 3)}</td>
-                    <td>{format_number(p.reynolds, 3)}</td>
-                    <td>{format_number(p.friction_factor, 3)}</td>
-                    <td>{regime_name(p.regime)}</td>
-                    <td>{units::show(p.drop_per_length.value, u.drop_per_length, Some(rho), 3)}</td>
-                    <td>{units::show(p.total_drop.value, u.pressure, Some(rho), 3)}</td>
-                    <td>{cap}</td>
+                    <td>{f.bore}</td>
+                    <td>{f.velocity}</td>
+                    <td>{f.reynolds}</td>
+                    <td>{f.friction}</td>
+                    <td>{f.regime}</td>
+                    <td>{f.drop_per_length}</td>
+                    <td>{f.total_drop}</td>
+                    <td>{near.capacity_text.clone()}</td>
                     <td class="verdict">{verdict}</td>
-                    <td>{c.binding.map(|b| b.name()).unwrap_or("")}</td>
+                    <td>{f.binding}</td>
                     <td>
                         <button type="button" class="quiet" data-testid=format!("pin-{nominal}")
                             aria-pressed=if is_shown && pinned { "true" } else { "false" }

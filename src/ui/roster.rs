@@ -93,19 +93,14 @@ fn RosterRow(line: Slot) -> impl IntoView {
     let name =
         move || file.with(|f| if f.name.trim().is_empty() { "(unnamed line)".to_owned() } else { f.name.clone() });
     let answer = move || {
-        let u = sheet.resolved.get();
         report.with(|r| match &r.outcome {
             Err(e) => ("check inputs".to_owned(), format!("{} field(s) to fix", e.len()), "bad"),
             Ok(o) => match o.shown {
                 None => ("no size".to_owned(), "limits cannot all be met".to_owned(), "bad"),
                 Some(i) => {
                     let c = &o.sizing.candidates[i];
-                    let rho = o.sizing.properties.density_kg_m3();
-                    let detail = format!(
-                        "{} · {}",
-                        units::show(c.point.velocity.value, u.velocity, Some(rho), 3),
-                        units::show(c.point.drop_per_length.value, u.drop_per_length, Some(rho), 3)
-                    );
+                    let detail =
+                        o.figures_of(i).map(|f| format!("{} · {}", f.velocity, f.drop_per_length)).unwrap_or_default();
                     let state = if !c.passes() {
                         "bad"
                     } else if o.checked {
