@@ -49,3 +49,22 @@ fn the_ids_are_the_names_sheet_files_use() {
         assert_eq!(MethodName::from_id(m.id()), Some(m));
     }
 }
+
+#[test]
+fn the_docs_units_table_lists_every_unit_and_default() {
+    use headroom::sheet::file::{System, Units};
+    use headroom::sheet::units::{self, Dimension};
+    let (si, us) = (Units::defaults(System::Si), Units::defaults(System::Us));
+    for d in Dimension::ALL {
+        let row = DOC
+            .lines()
+            .find(|l| l.starts_with(&format!("| {} |", d.key())))
+            .unwrap_or_else(|| panic!("no row for {} in the units table", d.key()));
+        let cells: Vec<&str> = row.trim_matches('|').split('|').map(str::trim).collect();
+        assert_eq!(cells[1], si.of(d).symbol, "{}: SI default", d.key());
+        assert_eq!(cells[2], us.of(d).symbol, "{}: US default", d.key());
+        // The accepted units, without a trailing remark in brackets.
+        let listed: Vec<&str> = cells[3].split(" (").next().unwrap().split(", ").collect();
+        assert_eq!(listed, units::of(d).map(|u| u.symbol).collect::<Vec<_>>(), "{}", d.key());
+    }
+}

@@ -35,6 +35,30 @@ pub enum Dimension {
 }
 
 impl Dimension {
+    /// Every dimension, in the order of the sheet file's `units`.
+    pub const ALL: [Dimension; 7] = [
+        Dimension::Flow,
+        Dimension::Pressure,
+        Dimension::DropPerLength,
+        Dimension::Length,
+        Dimension::Velocity,
+        Dimension::Temperature,
+        Dimension::Roughness,
+    ];
+
+    /// Its key in the sheet file's `units` ("drop_per_length").
+    pub fn key(self) -> &'static str {
+        match self {
+            Dimension::Flow => "flow",
+            Dimension::Pressure => "pressure",
+            Dimension::DropPerLength => "drop_per_length",
+            Dimension::Length => "length",
+            Dimension::Velocity => "velocity",
+            Dimension::Temperature => "temperature",
+            Dimension::Roughness => "roughness",
+        }
+    }
+
     fn name(self) -> &'static str {
         match self {
             Dimension::Flow => "flow",
