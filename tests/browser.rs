@@ -272,23 +272,28 @@ async fn drawing_results_runs_no_solve_and_an_edit_solves_one_line_only() {
         }
     });
     let ids: Vec<u32> = sheet.lines.with_untracked(|v| v.iter().map(|s| s.id).collect());
-    sheet.selected.set(Some(ids[0]));
-    leptos::task::tick().await;
-    // Showing other lines' results (size table, capacities, chart, worked
-    // steps) draws what each line's result already holds.
-    let before = SOLVES.load(Ordering::Relaxed);
     for id in [ids[7], ids[12], ids[0]] {
+        sheet.selected.set(Some(id));
+        leptos::task::tick().await;
+    }
+    // Drawing results panels again (size table, capacities, chart, worked
+    // steps) draws what each line's result and detail already hold.
+    let before = SOLVES.load(Ordering::Relaxed);
+    for id in [ids[7], ids[12], ids[0], ids[7], ids[0]] {
         sheet.selected.set(Some(id));
         leptos::task::tick().await;
         assert_eq!(all_text(&root, "size-row").len(), 5);
     }
     assert_eq!(SOLVES.load(Ordering::Relaxed) - before, 0, "drawing a result ran a solve");
-    // An edit of one line runs that line's solves and nobody else's: one
-    // search, a capacity for each size in the table, one worked trace.
+    // An edit of the open line runs that line's solves and nobody else's:
+    // one search and the shown size's capacity for the result; for its
+    // open panel, the other sizes' capacities and one worked trace.
     let before = SOLVES.load(Ordering::Relaxed);
     type_into(&root, "flow", "9");
     leptos::task::tick().await;
-    let o = sheet.lines.with_untracked(|v| v[0].report.get_untracked()).outcome.unwrap();
-    let one_line = 1 + o.nearby.len() + usize::from(o.shown.is_some());
+    let slot = sheet.lines.with_untracked(|v| v[0].clone());
+    let o = slot.report.get_untracked().outcome.unwrap();
+    let d = slot.detail.get_untracked().unwrap();
+    let one_line = 2 + (d.nearby.len() - 1) + usize::from(o.shown.is_some());
     assert_eq!(SOLVES.load(Ordering::Relaxed) - before, one_line);
 }

@@ -126,14 +126,15 @@ fn the_view_model_holds_what_every_view_shows() {
     )
     .unwrap();
     let shown = o.shown.unwrap();
+    let u = Units::defaults(System::Si);
+    let d = headroom::sheet::report::detail(&o, &u);
     // The sizes around the answer: two either side of it, in order.
-    let idx: Vec<usize> = o.nearby.iter().map(|n| n.index).collect();
+    let idx: Vec<usize> = d.nearby.iter().map(|n| n.index).collect();
     assert_eq!(idx, (shown - 2..=shown + 2).collect::<Vec<_>>());
     // Each one's figures are the point's values in the sheet's units, and
     // its capacity is the capacity solve's answer.
-    let u = Units::defaults(System::Si);
     let rho = o.sizing.properties.density_kg_m3();
-    for n in &o.nearby {
+    for n in &d.nearby {
         let c = &o.sizing.candidates[n.index];
         assert_eq!(n.figures.size, c.nominal);
         assert_eq!(n.figures.velocity, show(c.point.velocity.value, u.velocity, Some(rho), 3));
@@ -142,7 +143,8 @@ fn the_view_model_holds_what_every_view_shows() {
         assert_eq!(n.capacity_text, show(cap.value, u.flow, Some(rho), 3));
         assert_eq!(n.figures.checks.len(), 2, "one per limit set");
     }
-    assert_eq!(o.capacity, o.nearby[2].capacity, "the shown size's capacity");
-    assert_eq!(o.trace, sizing::trace(&o.line, &o.sizing.candidates[shown]));
-    assert!(o.figures_of(shown).unwrap().checks.iter().all(|k| k.met));
+    assert_eq!(o.capacity, d.nearby[2].capacity, "the shown size's capacity");
+    assert_eq!(o.figures.as_ref(), Some(&d.nearby[2].figures));
+    assert_eq!(d.trace, sizing::trace(&o.line, &o.sizing.candidates[shown]));
+    assert!(o.figures.unwrap().checks.iter().all(|k| k.met));
 }

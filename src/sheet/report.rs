@@ -30,8 +30,18 @@ pub struct Outcome {
     pub checked: bool,
     /// Capacity of the shown size.
     pub capacity: Option<Capacity>,
-    /// The sizes shown around the answer (up to two either side of it, or
-    /// the largest sizes when none meets the limits), with their capacity.
+    /// The shown size's figures in the sheet's units.
+    pub figures: Option<Figures>,
+}
+
+/// What the open results panel shows beyond the [`Outcome`]: the sizes
+/// around the answer with their capacities, and the worked steps. Made by
+/// [`detail`] once per line result (the page keeps it in a memo of its
+/// own, computed only for a line whose panel is drawn); views only draw it.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Detail {
+    /// The sizes around the answer (up to two either side of it, or the
+    /// largest sizes when none meets the limits), with their capacity.
     pub nearby: Vec<Nearby>,
     /// The worked steps for the shown size (empty when there is none).
     pub trace: Vec<Step>,
@@ -51,11 +61,25 @@ pub struct Nearby {
     pub figures: Figures,
 }
 
-impl Outcome {
-    /// The figures of a candidate near the answer.
-    pub fn figures_of(&self, index: usize) -> Option<&Figures> {
-        self.nearby.iter().find(|n| n.index == index).map(|n| &n.figures)
-    }
+/// The detail of a line's result: capacities and figures of the sizes
+/// around the answer (the shown size's capacity is reused, not solved
+/// again) and the worked steps.
+pub fn detail(o: &Outcome, units: &Units) -> Detail {
+    let rho = o.sizing.properties.density_kg_m3();
+    let nearby = window(o.shown, o.sizing.candidates.len())
+        .map(|index| {
+            let c = &o.sizing.candidates[index];
+            let capacity =
+                if o.shown == Some(index) { o.capacity } else { sizing::capacity(&o.line, c.point.bore).ok() };
+            let capacity_text = capacity
+                .and_then(|k| k.max_flow)
+                .map(|q| show(q.value, units.flow, Some(rho), 3))
+                .unwrap_or_else(|| "—".into());
+            Nearby { index, capacity, capacity_text, figures: Figures::of(c, units, rho) }
+        })
+        .collect();
+    let trace = o.shown.map(|i| sizing::trace(&o.line, &o.sizing.candidates[i])).unwrap_or_default();
+    Detail { nearby, trace }
 }
 
 /// The candidates around the answer: two either side of `shown`, or the
@@ -94,20 +118,9 @@ pub fn evaluate_line(number: usize, lf: &LineFile, units: &Units) -> LineReport 
             None => (sizing.proposed, false),
         };
         let rho = sizing.properties.density_kg_m3();
-        let nearby: Vec<Nearby> = window(shown, sizing.candidates.len())
-            .map(|index| {
-                let c = &sizing.candidates[index];
-                let capacity = sizing::capacity(&line, c.point.bore).ok();
-                let capacity_text = capacity
-                    .and_then(|k| k.max_flow)
-                    .map(|q| show(q.value, units.flow, Some(rho), 3))
-                    .unwrap_or_else(|| "—".into());
-                Nearby { index, capacity, capacity_text, figures: Figures::of(c, units, rho) }
-            })
-            .collect();
-        let capacity = shown.and_then(|i| nearby.iter().find(|n| n.index == i)).and_then(|n| n.capacity);
-        let trace = shown.map(|i| sizing::trace(&line, &sizing.candidates[i])).unwrap_or_default();
-        Ok(Outcome { line, sizing, shown, checked, capacity, nearby, trace })
+        let capacity = shown.and_then(|i| sizing::capacity(&line, sizing.candidates[i].point.bore).ok());
+        let figures = shown.map(|i| Figures::of(&sizing.candidates[i], units, rho));
+        Ok(Outcome { line, sizing, shown, checked, capacity, figures })
     });
     LineReport { number, name: lf.name.clone(), outcome }
 }
@@ -253,7 +266,7 @@ fn table_row(r: &LineReport, u: &Units, notes: &mut Vec<String>) -> [String; 11]
                     r.number
                 ));
             }
-            let f = o.figures_of(i).cloned().unwrap_or_else(|| Figures::of(c, u, o.sizing.properties.density_kg_m3()));
+            let f = o.figures.clone().unwrap_or_else(|| Figures::of(c, u, o.sizing.properties.density_kg_m3()));
             let size = match (o.checked, c.passes()) {
                 (true, true) => format!("{} (checked)", f.size),
                 (true, false) => format!("{} (checked: FAILS)", f.size),

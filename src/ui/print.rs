@@ -121,7 +121,7 @@ fn PrintLine(line: Slot, number: usize) -> impl IntoView {
                     None => format!("No size meets the limits; the largest fails {}.", o.sizing.failing_at_largest.iter().map(|l| l.name()).collect::<Vec<_>>().join(", ")),
                     Some(i) => {
                         let c = &o.sizing.candidates[i];
-                        let f = o.figures_of(i).cloned().expect("the shown size is among the sizes near it");
+                        let f = o.figures.clone().expect("a shown size has its figures");
                         format!(
                             "{} {}: velocity {}, drop per length {}, total drop {}, Re {}, f {}{}",
                             if o.checked { "Checked size" } else { "Proposed size" },

@@ -5,8 +5,9 @@ use leptos::prelude::*;
 
 use super::state::Slot;
 use crate::hydraulics::sizing::Candidate;
+use crate::hydraulics::sizing::Step;
 use crate::sheet::chart;
-use crate::sheet::report::Outcome;
+use crate::sheet::report::{Detail, Outcome};
 use crate::sheet::units::format_number;
 
 /// The answer for the selected line.
@@ -17,17 +18,18 @@ pub fn LineResults(
 ) -> impl IntoView {
     let report = line.report;
     let file = line.file;
+    let detail = line.detail;
     let outcome = Memo::new(move |_| report.with(|r| r.outcome.clone().ok()));
     view! {
         <section class="results" aria-label="Answer" data-testid="results">
-            {move || { match outcome.get() {
+            {move || { match outcome.get().zip(detail.get()) {
                 None => view! {
                     <div class="answer answer-wait" data-testid="answer">
                         <p class="answer-size" data-testid="proposed-size">"—"</p>
                         <p>"Fix the fields marked in red to see sizes."</p>
                     </div>
                 }.into_any(),
-                Some(o) => view! { <Answer o=o.clone()/> <SizeTable o=o.clone() file=file/> <Explain o=o/> }.into_any(),
+                Some((o, d)) => view! { <Answer o=o.clone()/> <SizeTable o=o d=d.clone() file=file/> <Explain steps=d.trace/> }.into_any(),
             }}}
             <Moody outcome=outcome/>
         </section>
@@ -49,8 +51,7 @@ fn Answer(o: Outcome) -> impl IntoView {
         .into_any(),
         Some(c) => {
             let pass = c.passes();
-            let fig =
-                o.shown.and_then(|i| o.figures_of(i)).cloned().expect("the shown size is among the sizes near it");
+            let fig = o.figures.clone().expect("a shown size has its figures");
             let head = if o.checked {
                 if pass {
                     "Checked size — meets every limit"
@@ -90,9 +91,9 @@ fn Answer(o: Outcome) -> impl IntoView {
 }
 
 #[component]
-fn SizeTable(o: Outcome, file: RwSignal<crate::sheet::file::LineFile>) -> impl IntoView {
+fn SizeTable(o: Outcome, d: Detail, file: RwSignal<crate::sheet::file::LineFile>) -> impl IntoView {
     let pinned = o.checked;
-    let rows = o
+    let rows = d
         .nearby
         .iter()
         .map(|near| {
@@ -188,8 +189,7 @@ pub fn Moody(
 }
 
 #[component]
-fn Explain(o: Outcome) -> impl IntoView {
-    let steps = o.trace;
+fn Explain(steps: Vec<Step>) -> impl IntoView {
     view! {
         <details class="explain" data-testid="explain">
             <summary>"How this was worked out"</summary>

@@ -99,8 +99,11 @@ fn RosterRow(line: Slot) -> impl IntoView {
                 None => ("no size".to_owned(), "limits cannot all be met".to_owned(), "bad"),
                 Some(i) => {
                     let c = &o.sizing.candidates[i];
-                    let detail =
-                        o.figures_of(i).map(|f| format!("{} · {}", f.velocity, f.drop_per_length)).unwrap_or_default();
+                    let detail = o
+                        .figures
+                        .as_ref()
+                        .map(|f| format!("{} · {}", f.velocity, f.drop_per_length))
+                        .unwrap_or_default();
                     let state = if !c.passes() {
                         "bad"
                     } else if o.checked {

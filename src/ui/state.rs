@@ -14,7 +14,7 @@ use leptos::prelude::*;
 use crate::sheet::convert;
 use crate::sheet::file::{LineFile, SheetFile, System, UnitChoice, Units, FORMAT, VERSION};
 use crate::sheet::presets::Service;
-use crate::sheet::report::{evaluate_line, LineReport};
+use crate::sheet::report::{detail, evaluate_line, Detail, LineReport};
 use crate::sheet::units::Dimension;
 
 /// How many line evaluations the page has run (for the "only changed
@@ -33,6 +33,10 @@ pub struct Slot {
     pub file: RwSignal<LineFile>,
     /// Its result, recomputed only when its text or the sheet's units change.
     pub report: Memo<LineReport>,
+    /// What its open results panel shows beyond the result (the sizes
+    /// around the answer with capacities, the worked steps): lazy, so it is
+    /// made only for a line whose panel is drawn, once per result.
+    pub detail: Memo<Option<Detail>>,
     /// Whether the line is on the path whose drops are summed.
     pub in_path: RwSignal<bool>,
     owner: Owner,
@@ -130,7 +134,9 @@ impl Sheet {
                 EVALUATIONS.fetch_add(1, Ordering::Relaxed);
                 file.with(|f| evaluate_line(0, f, &resolved.get()))
             });
-            Slot { id, file, report, in_path: RwSignal::new(false), owner: owner.clone() }
+            let detail =
+                Memo::new(move |_| report.with(|r| r.outcome.as_ref().ok().map(|o| detail(o, &resolved.get()))));
+            Slot { id, file, report, detail, in_path: RwSignal::new(false), owner: owner.clone() }
         })
     }
 
