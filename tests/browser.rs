@@ -297,3 +297,33 @@ async fn drawing_results_runs_no_solve_and_an_edit_solves_one_line_only() {
     let one_line = 2 + (d.nearby.len() - 1) + usize::from(o.shown.is_some());
     assert_eq!(SOLVES.load(Ordering::Relaxed) - before, one_line);
 }
+
+#[wasm_bindgen_test]
+async fn the_print_sheet_follows_after_typing_stops_or_when_printing() {
+    let (root, _) = mount_sheet(|s| chilled(s, "print me", "4"));
+    leptos::task::tick().await;
+    let printed = || text(&root, "print-sheet");
+    assert!(printed().contains("print me"));
+    // While typing, the hidden print sheet is left alone.
+    for v in ["7", "77", "77.5"] {
+        type_into(&root, "flow", v);
+        leptos::task::tick().await;
+    }
+    assert!(!printed().contains("77.5"), "redrawn on a keystroke");
+    // After a pause it has caught up.
+    let wait = js_sys::Promise::new(&mut |resolve, _| {
+        web_sys::window()
+            .unwrap()
+            .set_timeout_with_callback_and_timeout_and_arguments_0(&resolve, headroom::ui::print::PRINT_FOLLOW_MS + 200)
+            .unwrap();
+    });
+    wasm_bindgen_futures::JsFuture::from(wait).await.unwrap();
+    leptos::task::tick().await;
+    assert!(printed().contains("77.5"));
+    // And at once when the browser is about to print.
+    type_into(&root, "flow", "88.25");
+    leptos::task::tick().await;
+    web_sys::window().unwrap().dispatch_event(&web_sys::Event::new("beforeprint").unwrap()).unwrap();
+    leptos::task::tick().await;
+    assert!(printed().contains("88.25"));
+}

@@ -46,10 +46,12 @@ fn fluid_text(f: &LineFile) -> String {
 
 // Over 60 lines on purpose: one line's printed record (inputs, assumptions, answer), kept whole so it reads as printed.
 #[component]
-fn PrintLine(line: Slot, number: usize) -> impl IntoView {
+fn PrintLine(line: Slot, number: usize, stamp: RwSignal<u32>) -> impl IntoView {
     let body = move || {
-        let f = line.file.get();
-        let r = line.report.get();
+        // Redrawn when the sheet's print stamp moves, not on every keystroke.
+        stamp.track();
+        let f = line.file.get_untracked();
+        let r = line.report.get_untracked();
         let inputs = vec![
             ("Flow", f.flow.clone()),
             ("Fluid", fluid_text(&f)),
@@ -154,10 +156,55 @@ fn PrintLine(line: Slot, number: usize) -> impl IntoView {
     view! { <section class="print-line">{body}</section> }
 }
 
-/// The review sheet, shown only when printing.
+/// How long the print sheet waits after the last change before it follows
+/// (a choice of ours: after a typing pause, long before anyone prints).
+pub const PRINT_FOLLOW_MS: i32 = 400;
+
+/// The review sheet, shown only when printing. It stays out of the
+/// reactive path while someone types: its lines follow the worksheet
+/// [`PRINT_FOLLOW_MS`] after the last change, and at once when the browser
+/// is about to print.
 #[component]
 pub fn PrintSheet() -> impl IntoView {
     let sheet = expect_context::<Sheet>();
+    let stamp = RwSignal::new(0u32);
+    let pending = StoredValue::new(None::<i32>);
+    // `try_`: a timer or print event may arrive after this desk was
+    // replaced by another worksheet's, when these values are gone.
+    let follow = move || {
+        stamp.try_update(|n| *n = n.wrapping_add(1));
+    };
+    Effect::new(move |first: Option<()>| {
+        sheet.lines.with(|v| v.iter().for_each(|s| s.file.track()));
+        sheet.resolved.track();
+        if first.is_none() {
+            return;
+        }
+        let Some(w) = web_sys::window() else { return };
+        if let Some(h) = pending.get_value() {
+            w.clear_timeout_with_handle(h);
+        }
+        let later = wasm_bindgen::closure::Closure::once_into_js(move || {
+            pending.try_set_value(None);
+            follow();
+        });
+        let handle = w
+            .set_timeout_with_callback_and_timeout_and_arguments_0(
+                wasm_bindgen::JsCast::unchecked_ref(&later),
+                PRINT_FOLLOW_MS,
+            )
+            .ok();
+        pending.set_value(handle);
+    });
+    if let Some(w) = web_sys::window() {
+        let before_print = wasm_bindgen::closure::Closure::<dyn FnMut()>::new(follow);
+        let _ = w.add_event_listener_with_callback(
+            "beforeprint",
+            wasm_bindgen::JsCast::unchecked_ref(before_print.as_ref()),
+        );
+        // The listener lives as long as the page; a new desk adds its own.
+        before_print.forget();
+    }
     let rows = move || sheet.lines.get().into_iter().enumerate().collect::<Vec<_>>();
     view! {
         <article class="print-sheet" data-testid="print-sheet" aria-hidden="true">
@@ -166,7 +213,7 @@ pub fn PrintSheet() -> impl IntoView {
                 <p>{move || format!("Pipe sizing review sheet · {} · Headroom {}", sheet.date.get(), env!("CARGO_PKG_VERSION"))}</p>
                 <p class="print-caution"><strong>"Caution: "</strong>{CAUTION}</p>
             </header>
-            <For each=rows key=|(i, s)| (*i, s.id) children=|(i, s)| view! { <PrintLine line=s number=i + 1/> }/>
+            <For each=rows key=|(i, s)| (*i, s.id) children=move |(i, s)| view! { <PrintLine line=s number=i + 1 stamp=stamp/> }/>
             <footer>
                 <h2>"Sources"</h2>
                 <ul>{SOURCES.iter().map(|s| view! { <li>{*s}</li> }).collect_view()}</ul>
