@@ -502,6 +502,15 @@ fn storage_event(key: &str, value: &str) {
     web_sys::window().unwrap().dispatch_event(&ev).unwrap();
 }
 
+/// Writes a sheet and its next revision as another tab's save would;
+/// returns that revision.
+fn other_tab_saves(id: &str, sheet: &SheetFile) -> u64 {
+    let rev: u64 = storage().get_item(&format!("{REV_PREFIX}{id}")).unwrap().unwrap().parse().unwrap();
+    storage().set_item(&format!("{SHEET_PREFIX}{id}"), &sheet.to_json()).unwrap();
+    storage().set_item(&format!("{REV_PREFIX}{id}"), &(rev + 1).to_string()).unwrap();
+    rev + 1
+}
+
 fn current_sheet() -> (String, SheetFile) {
     let id = storage().get_item(CURRENT_KEY).unwrap().unwrap();
     let text = storage().get_item(&format!("{SHEET_PREFIX}{id}")).unwrap().unwrap();
@@ -518,10 +527,8 @@ async fn another_tabs_save_is_followed_when_this_tab_has_nothing_unsaved() {
     // The other tab renames the line and saves a newer revision.
     let (id, mut theirs) = current_sheet();
     theirs.lines[0].name = "Renamed in the other tab".into();
-    let rev: u64 = storage().get_item(&format!("{REV_PREFIX}{id}")).unwrap().unwrap().parse().unwrap();
-    storage().set_item(&format!("{SHEET_PREFIX}{id}"), &theirs.to_json()).unwrap();
-    storage().set_item(&format!("{REV_PREFIX}{id}"), &(rev + 1).to_string()).unwrap();
-    storage_event(&format!("{REV_PREFIX}{id}"), &(rev + 1).to_string());
+    let rev = other_tab_saves(&id, &theirs);
+    storage_event(&format!("{REV_PREFIX}{id}"), &rev.to_string());
     settle().await;
     assert_eq!(all_text(&page, "row-name"), ["Renamed in the other tab"]);
     assert!(page.query_selector("[data-testid=halt]").unwrap().is_none());
@@ -542,9 +549,7 @@ async fn a_tab_that_would_overwrite_a_newer_revision_stops_and_offers_both_copie
     // This tab types; before its save runs, the other tab saves.
     type_into(&page, "line-name", "This tab's name");
     theirs.lines[0].name = "The other tab's name".into();
-    let rev: u64 = storage().get_item(&format!("{REV_PREFIX}{id}")).unwrap().unwrap().parse().unwrap();
-    storage().set_item(&format!("{SHEET_PREFIX}{id}"), &theirs.to_json()).unwrap();
-    storage().set_item(&format!("{REV_PREFIX}{id}"), &(rev + 1).to_string()).unwrap();
+    other_tab_saves(&id, &theirs);
     settle().await;
     // Nothing overwritten, the person told, saving stopped.
     assert!(find(&page, "halt").text_content().unwrap().contains("stopped saving"));

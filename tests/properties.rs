@@ -172,15 +172,7 @@ proptest! {
 fn dimensions_of_all_units_are_covered() {
     // Every field kind has a default unit in both systems (a guard for the
     // page's unit pickers).
-    for d in [
-        Dimension::Flow,
-        Dimension::Pressure,
-        Dimension::DropPerLength,
-        Dimension::Length,
-        Dimension::Velocity,
-        Dimension::Temperature,
-        Dimension::Roughness,
-    ] {
+    for d in Dimension::ALL {
         assert!(units::of(d).count() >= 2, "{d:?}");
     }
 }
