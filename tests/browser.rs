@@ -293,7 +293,7 @@ async fn drawing_results_runs_no_solve_and_an_edit_solves_one_line_only() {
     leptos::task::tick().await;
     let slot = sheet.lines.with_untracked(|v| v[0].clone());
     let o = slot.report.get_untracked().outcome.unwrap();
-    let d = slot.detail.get_untracked().unwrap();
+    let d = slot.detail.get_untracked().unwrap().1;
     let one_line = 2 + (d.nearby.len() - 1) + usize::from(o.shown.is_some());
     assert_eq!(SOLVES.load(Ordering::Relaxed) - before, one_line);
 }

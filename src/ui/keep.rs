@@ -12,7 +12,7 @@
 use leptos::prelude::*;
 use wasm_bindgen::JsCast;
 
-use super::state::{after_redraw, Sheet};
+use super::state::{after_redraw, listen, Sheet};
 use crate::sheet::file::{SheetFile, FORMAT, VERSION};
 use crate::sheet::library::{display_name, Entry, Kv, Library, Problem, StoreError, Trashed, BUILD_KEY, REV_PREFIX};
 use crate::sheet::link;
@@ -166,12 +166,6 @@ pub fn blank() -> SheetFile {
 pub fn build_id() -> Option<String> {
     let w = web_sys::window()?;
     js_sys::Reflect::get(&w, &"headroomBuild".into()).ok()?.as_string().filter(|b| !b.starts_with("__"))
-}
-
-fn listen(target: &web_sys::EventTarget, event: &str, f: impl FnMut(web_sys::Event) + 'static) {
-    let f = wasm_bindgen::closure::Closure::<dyn FnMut(web_sys::Event)>::new(f);
-    let _ = target.add_event_listener_with_callback(event, f.as_ref().unchecked_ref());
-    f.forget();
 }
 
 fn address_fragment() -> String {

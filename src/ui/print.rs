@@ -4,7 +4,7 @@
 
 use leptos::prelude::*;
 
-use super::state::{Sheet, Slot};
+use super::state::{after, listen, Sheet, Slot};
 use crate::hydraulics::line::{Method, Pipe};
 use crate::hydraulics::losses::Fitting;
 use crate::sheet::file::{FluidFile, LineFile, PipeFile};
@@ -156,19 +156,20 @@ fn PrintLine(line: Slot, number: usize, stamp: RwSignal<u32>) -> impl IntoView {
     view! { <section class="print-line">{body}</section> }
 }
 
-/// How long the print sheet waits after the last change before it follows
-/// (a choice of ours: after a typing pause, long before anyone prints).
+/// How long after a change the print sheet follows it (a choice of ours:
+/// a few times a second while typing, long before anyone prints).
 pub const PRINT_FOLLOW_MS: i32 = 400;
 
 /// The review sheet, shown only when printing. It stays out of the
 /// reactive path while someone types: its lines follow the worksheet
-/// [`PRINT_FOLLOW_MS`] after the last change, and at once when the browser
-/// is about to print.
+/// [`PRINT_FOLLOW_MS`] after a change (one redraw for however many
+/// keystrokes came meanwhile), and at once when the browser is about to
+/// print.
 #[component]
 pub fn PrintSheet() -> impl IntoView {
     let sheet = expect_context::<Sheet>();
     let stamp = RwSignal::new(0u32);
-    let pending = StoredValue::new(None::<i32>);
+    let pending = StoredValue::new(false);
     // `try_`: a timer or print event may arrive after this desk was
     // replaced by another worksheet's, when these values are gone.
     let follow = move || {
@@ -177,33 +178,17 @@ pub fn PrintSheet() -> impl IntoView {
     Effect::new(move |first: Option<()>| {
         sheet.lines.with(|v| v.iter().for_each(|s| s.file.track()));
         sheet.resolved.track();
-        if first.is_none() {
+        if first.is_none() || pending.get_value() {
             return;
         }
-        let Some(w) = web_sys::window() else { return };
-        if let Some(h) = pending.get_value() {
-            w.clear_timeout_with_handle(h);
-        }
-        let later = wasm_bindgen::closure::Closure::once_into_js(move || {
-            pending.try_set_value(None);
+        pending.set_value(true);
+        after(PRINT_FOLLOW_MS, move || {
+            pending.try_set_value(false);
             follow();
         });
-        let handle = w
-            .set_timeout_with_callback_and_timeout_and_arguments_0(
-                wasm_bindgen::JsCast::unchecked_ref(&later),
-                PRINT_FOLLOW_MS,
-            )
-            .ok();
-        pending.set_value(handle);
     });
     if let Some(w) = web_sys::window() {
-        let before_print = wasm_bindgen::closure::Closure::<dyn FnMut()>::new(follow);
-        let _ = w.add_event_listener_with_callback(
-            "beforeprint",
-            wasm_bindgen::JsCast::unchecked_ref(before_print.as_ref()),
-        );
-        // The listener lives as long as the page; a new desk adds its own.
-        before_print.forget();
+        listen(&w, "beforeprint", move |_| follow());
     }
     let rows = move || sheet.lines.get().into_iter().enumerate().collect::<Vec<_>>();
     view! {

@@ -16,13 +16,11 @@ pub fn LineResults(
     /// The line.
     line: Slot,
 ) -> impl IntoView {
-    let report = line.report;
     let file = line.file;
-    let detail = line.detail;
-    let outcome = Memo::new(move |_| report.with(|r| r.outcome.clone().ok()));
+    let shown = line.detail;
     view! {
         <section class="results" aria-label="Answer" data-testid="results">
-            {move || { match outcome.get().zip(detail.get()) {
+            {move || { match shown.get() {
                 None => view! {
                     <div class="answer answer-wait" data-testid="answer">
                         <p class="answer-size" data-testid="proposed-size">"—"</p>
@@ -31,7 +29,7 @@ pub fn LineResults(
                 }.into_any(),
                 Some((o, d)) => view! { <Answer o=o.clone()/> <SizeTable o=o d=d.clone() file=file/> <Explain steps=d.trace/> }.into_any(),
             }}}
-            <Moody outcome=outcome/>
+            <Moody shown=shown/>
         </section>
     }
 }
@@ -148,14 +146,14 @@ fn SizeTable(o: Outcome, d: Detail, file: RwSignal<crate::sheet::file::LineFile>
 #[component]
 pub fn Moody(
     /// The line's result, if it has one.
-    outcome: Memo<Option<Outcome>>,
+    shown: Memo<Option<(Outcome, Detail)>>,
 ) -> impl IntoView {
     let c = chart::background();
     let (px, py, pw, ph) = chart::plot_area();
     let view_box = format!("0 0 {} {}", chart::WIDTH, chart::HEIGHT);
-    let points = move || outcome.with(|o| o.as_ref().map(|o| chart::points(&o.sizing)).unwrap_or_default());
+    let points = move || shown.with(|o| o.as_ref().map(|(o, _)| chart::points(&o.sizing)).unwrap_or_default());
     view! {
-        <figure class="moody" class:hidden=move || outcome.with(Option::is_none)>
+        <figure class="moody" class:hidden=move || shown.with(Option::is_none)>
             <svg viewBox=view_box role="img" aria-labelledby="moody-title" data-testid="moody">
                 <title id="moody-title">"Moody chart: friction factor against Reynolds number, with each size's operating point"</title>
                 <rect class="plot" x=px y=py width=pw height=ph/>

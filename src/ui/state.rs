@@ -14,7 +14,7 @@ use leptos::prelude::*;
 use crate::sheet::convert;
 use crate::sheet::file::{LineFile, SheetFile, System, UnitChoice, Units, FORMAT, VERSION};
 use crate::sheet::presets::Service;
-use crate::sheet::report::{detail, evaluate_line, Detail, LineReport};
+use crate::sheet::report::{detail, evaluate_line, Detail, LineReport, Outcome};
 use crate::sheet::units::Dimension;
 
 /// How many line evaluations the page has run (for the "only changed
@@ -36,7 +36,7 @@ pub struct Slot {
     /// What its open results panel shows beyond the result (the sizes
     /// around the answer with capacities, the worked steps): lazy, so it is
     /// made only for a line whose panel is drawn, once per result.
-    pub detail: Memo<Option<Detail>>,
+    pub detail: Memo<Option<(Outcome, Detail)>>,
     /// Whether the line is on the path whose drops are summed.
     pub in_path: RwSignal<bool>,
     owner: Owner,
@@ -69,13 +69,25 @@ impl PartialEq for Sheet {
     }
 }
 
+/// Runs `f` in a task of its own, `ms` milliseconds from now.
+pub fn after(ms: i32, f: impl FnOnce() + 'static) {
+    let f = wasm_bindgen::closure::Closure::once_into_js(f);
+    if let Some(w) = web_sys::window() {
+        let _ = w.set_timeout_with_callback_and_timeout_and_arguments_0(wasm_bindgen::JsCast::unchecked_ref(&f), ms);
+    }
+}
+
 /// Runs `f` in a task of its own, after the reactive updates queued now
 /// (they run as microtasks) have redrawn the page.
 pub fn after_redraw(f: impl FnOnce() + 'static) {
-    let f = wasm_bindgen::closure::Closure::once_into_js(f);
-    if let Some(w) = web_sys::window() {
-        let _ = w.set_timeout_with_callback(wasm_bindgen::JsCast::unchecked_ref(&f));
-    }
+    after(0, f);
+}
+
+/// Calls `f` on every `event` at `target`, for as long as the page lives.
+pub fn listen(target: &web_sys::EventTarget, event: &str, f: impl FnMut(web_sys::Event) + 'static) {
+    let f = wasm_bindgen::closure::Closure::<dyn FnMut(web_sys::Event)>::new(f);
+    let _ = target.add_event_listener_with_callback(event, wasm_bindgen::JsCast::unchecked_ref(f.as_ref()));
+    f.forget();
 }
 
 impl Sheet {
@@ -134,8 +146,11 @@ impl Sheet {
                 EVALUATIONS.fetch_add(1, Ordering::Relaxed);
                 file.with(|f| evaluate_line(0, f, &resolved.get()))
             });
-            let detail =
-                Memo::new(move |_| report.with(|r| r.outcome.as_ref().ok().map(|o| detail(o, &resolved.get()))));
+            // One memo holds the result with its detail, so the results
+            // panel needs no memo of its own (each memo type costs bytes).
+            let detail = Memo::new(move |_| {
+                report.with(|r| r.outcome.as_ref().ok().map(|o| (o.clone(), detail(o, &resolved.get()))))
+            });
             Slot { id, file, report, detail, in_path: RwSignal::new(false), owner: owner.clone() }
         })
     }
