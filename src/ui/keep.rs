@@ -14,7 +14,10 @@ use wasm_bindgen::JsCast;
 
 use super::state::{after_redraw, listen, Sheet};
 use crate::sheet::file::{SheetFile, FORMAT, VERSION};
-use crate::sheet::library::{display_name, Entry, Kv, Library, Problem, StoreError, Trashed, BUILD_KEY, REV_PREFIX};
+use crate::sheet::library::{
+    display_name, Entry, Kv, Library, Problem, StoreError, Trashed, ASIDE_PREFIX, BUILD_KEY, INDEX_KEY, REV_PREFIX,
+    TRASH_PREFIX,
+};
 use crate::sheet::link;
 
 /// Local storage as a [`Kv`]; every call copes with storage being absent.
@@ -198,14 +201,14 @@ impl Keeper {
         if let Some(p) = problem {
             notices.say(p.to_string());
         }
-        let entries = library.with_value(|l| l.reconcile());
+        library.with_value(|l| l.reconcile());
         let cutoff = js_sys::Date::new(&(js_sys::Date::now() - TRASH_DAYS * 86_400_000.0).into()).to_iso_string();
         library.with_value(|l| l.purge_before(&cutoff.as_string().unwrap_or_default()));
         let keeper = Keeper {
             library,
             sheet: RwSignal::new(Sheet::new()),
             current: RwSignal::new(String::new()),
-            entries: RwSignal::new(entries),
+            entries: RwSignal::new(Vec::new()),
             trash: RwSignal::new(Vec::new()),
             aside: RwSignal::new(Vec::new()),
             last_deleted: RwSignal::new(None),
@@ -474,7 +477,9 @@ impl Keeper {
             }
             return;
         }
-        if key.starts_with("headroom.") {
+        // Another tab's keystrokes rewrite its sheet's key; only the keys
+        // behind the lists are worth re-reading them for.
+        if key == INDEX_KEY || key.starts_with(TRASH_PREFIX) || key.starts_with(ASIDE_PREFIX) {
             self.refresh_lists();
         }
     }
