@@ -42,7 +42,21 @@ fn the_demo_sheet_sizes_every_line_in_all_three_forms() {
     // The JSON and table agree on the proposal of line 2.
     let size = v["lines"][1]["proposed_size"].as_str().unwrap();
     let row = table.lines().find(|l| l.starts_with("2 ")).unwrap();
-    assert!(row.contains(&format!("  {size}  ")), "{row} vs {size}");
+    assert!(row.contains(&format!("  NPS {size}  ")), "{row} vs {size}");
+    // A closed loop: the riser's static part is shown apart in every form,
+    // and its total is friction + fittings only.
+    assert!(table.contains("Closed loop"), "{table}");
+    assert!(row.contains(", apart)"), "{row}");
+    assert!(csv.contains("static in total") && csv.lines().nth(2).unwrap().contains(",no,"), "{csv}");
+    assert_eq!(v["circuit"], "closed");
+    let c = v["lines"][1]["candidates"].as_array().unwrap().iter().find(|c| c["size"] == size).unwrap();
+    let parts = c["friction_drop_pa"].as_f64().unwrap() + c["fittings_drop_pa"].as_f64().unwrap();
+    assert!(c["static_drop_pa"].as_f64().unwrap() > 100e3, "the riser rises about 18 m");
+    assert!((c["total_drop_pa"].as_f64().unwrap() - parts).abs() < 1e-9 * parts);
+    // Every form says what set the size.
+    assert!(table.contains("line 2: governed by drop per length"), "{table}");
+    assert!(csv.lines().nth(2).unwrap().contains("governed by"), "{csv}");
+    assert_eq!(v["lines"][1]["governed_by"], "drop_per_length");
 }
 
 #[test]

@@ -219,6 +219,23 @@ async fn check_mode_pins_a_size_and_the_path_adds_up_drops() {
     let want = headroom::sheet::units::show(total, units.pressure, Some(1000.0), 3);
     let got = text(&root, "path-total");
     assert!(got.contains(&format!("Path of 2 lines: {want} total drop")), "{got} vs {want}");
+    // The sheet turned into a closed loop: the path total is friction and
+    // fittings only, with the static part shown apart, and so is the answer.
+    sheet.basis.update(|b| b.circuit = headroom::hydraulics::line::Circuit::Closed);
+    leptos::task::tick().await;
+    let closed = Units { basis: sheet.basis.get_untracked(), ..units };
+    let (sum, rise) = (0..2).fold((0.0, 0.0), |(s, r), i| {
+        let file = sheet.lines.with_untracked(|v| v[i].file.get_untracked());
+        let o = evaluate_line(1, &file, &closed).outcome.unwrap();
+        let p = o.sizing.candidates[o.shown.unwrap()].point;
+        assert!((p.total_drop.value - p.friction_drop.value - p.fittings_drop.value).abs() < 1e-6);
+        (s + p.total_drop.value, r + p.static_drop.value)
+    });
+    let show = |v: f64| headroom::sheet::units::show(v, units.pressure, None, 3);
+    let got = text(&root, "path-total");
+    assert!(got.contains(&format!("Path of 2 lines: {} friction and fittings", show(sum))), "{got}");
+    assert!(got.contains(&format!("static {} shown apart", show(rise))), "{got}");
+    assert!(text(&root, "answer-breakdown").contains("shown apart (closed loop)"));
 }
 
 #[wasm_bindgen_test]

@@ -35,6 +35,7 @@ fn typed_line() -> LineFile {
             min_velocity: None,
         },
         check_size: None,
+        smallest_size: None,
     }
 }
 

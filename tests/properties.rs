@@ -4,7 +4,7 @@
 
 use headroom::hydraulics::fluid::{Fluid, Glycol};
 use headroom::hydraulics::friction::{colebrook, darcy};
-use headroom::hydraulics::line::{pa_per_m, Limits, Line, Method, Pipe};
+use headroom::hydraulics::line::{pa_per_m, Circuit, Limits, Line, Method, Pipe};
 use headroom::hydraulics::losses::{Fitting, Fittings};
 use headroom::hydraulics::pipes::{self, SERIES};
 use headroom::hydraulics::sizing;
@@ -31,6 +31,10 @@ fn water_line(flow_lps: f64, t_c: f64, rough_mm: f64, series: &'static pipes::Se
         rise: Length::new::<meter>(3.0),
         method: Method::DarcyWeisbach,
         limits: Limits { max_drop_per_length: Some(pa_per_m(400.0)), ..Limits::default() },
+        circuit: Circuit::Open,
+        freeze_margin: 3.0,
+        every_size: true,
+        smallest: None,
     }
 }
 
@@ -120,6 +124,10 @@ proptest! {
                 max_velocity: Some(Velocity::new::<meter_per_second>(lim)),
                 min_velocity: None,
             },
+            circuit: if rise > 0.0 { Circuit::Closed } else { Circuit::Open },
+            freeze_margin: 3.0,
+            every_size: hw,
+            smallest: None,
         };
         // Invalid input is refused by validate(); everything it lets through
         // sizes to finite numbers.

@@ -67,6 +67,8 @@ pub enum Field {
     MinVelocity,
     /// Check mode's pinned size.
     CheckSize,
+    /// The smallest size the search may propose.
+    SmallestSize,
     /// The sheet's flow unit.
     UnitsFlow,
     /// The sheet's pressure unit.
@@ -85,7 +87,7 @@ pub enum Field {
 
 impl Field {
     /// Every field, in the order of the sheet file.
-    pub const ALL: [Field; 35] = [
+    pub const ALL: [Field; 36] = [
         Field::Line,
         Field::Name,
         Field::Flow,
@@ -114,6 +116,7 @@ impl Field {
         Field::MaxVelocity,
         Field::MinVelocity,
         Field::CheckSize,
+        Field::SmallestSize,
         Field::UnitsFlow,
         Field::UnitsPressure,
         Field::UnitsDropPerLength,
@@ -154,6 +157,7 @@ impl Field {
             Field::MaxVelocity => "limits.max_velocity",
             Field::MinVelocity => "limits.min_velocity",
             Field::CheckSize => "check_size",
+            Field::SmallestSize => "smallest_size",
             Field::UnitsFlow => "units.flow",
             Field::UnitsPressure => "units.pressure",
             Field::UnitsDropPerLength => "units.drop_per_length",
@@ -193,6 +197,7 @@ impl Field {
             Field::MaxVelocity => "maximum velocity",
             Field::MinVelocity => "minimum velocity",
             Field::CheckSize => "checked size",
+            Field::SmallestSize => "smallest size",
             Field::UnitsFlow => "flow unit",
             Field::UnitsPressure => "pressure unit",
             Field::UnitsDropPerLength => "drop-per-length unit",

@@ -55,8 +55,65 @@ impl Pipe {
     /// Candidate bores, smallest first, with their trade names.
     pub fn bores(&self) -> Vec<(&'static str, Length)> {
         match self {
-            Pipe::Series(s) => s.sizes.iter().map(|z| (z.nominal, z.bore())).collect(),
+            Pipe::Series(s) => s.sizes.iter().map(|z| (z.nominal, s.bore(z))).collect(),
             Pipe::Custom(d) => vec![("custom bore", *d)],
+        }
+    }
+
+    /// The diameter, in inches, that Darby's 3-K method takes for the size
+    /// with this bore: its nominal diameter (see
+    /// [`Series::darby_diameter_in`]); the bore itself for a custom bore.
+    pub fn darby_diameter_in(&self, bore: Length) -> f64 {
+        match self {
+            Pipe::Series(s) => s
+                .sizes
+                .iter()
+                .find(|z| s.bore(z) == bore)
+                .map(|z| s.darby_diameter_in(z))
+                .unwrap_or_else(|| bore.get::<uom::si::length::inch>()),
+            Pipe::Custom(d) => d.get::<uom::si::length::inch>(),
+        }
+    }
+
+    /// Whether a size is rarely stocked (never for a custom bore).
+    pub fn is_rare(&self, nominal: &str) -> bool {
+        matches!(self, Pipe::Series(s) if s.is_rare(nominal))
+    }
+}
+
+/// Whether the fluid returns to where it started (a closed loop: chilled
+/// or heating water) or leaves the system (an open system: domestic water,
+/// a drain, a line to a tank). In a closed loop the pressure a riser's
+/// rise takes is given back by the down-leg, so it is not pump head:
+/// the line's total drop leaves the static part out and reports it apart
+/// (common practice; e.g. ASHRAE Handbook—Fundamentals, hydronic piping).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, serde::Serialize, serde::Deserialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Circuit {
+    /// Open: the static rise counts in the total drop.
+    #[default]
+    Open,
+    /// Closed loop: the static rise is shown apart, not in the total.
+    Closed,
+}
+
+impl Circuit {
+    /// Both, in listing order.
+    pub const ALL: [Circuit; 2] = [Circuit::Open, Circuit::Closed];
+
+    /// Stable identifier in files.
+    pub fn id(self) -> &'static str {
+        match self {
+            Circuit::Open => "open",
+            Circuit::Closed => "closed",
+        }
+    }
+
+    /// A plain name.
+    pub fn label(self) -> &'static str {
+        match self {
+            Circuit::Open => "Open system (static rise counts)",
+            Circuit::Closed => "Closed loop (static rise returned)",
         }
     }
 }
@@ -66,7 +123,8 @@ impl Pipe {
 pub struct Limits {
     /// Largest friction drop per length of straight pipe.
     pub max_drop_per_length: Option<PressureGradient>,
-    /// Largest total drop over the line (friction, fittings and rise).
+    /// Largest total drop over the line (friction and fittings, and the
+    /// rise in an open system).
     pub max_total_drop: Option<Pressure>,
     /// Largest mean velocity.
     pub max_velocity: Option<Velocity>,
@@ -136,6 +194,17 @@ pub enum LineError {
     /// The numbers could not be computed for these inputs (an overflow);
     /// reported rather than shown as NaN.
     NotComputable,
+    /// No maximum limit: a minimum velocity alone (or nothing) cannot pick
+    /// a size, since every larger size would do.
+    NoMaximum,
+    /// A glycol mixture too close to (or below) its freezing point for the
+    /// sheet's margin.
+    FreezeMargin {
+        /// The mixture's freezing point, °C.
+        freezing_c: f64,
+        /// The margin the sheet asks for, K.
+        margin_k: f64,
+    },
 }
 
 impl std::fmt::Display for LineError {
@@ -150,6 +219,18 @@ impl std::fmt::Display for LineError {
                 write!(f, "{what} must be between {min} and {max} (SI units)")
             }
             LineError::NotComputable => write!(f, "these inputs are beyond what the methods can compute"),
+            LineError::NoMaximum => write!(
+                f,
+                "a minimum velocity alone does not size a line: set a maximum too \
+                 (drop per length, total drop or velocity)"
+            ),
+            LineError::FreezeMargin { freezing_c, margin_k } => write!(
+                f,
+                "this mixture freezes at {:.1} °C; the sheet keeps {margin_k} K clear of that, so the \
+                 temperature must be at least {:.1} °C (or use a stronger mixture)",
+                freezing_c,
+                freezing_c + margin_k
+            ),
         }
     }
 }
@@ -181,6 +262,14 @@ pub struct Line {
     pub method: Method,
     /// Design limits.
     pub limits: Limits,
+    /// Open system or closed loop: whether the rise counts in the total.
+    pub circuit: Circuit,
+    /// How far above a glycol mixture's freezing point the fluid must be, K.
+    pub freeze_margin: f64,
+    /// Search the rarely stocked sizes too (check mode may pin any size).
+    pub every_size: bool,
+    /// The smallest size the search may propose, by its designation.
+    pub smallest: Option<&'static str>,
 }
 
 /// The hydraulic state of a line at one bore and one flow.
@@ -206,9 +295,9 @@ pub struct Point {
     pub friction_drop: Pressure,
     /// ΣK ρ V² / 2.
     pub fittings_drop: Pressure,
-    /// ρ g Δz.
+    /// ρ g Δz (reported in both circuits).
     pub static_drop: Pressure,
-    /// The sum of the three.
+    /// Friction + fittings, + static in an open system.
     pub total_drop: Pressure,
 }
 
@@ -237,6 +326,8 @@ impl LineError {
             LineError::Roughness => Field::Roughness,
             LineError::NoSizes => Field::Pipe,
             LineError::NotComputable => Field::Line,
+            LineError::NoMaximum => Field::Limits,
+            LineError::FreezeMargin { .. } => Field::FluidTemperature,
         }
     }
 }
@@ -342,7 +433,17 @@ impl Line {
                 positive(v, what)?;
             }
         }
+        if l.max_drop_per_length.is_none() && l.max_total_drop.is_none() && l.max_velocity.is_none() {
+            return Err(LineError::NoMaximum);
+        }
+        within(self.freeze_margin, Field::FluidTemperature, "freezing margin (K)", 0.0, 20.0)?;
         let props = self.properties()?;
+        if let Some(freezing_c) = self.fluid.freezing_point_c() {
+            let t = self.temperature.get::<degree_celsius>();
+            if t < freezing_c + self.freeze_margin {
+                return Err(LineError::FreezeMargin { freezing_c, margin_k: self.freeze_margin });
+            }
+        }
         within(props.density_kg_m3(), Field::Fluid, "density (kg/m³)", 1.0, 3e4)?;
         within(props.viscosity_pa_s(), Field::Fluid, "viscosity (Pa·s)", 1e-7, 1e3)?;
         Ok(props)
@@ -376,7 +477,11 @@ impl Line {
         let drop_per_length = pa_per_m(dpl);
         let run = self.length + self.fittings.equivalent_length.unwrap_or(Length::new::<meter>(0.0));
         let friction_drop = drop_per_length * run;
-        let sum_k = self.fittings.sum_k(reynolds.max(1.0), bore);
+        let sum_k = if self.fittings.counts.is_empty() {
+            self.fittings.extra_k
+        } else {
+            self.fittings.sum_k(reynolds.max(1.0), self.pipe.darby_diameter_in(bore))
+        };
         let fittings_drop = losses::minor_loss(sum_k, props.density, velocity);
         let static_drop = losses::static_pressure(self.rise, props.density);
         Point {
@@ -391,7 +496,10 @@ impl Line {
             friction_drop,
             fittings_drop,
             static_drop,
-            total_drop: friction_drop + fittings_drop + static_drop,
+            total_drop: match self.circuit {
+                Circuit::Open => friction_drop + fittings_drop + static_drop,
+                Circuit::Closed => friction_drop + fittings_drop,
+            },
         }
     }
 

@@ -7,15 +7,16 @@
 //!
 //! K = K1/Re + Ki (1 + Kd / Dn^0.3), Dn in inches.
 //!
-//! Darby defines Dn as the nominal diameter; we use the inside diameter in
-//! inches, which is defined for every series we carry (metric ones too).
-//! The 1/Dn^0.3 term makes K insensitive to the choice: 10 % in Dn moves K
-//! by under 1.5 %. Constants typed from memory of Darby's table and checked
+//! Dn is the nominal diameter in inches, as Darby defines it: the NPS, a
+//! copper tube's nominal size, a DN as its NPS (DN50 → 2). Sizes named by
+//! outside diameter (PE, EN 1057 copper) and custom bores have no nominal
+//! inch size; their bore in inches stands in (`pipes::Series::darby_diameter_in`).
+//! The choice matters more than it looks: for a 2 in Sch 40 elbow,
+//! Dn = 2 against the bore 2.067 moves K by about 2 %. Constants typed from memory of Darby's table and checked
 //! one by one against `fluids.fittings.Darby` (fluids 1.3.1) by
 //! tests/reference.rs.
 
 use uom::si::f64::{Length, MassDensity, Pressure, Velocity};
-use uom::si::length::inch;
 
 /// Standard acceleration of free fall, g_n = 9.80665 m/s² (3rd CGPM, 1901;
 /// NIST SP 811 appendix B).
@@ -30,7 +31,9 @@ pub enum Fitting {
     Elbow90ThreadedLong,
     /// Elbow 90°, flanged or welded (r/D = 1).
     Elbow90Welded,
-    /// Elbow 90°, r/D = 2 (long-radius welded).
+    /// Bend 90°, r/D = 2. Not a long-radius butt-weld elbow, which is
+    /// r/D = 1.5: Darby has no r/D 1.5 row for welded elbows, so those take
+    /// the r/D 1 row (the larger K).
     Elbow90LongRadius,
     /// Elbow 45°, threaded, standard.
     Elbow45Threaded,
@@ -134,13 +137,15 @@ impl Fitting {
     /// A plain name for display.
     pub fn label(self) -> &'static str {
         match self {
-            Fitting::Elbow90Threaded => "Elbow 90°, threaded",
-            Fitting::Elbow90ThreadedLong => "Elbow 90°, threaded, long radius",
-            Fitting::Elbow90Welded => "Elbow 90°, welded or flanged",
-            Fitting::Elbow90LongRadius => "Elbow 90°, long radius (r/D 2)",
-            Fitting::Elbow45Threaded => "Elbow 45°, threaded",
-            Fitting::Elbow45LongRadius => "Elbow 45°, long radius",
-            Fitting::Return180Flanged => "Return bend 180°, flanged",
+            Fitting::Elbow90Threaded => "Elbow 90°, threaded, standard (r/D 1)",
+            Fitting::Elbow90ThreadedLong => "Elbow 90°, threaded, long radius (r/D 1.5)",
+            Fitting::Elbow90Welded => {
+                "Elbow 90°, welded or flanged, r/D 1 (also for r/D 1.5 long-radius: conservative)"
+            }
+            Fitting::Elbow90LongRadius => "Bend 90°, welded or flanged, r/D 2",
+            Fitting::Elbow45Threaded => "Elbow 45°, threaded, standard (r/D 1)",
+            Fitting::Elbow45LongRadius => "Elbow 45°, long radius (r/D 1.5)",
+            Fitting::Return180Flanged => "Return bend 180°, flanged (r/D 1)",
             Fitting::TeeBranchThreaded => "Tee through branch, threaded",
             Fitting::TeeBranchFlanged => "Tee through branch, flanged",
             Fitting::TeeRunThreaded => "Tee straight run, threaded",
@@ -191,10 +196,10 @@ impl Fitting {
         }
     }
 
-    /// K at a Reynolds number in a bore.
-    pub fn k(self, re: f64, bore: Length) -> f64 {
+    /// K at a Reynolds number for a pipe of nominal diameter `dn_in` inches.
+    pub fn k(self, re: f64, dn_in: f64) -> f64 {
         match self.method().0 {
-            KMethod::ThreeK(k1, ki, kd) => k1 / re + ki * (1.0 + kd / bore.get::<inch>().powf(0.3)),
+            KMethod::ThreeK(k1, ki, kd) => k1 / re + ki * (1.0 + kd / dn_in.powf(0.3)),
             KMethod::Constant(k) => k,
         }
     }
@@ -213,9 +218,10 @@ pub struct Fittings {
 }
 
 impl Fittings {
-    /// ΣK of the counted fittings plus the extra K.
-    pub fn sum_k(&self, re: f64, bore: Length) -> f64 {
-        self.extra_k + self.counts.iter().map(|&(f, n)| f.k(re, bore) * n as f64).sum::<f64>()
+    /// ΣK of the counted fittings plus the extra K, in a pipe of nominal
+    /// diameter `dn_in` inches.
+    pub fn sum_k(&self, re: f64, dn_in: f64) -> f64 {
+        self.extra_k + self.counts.iter().map(|&(f, n)| f.k(re, dn_in) * n as f64).sum::<f64>()
     }
 }
 
@@ -235,7 +241,7 @@ pub fn static_pressure(rise: Length, density: MassDensity) -> Pressure {
 #[cfg(test)]
 mod tests {
     use super::*;
-    use uom::si::length::{meter, millimeter};
+    use uom::si::length::meter;
     use uom::si::mass_density::kilogram_per_cubic_meter;
     use uom::si::pressure::pascal;
 
@@ -255,9 +261,9 @@ mod tests {
 
     #[test]
     fn three_k_by_hand() {
-        // Darby (2001): 90° threaded elbow in a 2.067 in bore at Re = 1e5:
-        // 2.067^0.3 = 1.24339, so K = 800/1e5 + 0.14 (1 + 4.0/1.24339) = 0.008 + 0.14 · 4.21700 = 0.59838.
-        let k = Fitting::Elbow90Threaded.k(1e5, Length::new::<millimeter>(2.067 * 25.4));
-        assert!((k - 0.59838).abs() < 1e-5, "{k}");
+        // Darby (2001): 90° threaded elbow, Dn = 2 in, at Re = 1e5:
+        // 2^0.3 = 1.231144, so K = 800/1e5 + 0.14 (1 + 4.0/1.231144) = 0.008 + 0.14 · 4.249014 = 0.602862.
+        let k = Fitting::Elbow90Threaded.k(1e5, 2.0);
+        assert!((k - 0.602862).abs() < 1e-5, "{k}");
     }
 }

@@ -29,9 +29,87 @@ pub struct Size {
 }
 
 impl Size {
-    /// Inside diameter, D = OD − 2t.
+    /// Inside diameter on the tabulated wall, D = OD − 2t. For plastics the
+    /// table holds the minimum wall: use [`Series::bore`], which adds half
+    /// the wall tolerance.
     pub fn bore(&self) -> Length {
         Length::new::<millimeter>(self.od_mm - 2.0 * self.wall_mm)
+    }
+}
+
+/// What the tabulated wall is, and so how the bore is found.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Wall {
+    /// The nominal wall (steel and copper tables): D = OD − 2t.
+    Nominal,
+    /// ASTM D1785's minimum wall, whose tolerance is +12 % of the minimum
+    /// and never less than +0.020 in (the rule reproduces the standard's
+    /// tolerance column as remembered; from memory).
+    AstmPlasticMinimum,
+    /// ISO 4065 / EN 12201-2 minimum wall e, whose tolerance is ISO 11922-1
+    /// grade V: 0.1 e + 0.1 mm, rounded up to the next 0.1 mm.
+    IsoGradeVMinimum,
+}
+
+impl Wall {
+    /// The wall to take the bore on: the mean of the tolerance band (the
+    /// minimum plus half the tolerance) for plastics, mm.
+    pub fn mean_mm(self, tabulated_mm: f64) -> f64 {
+        match self {
+            Wall::Nominal => tabulated_mm,
+            Wall::AstmPlasticMinimum => {
+                let t_in = tabulated_mm / 25.4;
+                let tol_in = ((0.12 * t_in).max(0.020) * 1000.0).round() / 1000.0;
+                tabulated_mm + 0.5 * tol_in * 25.4
+            }
+            Wall::IsoGradeVMinimum => {
+                // Rounded up in tenths; the small offset keeps an exact
+                // tenth (2.0 → 0.3) from rounding up by float error.
+                let tol = ((0.1 * tabulated_mm + 0.1) * 10.0 - 1e-9).ceil() / 10.0;
+                tabulated_mm + 0.5 * tol
+            }
+        }
+    }
+}
+
+/// How a series names its sizes.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Naming {
+    /// Nominal pipe size in inches ("2", "1-1/2").
+    Nps,
+    /// Copper water tube nominal size in inches (OD = nominal + 1/8 in).
+    CopperTube,
+    /// DN number ("DN50").
+    Dn,
+    /// Outside diameter in millimetres ("110"; "22").
+    OutsideMm,
+}
+
+/// Parses "1-1/2", "3/4" or "12" as inches.
+fn inches(nominal: &str) -> Option<f64> {
+    let frac = |t: &str| {
+        let (a, b) = t.split_once('/')?;
+        Some(a.parse::<f64>().ok()? / b.parse::<f64>().ok()?)
+    };
+    match nominal.split_once('-') {
+        Some((whole, f)) => Some(whole.parse::<f64>().ok()? + frac(f)?),
+        None if nominal.contains('/') => frac(nominal),
+        None => nominal.parse().ok(),
+    }
+}
+
+/// The NPS a DN corresponds to (ISO 6708 / ASME B36.10M's DN column).
+fn dn_as_nps(dn: f64) -> f64 {
+    match dn as u32 {
+        6 => 0.125,
+        8 => 0.25,
+        10 => 0.375,
+        15 => 0.5,
+        20 => 0.75,
+        25 => 1.0,
+        32 => 1.25,
+        40 => 1.5,
+        _ => dn / 25.0,
     }
 }
 
@@ -153,12 +231,54 @@ pub struct Series {
     pub material: Material,
     /// Sizes, smallest bore first.
     pub sizes: &'static [Size],
+    /// What the tabulated wall is.
+    pub wall: Wall,
+    /// How sizes are named.
+    pub naming: Naming,
+    /// Sizes rarely stocked, left out of the search unless the sheet asks
+    /// for every size (common practice; the choice of sizes is ours).
+    pub rare: &'static [&'static str],
 }
 
 impl Series {
     /// Finds a size by its nominal designation.
     pub fn size(&self, nominal: &str) -> Option<&'static Size> {
         self.sizes.iter().find(|s| s.nominal == nominal)
+    }
+
+    /// Inside diameter of one size: OD − 2 × the mean wall.
+    pub fn bore(&self, z: &Size) -> Length {
+        Length::new::<millimeter>(z.od_mm - 2.0 * self.wall.mean_mm(z.wall_mm))
+    }
+
+    /// Whether a size is rarely stocked.
+    pub fn is_rare(&self, nominal: &str) -> bool {
+        self.rare.contains(&nominal)
+    }
+
+    /// A size as people write it: "NPS 2", "3/4 in", "DN50", "110 mm".
+    pub fn designation(&self, nominal: &str) -> String {
+        match self.naming {
+            Naming::Nps => format!("NPS {nominal}"),
+            Naming::CopperTube => format!("{nominal} in"),
+            Naming::Dn => nominal.to_owned(),
+            Naming::OutsideMm => format!("{nominal} mm"),
+        }
+    }
+
+    /// The diameter Darby's 3-K method takes, in inches: the nominal
+    /// diameter (NPS, or the copper tube's nominal size; a DN as its NPS).
+    /// Sizes named by outside diameter have no nominal inch size, so the
+    /// bore in inches stands in for it.
+    pub fn darby_diameter_in(&self, z: &Size) -> f64 {
+        let bore_in = || self.bore(z).get::<uom::si::length::inch>();
+        match self.naming {
+            Naming::Nps | Naming::CopperTube => inches(z.nominal).unwrap_or_else(bore_in),
+            Naming::Dn => {
+                z.nominal.trim_start_matches("DN").parse::<f64>().map(dn_as_nps).unwrap_or_else(|_| bore_in())
+            }
+            Naming::OutsideMm => bore_in(),
+        }
     }
 }
 
@@ -176,6 +296,9 @@ macro_rules! mm_sizes {
 
 const B36_10M: &str = "ASME B36.10M, Welded and Seamless Wrought Steel Pipe";
 const B36_19M: &str = "ASME B36.19M, Stainless Steel Pipe";
+/// Steel sizes rarely stocked (common practice; our choice): the smallest
+/// three, 3-1/2 and 5, and the in-between large sizes.
+const RARE_STEEL: &[&str] = &["1/8", "1/4", "3/8", "3-1/2", "5", "22", "26", "28", "34", "38", "44", "46"];
 const B88: &str = "ASTM B88, Seamless Copper Water Tube (OD = nominal + 1/8 in)";
 const D1785: &str = "ASTM D1785, PVC Plastic Pipe, Schedules 40, 80 and 120";
 
@@ -193,7 +316,11 @@ pub const SERIES: &[Series] = &[
             "4": 4.500, 0.237; "5": 5.563, 0.258; "6": 6.625, 0.280; "8": 8.625, 0.322;
             "10": 10.750, 0.365; "12": 12.750, 0.406; "14": 14.000, 0.438; "16": 16.000, 0.500;
             "18": 18.000, 0.562; "20": 20.000, 0.594; "24": 24.000, 0.688;
+            "32": 32.000, 0.688; "34": 34.000, 0.688; "36": 36.000, 0.750;
         },
+        wall: Wall::Nominal,
+        naming: Naming::Nps,
+        rare: RARE_STEEL,
     },
     Series {
         id: "steel-sch80",
@@ -206,8 +333,11 @@ pub const SERIES: &[Series] = &[
             "2": 2.375, 0.218; "2-1/2": 2.875, 0.276; "3": 3.500, 0.300; "3-1/2": 4.000, 0.318;
             "4": 4.500, 0.337; "5": 5.563, 0.375; "6": 6.625, 0.432; "8": 8.625, 0.500;
             "10": 10.750, 0.594; "12": 12.750, 0.688; "14": 14.000, 0.750; "16": 16.000, 0.844;
-            "18": 18.000, 0.938; "20": 20.000, 1.031; "24": 24.000, 1.219;
+            "18": 18.000, 0.938; "20": 20.000, 1.031; "22": 22.000, 1.125; "24": 24.000, 1.219;
         },
+        wall: Wall::Nominal,
+        naming: Naming::Nps,
+        rare: RARE_STEEL,
     },
     Series {
         id: "steel-std",
@@ -220,8 +350,12 @@ pub const SERIES: &[Series] = &[
             "2": 2.375, 0.154; "2-1/2": 2.875, 0.203; "3": 3.500, 0.216; "3-1/2": 4.000, 0.226;
             "4": 4.500, 0.237; "5": 5.563, 0.258; "6": 6.625, 0.280; "8": 8.625, 0.322;
             "10": 10.750, 0.365; "12": 12.750, 0.375; "14": 14.000, 0.375; "16": 16.000, 0.375;
-            "18": 18.000, 0.375; "20": 20.000, 0.375; "24": 24.000, 0.375;
+            "18": 18.000, 0.375; "20": 20.000, 0.375; "22": 22.000, 0.375; "24": 24.000, 0.375;
+            "26": 26.000, 0.375; "28": 28.000, 0.375; "30": 30.000, 0.375; "32": 32.000, 0.375; "34": 34.000, 0.375; "36": 36.000, 0.375; "38": 38.000, 0.375; "40": 40.000, 0.375; "42": 42.000, 0.375; "44": 44.000, 0.375; "46": 46.000, 0.375; "48": 48.000, 0.375;
         },
+        wall: Wall::Nominal,
+        naming: Naming::Nps,
+        rare: RARE_STEEL,
     },
     Series {
         id: "steel-xs",
@@ -234,8 +368,41 @@ pub const SERIES: &[Series] = &[
             "2": 2.375, 0.218; "2-1/2": 2.875, 0.276; "3": 3.500, 0.300; "3-1/2": 4.000, 0.318;
             "4": 4.500, 0.337; "5": 5.563, 0.375; "6": 6.625, 0.432; "8": 8.625, 0.500;
             "10": 10.750, 0.500; "12": 12.750, 0.500; "14": 14.000, 0.500; "16": 16.000, 0.500;
-            "18": 18.000, 0.500; "20": 20.000, 0.500; "24": 24.000, 0.500;
+            "18": 18.000, 0.500; "20": 20.000, 0.500; "22": 22.000, 0.500; "24": 24.000, 0.500;
+            "26": 26.000, 0.500; "28": 28.000, 0.500; "30": 30.000, 0.500; "32": 32.000, 0.500; "34": 34.000, 0.500; "36": 36.000, 0.500; "38": 38.000, 0.500; "40": 40.000, 0.500; "42": 42.000, 0.500; "44": 44.000, 0.500; "46": 46.000, 0.500; "48": 48.000, 0.500;
         },
+        wall: Wall::Nominal,
+        naming: Naming::Nps,
+        rare: RARE_STEEL,
+    },
+    Series {
+        id: "steel-sch10",
+        label: "Carbon steel, Sch 10 (NPS 14–36)",
+        standard: B36_10M,
+        material: Material::CarbonSteel,
+        sizes: inch_sizes! {
+            "14": 14.000, 0.250; "16": 16.000, 0.250; "18": 18.000, 0.250; "20": 20.000, 0.250;
+            "22": 22.000, 0.250; "24": 24.000, 0.250; "26": 26.000, 0.312; "28": 28.000, 0.312;
+            "30": 30.000, 0.312; "32": 32.000, 0.312; "34": 34.000, 0.312; "36": 36.000, 0.312;
+        },
+        wall: Wall::Nominal,
+        naming: Naming::Nps,
+        rare: RARE_STEEL,
+    },
+    Series {
+        id: "steel-sch20",
+        label: "Carbon steel, Sch 20 (NPS 8–36)",
+        standard: B36_10M,
+        material: Material::CarbonSteel,
+        sizes: inch_sizes! {
+            "8": 8.625, 0.250; "10": 10.750, 0.250; "12": 12.750, 0.250; "14": 14.000, 0.312;
+            "16": 16.000, 0.312; "18": 18.000, 0.312; "20": 20.000, 0.375; "22": 22.000, 0.375;
+            "24": 24.000, 0.375; "26": 26.000, 0.500; "28": 28.000, 0.500; "30": 30.000, 0.500;
+            "32": 32.000, 0.500; "34": 34.000, 0.500; "36": 36.000, 0.500;
+        },
+        wall: Wall::Nominal,
+        naming: Naming::Nps,
+        rare: RARE_STEEL,
     },
     Series {
         id: "stainless-5s",
@@ -247,8 +414,12 @@ pub const SERIES: &[Series] = &[
             "1-1/2": 1.900, 0.065; "2": 2.375, 0.065; "2-1/2": 2.875, 0.083; "3": 3.500, 0.083;
             "3-1/2": 4.000, 0.083; "4": 4.500, 0.083; "5": 5.563, 0.109; "6": 6.625, 0.109;
             "8": 8.625, 0.109; "10": 10.750, 0.134; "12": 12.750, 0.156; "14": 14.000, 0.156;
-            "16": 16.000, 0.165; "18": 18.000, 0.165; "20": 20.000, 0.188; "24": 24.000, 0.218;
+            "16": 16.000, 0.165; "18": 18.000, 0.165; "20": 20.000, 0.188; "22": 22.000, 0.188; "24": 24.000, 0.218;
+            "30": 30.000, 0.250;
         },
+        wall: Wall::Nominal,
+        naming: Naming::Nps,
+        rare: RARE_STEEL,
     },
     Series {
         id: "stainless-10s",
@@ -261,8 +432,12 @@ pub const SERIES: &[Series] = &[
             "2": 2.375, 0.109; "2-1/2": 2.875, 0.120; "3": 3.500, 0.120; "3-1/2": 4.000, 0.120;
             "4": 4.500, 0.120; "5": 5.563, 0.134; "6": 6.625, 0.134; "8": 8.625, 0.148;
             "10": 10.750, 0.165; "12": 12.750, 0.180; "14": 14.000, 0.188; "16": 16.000, 0.188;
-            "18": 18.000, 0.188; "20": 20.000, 0.218; "24": 24.000, 0.250;
+            "18": 18.000, 0.188; "20": 20.000, 0.218; "22": 22.000, 0.218; "24": 24.000, 0.250;
+            "30": 30.000, 0.312;
         },
+        wall: Wall::Nominal,
+        naming: Naming::Nps,
+        rare: RARE_STEEL,
     },
     Series {
         id: "stainless-40s",
@@ -274,8 +449,12 @@ pub const SERIES: &[Series] = &[
             "3/4": 1.050, 0.113; "1": 1.315, 0.133; "1-1/4": 1.660, 0.140; "1-1/2": 1.900, 0.145;
             "2": 2.375, 0.154; "2-1/2": 2.875, 0.203; "3": 3.500, 0.216; "3-1/2": 4.000, 0.226;
             "4": 4.500, 0.237; "5": 5.563, 0.258; "6": 6.625, 0.280; "8": 8.625, 0.322;
-            "10": 10.750, 0.365; "12": 12.750, 0.375;
+            "10": 10.750, 0.365; "12": 12.750, 0.375; "14": 14.000, 0.375; "16": 16.000, 0.375;
+            "18": 18.000, 0.375; "20": 20.000, 0.375; "24": 24.000, 0.375;
         },
+        wall: Wall::Nominal,
+        naming: Naming::Nps,
+        rare: RARE_STEEL,
     },
     Series {
         id: "stainless-80s",
@@ -287,8 +466,12 @@ pub const SERIES: &[Series] = &[
             "3/4": 1.050, 0.154; "1": 1.315, 0.179; "1-1/4": 1.660, 0.191; "1-1/2": 1.900, 0.200;
             "2": 2.375, 0.218; "2-1/2": 2.875, 0.276; "3": 3.500, 0.300; "3-1/2": 4.000, 0.318;
             "4": 4.500, 0.337; "5": 5.563, 0.375; "6": 6.625, 0.432; "8": 8.625, 0.500;
-            "10": 10.750, 0.500; "12": 12.750, 0.500;
+            "10": 10.750, 0.500; "12": 12.750, 0.500; "14": 14.000, 0.500; "16": 16.000, 0.500;
+            "18": 18.000, 0.500; "20": 20.000, 0.500; "24": 24.000, 0.500;
         },
+        wall: Wall::Nominal,
+        naming: Naming::Nps,
+        rare: RARE_STEEL,
     },
     Series {
         id: "copper-k",
@@ -302,6 +485,9 @@ pub const SERIES: &[Series] = &[
             "4": 4.125, 0.134; "5": 5.125, 0.160; "6": 6.125, 0.192; "8": 8.125, 0.271;
             "10": 10.125, 0.338; "12": 12.125, 0.405;
         },
+        wall: Wall::Nominal,
+        naming: Naming::CopperTube,
+        rare: &["1/4", "5/8", "3-1/2", "5"],
     },
     Series {
         id: "copper-l",
@@ -315,6 +501,9 @@ pub const SERIES: &[Series] = &[
             "4": 4.125, 0.110; "5": 5.125, 0.125; "6": 6.125, 0.140; "8": 8.125, 0.200;
             "10": 10.125, 0.250; "12": 12.125, 0.280;
         },
+        wall: Wall::Nominal,
+        naming: Naming::CopperTube,
+        rare: &["1/4", "5/8", "3-1/2", "5"],
     },
     Series {
         id: "copper-m",
@@ -327,6 +516,9 @@ pub const SERIES: &[Series] = &[
             "3": 3.125, 0.072; "3-1/2": 3.625, 0.083; "4": 4.125, 0.095; "5": 5.125, 0.109;
             "6": 6.125, 0.122; "8": 8.125, 0.170; "10": 10.125, 0.212; "12": 12.125, 0.254;
         },
+        wall: Wall::Nominal,
+        naming: Naming::CopperTube,
+        rare: &["3-1/2", "5"],
     },
     Series {
         id: "pvc-sch40",
@@ -340,6 +532,9 @@ pub const SERIES: &[Series] = &[
             "4": 4.500, 0.237; "6": 6.625, 0.280; "8": 8.625, 0.322; "10": 10.750, 0.365;
             "12": 12.750, 0.406;
         },
+        wall: Wall::AstmPlasticMinimum,
+        naming: Naming::Nps,
+        rare: &[],
     },
     Series {
         id: "pvc-sch80",
@@ -355,6 +550,9 @@ pub const SERIES: &[Series] = &[
             "4": 4.500, 0.337; "6": 6.625, 0.432; "8": 8.625, 0.500; "10": 10.750, 0.593;
             "12": 12.750, 0.687;
         },
+        wall: Wall::AstmPlasticMinimum,
+        naming: Naming::Nps,
+        rare: &[],
     },
     Series {
         id: "en10255-medium",
@@ -367,11 +565,45 @@ pub const SERIES: &[Series] = &[
             "DN65": 76.1, 3.6; "DN80": 88.9, 4.0; "DN100": 114.3, 4.5; "DN125": 139.7, 5.0;
             "DN150": 165.1, 5.0;
         },
+        wall: Wall::Nominal,
+        naming: Naming::Dn,
+        rare: &["DN8"],
+    },
+    Series {
+        id: "en10255-heavy",
+        label: "Steel tube, EN 10255 heavy",
+        standard: "EN 10255, Non-alloy steel tubes suitable for welding and threading, heavy series (H)",
+        material: Material::CarbonSteel,
+        sizes: mm_sizes! {
+            "DN8": 13.5, 2.9; "DN10": 17.2, 2.9; "DN15": 21.3, 3.2; "DN20": 26.9, 3.2;
+            "DN25": 33.7, 4.0; "DN32": 42.4, 4.0; "DN40": 48.3, 4.0; "DN50": 60.3, 4.5;
+            "DN65": 76.1, 4.5; "DN80": 88.9, 5.0; "DN100": 114.3, 5.4; "DN125": 139.7, 5.4;
+            "DN150": 165.1, 5.4;
+        },
+        wall: Wall::Nominal,
+        naming: Naming::Dn,
+        rare: &["DN8"],
+    },
+    Series {
+        id: "copper-en1057",
+        label: "Copper tube, EN 1057 R250 (common walls)",
+        standard: "EN 1057, Copper and copper alloys — Seamless, round copper tubes for water and gas in \
+                   sanitary and heating applications; the walls in common use in the UK for half-hard R250 \
+                   tube (BS EN 1057 'Table X'; from memory)",
+        material: Material::Copper,
+        sizes: mm_sizes! {
+            "15": 15.0, 0.7; "22": 22.0, 0.9; "28": 28.0, 0.9; "35": 35.0, 1.2; "42": 42.0, 1.2;
+            "54": 54.0, 1.2; "66.7": 66.7, 1.2; "76.1": 76.1, 1.5; "108": 108.0, 1.5; "133": 133.0, 1.5;
+            "159": 159.0, 2.0;
+        },
+        wall: Wall::Nominal,
+        naming: Naming::OutsideMm,
+        rare: &["66.7", "133"],
     },
     Series {
         id: "pe100-sdr11",
         label: "PE100, SDR 11",
-        standard: "ISO 4065 / EN 12201-2 polyethylene pressure pipe, SDR 11 (outside diameter dn, wall ≈ dn/11)",
+        standard: "ISO 4065 / EN 12201-2 polyethylene pressure pipe, SDR 11 (outside diameter dn, minimum wall ≈ dn/11; from memory, 560 mm from the dn/SDR rule)",
         material: Material::Polyethylene,
         sizes: mm_sizes! {
             "20": 20.0, 2.0; "25": 25.0, 2.3; "32": 32.0, 2.9; "40": 40.0, 3.7; "50": 50.0, 4.6;
@@ -379,7 +611,28 @@ pub const SERIES: &[Series] = &[
             "140": 140.0, 12.7; "160": 160.0, 14.6; "180": 180.0, 16.4; "200": 200.0, 18.2;
             "225": 225.0, 20.5; "250": 250.0, 22.7; "280": 280.0, 25.4; "315": 315.0, 28.6;
             "355": 355.0, 32.2; "400": 400.0, 36.3; "450": 450.0, 40.9; "500": 500.0, 45.4;
+            "560": 560.0, 50.9; "630": 630.0, 57.2;
         },
+        wall: Wall::IsoGradeVMinimum,
+        naming: Naming::OutsideMm,
+        rare: &[],
+    },
+    Series {
+        id: "pe100-sdr17",
+        label: "PE100, SDR 17",
+        standard: "ISO 4065 / EN 12201-2 polyethylene pressure pipe, SDR 17 (minimum walls from memory of \
+                   EN 12201-2; close to dn/17)",
+        material: Material::Polyethylene,
+        sizes: mm_sizes! {
+            "32": 32.0, 2.0; "40": 40.0, 2.4; "50": 50.0, 3.0; "63": 63.0, 3.8; "75": 75.0, 4.5;
+            "90": 90.0, 5.4; "110": 110.0, 6.6; "125": 125.0, 7.4; "140": 140.0, 8.3; "160": 160.0, 9.5;
+            "180": 180.0, 10.7; "200": 200.0, 11.9; "225": 225.0, 13.4; "250": 250.0, 14.8; "280": 280.0, 16.6;
+            "315": 315.0, 18.7; "355": 355.0, 21.1; "400": 400.0, 23.7; "450": 450.0, 26.7; "500": 500.0, 29.7;
+            "560": 560.0, 33.2; "630": 630.0, 37.4;
+        },
+        wall: Wall::IsoGradeVMinimum,
+        naming: Naming::OutsideMm,
+        rare: &[],
     },
 ];
 
@@ -412,7 +665,7 @@ mod tests {
     #[test]
     fn copper_tube_od_is_nominal_plus_an_eighth() {
         // ASTM B88's defining rule for water tube sizes.
-        for s in SERIES.iter().filter(|s| s.material == Material::Copper) {
+        for s in SERIES.iter().filter(|s| s.naming == Naming::CopperTube) {
             for z in s.sizes {
                 let nominal_in: f64 = match z.nominal.split_once('-') {
                     Some((whole, frac)) => whole.parse::<f64>().unwrap() + fraction(frac),
@@ -442,12 +695,76 @@ mod tests {
 
     #[test]
     fn pe_walls_follow_the_sdr_rule() {
-        // ISO 4065: e ≈ dn / SDR; the tabulated walls are that value rounded
-        // to a 0.1 mm step (never less than 2.0 mm for SDR 11).
+        // ISO 4065: e ≈ dn / SDR. The SDR 11 walls as remembered are that
+        // value to the nearest 0.1 mm (never under 2.0 mm); the SDR 17 walls
+        // as remembered sit up to 1 % above dn/17. Either way a wall is
+        // never thinner than dn/SDR by more than rounding.
+        for (id, sdr) in [("pe100-sdr11", 11.0), ("pe100-sdr17", 17.0)] {
+            for z in series(id).unwrap().sizes {
+                let e = (z.od_mm / sdr).max(2.0);
+                assert!(z.wall_mm >= e - 0.1 + 1e-9, "{id} {}: {} vs {e:.2}", z.nominal, z.wall_mm);
+                assert!(z.wall_mm <= 1.01 * e + 0.1 + 1e-9, "{id} {}: {} vs {e:.2}", z.nominal, z.wall_mm);
+            }
+        }
+    }
+
+    #[test]
+    fn plastic_bores_are_taken_on_the_mean_wall() {
+        // ASTM D1785: 2 in Sch 40 has a 0.154 in minimum wall with a +0.020 in
+        // tolerance, so the mean wall is 0.164 in and the bore
+        // 2.375 − 2 × 0.164 = 2.047 in (not 2.067 on the minimum wall).
+        let pvc = series("pvc-sch40").unwrap();
+        let b = pvc.bore(pvc.size("2").unwrap()).get::<millimeter>() / 25.4;
+        assert!((b - 2.047).abs() < 1e-9, "{b}");
+        // 6 in Sch 40: 0.280 in minimum, tolerance 12 % = 0.034 in, mean 0.297.
+        let b = pvc.bore(pvc.size("6").unwrap()).get::<millimeter>() / 25.4;
+        assert!((b - (6.625 - 2.0 * 0.297)).abs() < 1e-9, "{b}");
+        // ISO 11922-1 grade V: 110 SDR 11, e = 10.0 mm, tolerance
+        // 0.1 × 10.0 + 0.1 = 1.1 mm, mean wall 10.55 mm, bore 88.9 mm.
         let pe = series("pe100-sdr11").unwrap();
-        for z in pe.sizes {
-            let e = (z.od_mm / 11.0).max(2.0);
-            assert!((z.wall_mm - e).abs() <= 0.1 + 1e-9, "{}: {} vs {e:.2}", z.nominal, z.wall_mm);
+        let b = pe.bore(pe.size("110").unwrap()).get::<millimeter>();
+        assert!((b - 88.9).abs() < 1e-9, "{b}");
+        // 20 SDR 11, e = 2.0 mm: 0.3 mm tolerance (exact tenth, not rounded up again).
+        let b = pe.bore(pe.size("20").unwrap()).get::<millimeter>();
+        assert!((b - (20.0 - 2.0 * 2.15)).abs() < 1e-9, "{b}");
+        // Steel keeps its nominal wall.
+        let st = series("steel-sch40").unwrap();
+        assert_eq!(st.bore(st.size("2").unwrap()), st.size("2").unwrap().bore());
+    }
+
+    #[test]
+    fn darby_takes_the_nominal_diameter() {
+        // Darby (2001) correlates K with the nominal diameter in inches.
+        let st = series("steel-sch40").unwrap();
+        assert_eq!(st.darby_diameter_in(st.size("1-1/2").unwrap()), 1.5);
+        assert_eq!(st.darby_diameter_in(st.size("24").unwrap()), 24.0);
+        let en = series("en10255-medium").unwrap();
+        assert_eq!(en.darby_diameter_in(en.size("DN50").unwrap()), 2.0);
+        assert_eq!(en.darby_diameter_in(en.size("DN15").unwrap()), 0.5);
+        let cu = series("copper-l").unwrap();
+        assert_eq!(cu.darby_diameter_in(cu.size("3/4").unwrap()), 0.75);
+        // Named by outside diameter: the bore in inches stands in.
+        let pe = series("pe100-sdr11").unwrap();
+        let z = pe.size("110").unwrap();
+        assert!((pe.darby_diameter_in(z) - 88.9 / 25.4).abs() < 1e-12);
+    }
+
+    #[test]
+    fn sizes_read_with_their_designation() {
+        assert_eq!(series("steel-sch40").unwrap().designation("5"), "NPS 5");
+        assert_eq!(series("copper-l").unwrap().designation("3/4"), "3/4 in");
+        assert_eq!(series("en10255-medium").unwrap().designation("DN50"), "DN50");
+        assert_eq!(series("pe100-sdr17").unwrap().designation("110"), "110 mm");
+    }
+
+    #[test]
+    fn every_rare_size_is_a_size_of_its_series() {
+        for s in SERIES {
+            for r in s.rare.iter().filter(|r| s.size(r).is_some()) {
+                assert!(s.is_rare(r));
+            }
+            // The common sizes are never all rare.
+            assert!(s.sizes.iter().any(|z| !s.is_rare(z.nominal)), "{}", s.id);
         }
     }
 }

@@ -43,6 +43,28 @@ pub struct Candidate {
     pub checks: Vec<Check>,
     /// The limit closest to failing (when all are met) or furthest broken.
     pub binding: Option<Limit>,
+    /// Why the search passes over this size, if it does (it is still
+    /// evaluated and shown, and check mode can pin it).
+    pub skipped: Option<Skip>,
+}
+
+/// Why the search passes over a size.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Skip {
+    /// Rarely stocked, and the sheet searches preferred sizes only.
+    Rare,
+    /// Below the line's smallest allowed size.
+    BelowSmallest,
+}
+
+impl Skip {
+    /// In words.
+    pub fn reason(self) -> &'static str {
+        match self {
+            Skip::Rare => "rarely stocked (left out of the search)",
+            Skip::BelowSmallest => "below the line's smallest size",
+        }
+    }
 }
 
 impl Candidate {
@@ -55,6 +77,56 @@ impl Candidate {
     pub fn uncertain(&self) -> bool {
         self.point.regime == Regime::Transition
     }
+
+    /// The limit it fails worst, with how far.
+    pub fn worst_failure(&self) -> Option<&Check> {
+        self.checks.iter().filter(|k| !k.met()).min_by(|a, b| a.headroom.total_cmp(&b.headroom))
+    }
+}
+
+/// What the next size down fails: why the proposal is not smaller.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Shortfall {
+    /// Index of that size in the candidates.
+    pub index: usize,
+    /// The limit it fails worst.
+    pub check: Check,
+}
+
+/// The verdict on a line, in the words every output uses.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Verdict {
+    /// A size meets every limit.
+    Proposed {
+        /// Index of the proposed size.
+        index: usize,
+        /// What the next size searched below it fails; `None` when it is
+        /// the smallest size searched.
+        below: Option<Shortfall>,
+    },
+    /// Smaller sizes fail a maximum and larger ones the minimum velocity:
+    /// no size meets both.
+    Conflict {
+        /// The largest size failing a maximum.
+        max_up_to: usize,
+        /// The maxima failed there.
+        max_limits: Vec<Limit>,
+        /// The smallest size failing the minimum velocity.
+        min_from: usize,
+    },
+    /// The static rise alone takes more than the total-drop limit (an open
+    /// system): no size can meet it.
+    RiseExceedsTotal {
+        /// ρ g Δz, Pa.
+        static_drop: f64,
+        /// The limit, Pa.
+        allowed: f64,
+    },
+    /// Even the largest size searched fails these.
+    TooSmall {
+        /// The limits the largest searched size fails.
+        failing: Vec<Limit>,
+    },
 }
 
 /// The answer for one line.
@@ -66,10 +138,12 @@ pub struct Sizing {
     pub candidates: Vec<Candidate>,
     /// Index into `candidates` of the proposed size, if any meets every limit.
     pub proposed: Option<usize>,
-    /// When none does: the limits the largest size still fails.
+    /// When none does: the limits the largest size searched still fails.
     pub failing_at_largest: Vec<Limit>,
-    /// Cautions about the method for this line.
-    pub warnings: Vec<&'static str>,
+    /// The verdict with its reasons.
+    pub verdict: Verdict,
+    /// Cautions about the method and the answer for this line.
+    pub warnings: Vec<String>,
 }
 
 impl Sizing {
@@ -108,7 +182,56 @@ pub fn judge(line: &Line, p: &Point) -> (Vec<Check>, Option<Limit>) {
 fn candidate(line: &Line, props: &Properties, nominal: &'static str, bore: Length) -> Candidate {
     let point = line.point(props, bore, line.flow);
     let (checks, binding) = judge(line, &point);
-    Candidate { nominal, point, checks, binding }
+    Candidate { nominal, point, checks, binding, skipped: None }
+}
+
+/// Marks the sizes the search passes over.
+fn mark_skipped(line: &Line, candidates: &mut [Candidate]) {
+    let floor = line.smallest.and_then(|n| candidates.iter().position(|c| c.nominal == n)).unwrap_or(0);
+    for (i, c) in candidates.iter_mut().enumerate() {
+        c.skipped = if i < floor {
+            Some(Skip::BelowSmallest)
+        } else if !line.every_size && line.pipe.is_rare(c.nominal) {
+            Some(Skip::Rare)
+        } else {
+            None
+        };
+    }
+}
+
+/// The verdict over evaluated candidates (those skipped left out).
+fn verdict(line: &Line, candidates: &[Candidate]) -> Verdict {
+    let searched: Vec<usize> = (0..candidates.len()).filter(|&i| candidates[i].skipped.is_none()).collect();
+    if let Some(pos) = searched.iter().position(|&i| candidates[i].passes()) {
+        let index = searched[pos];
+        let below = pos
+            .checked_sub(1)
+            .map(|p| searched[p])
+            .and_then(|i| candidates[i].worst_failure().map(|k| Shortfall { index: i, check: *k }));
+        return Verdict::Proposed { index, below };
+    }
+    if let (Some(dp), Line { circuit: super::line::Circuit::Open, .. }) = (line.limits.max_total_drop, line) {
+        if let Some(c) = candidates.first() {
+            if c.point.static_drop.value > dp.value {
+                return Verdict::RiseExceedsTotal { static_drop: c.point.static_drop.value, allowed: dp.value };
+            }
+        }
+    }
+    let fails_max = |i: usize| {
+        candidates[i].checks.iter().filter(|k| !k.met() && k.limit != Limit::MinVelocity).map(|k| k.limit).collect()
+    };
+    let fails_min = |i: usize| candidates[i].checks.iter().any(|k| !k.met() && k.limit == Limit::MinVelocity);
+    let max_up_to = searched.iter().rev().copied().find(|&i| !Vec::<Limit>::is_empty(&fails_max(i)));
+    let min_from = searched.iter().copied().find(|&i| fails_min(i));
+    match (max_up_to, min_from) {
+        (Some(hi), Some(lo)) => Verdict::Conflict { max_up_to: hi, max_limits: fails_max(hi), min_from: lo },
+        _ => Verdict::TooSmall {
+            failing: searched
+                .last()
+                .map(|&i| candidates[i].checks.iter().filter(|k| !k.met()).map(|k| k.limit).collect())
+                .unwrap_or_default(),
+        },
+    }
 }
 
 /// How many sizing solves (searches, checks, capacity solves, traces) have
@@ -127,8 +250,9 @@ fn count_solve() {
 pub fn size(line: &Valid) -> Result<Sizing, LineError> {
     count_solve();
     let props = line.properties();
-    let candidates: Vec<Candidate> =
+    let mut candidates: Vec<Candidate> =
         line.pipe.bores().into_iter().map(|(n, d)| candidate(line, &props, n, d)).collect();
+    mark_skipped(line, &mut candidates);
     let finite = candidates.iter().all(|c| {
         let p = &c.point;
         [p.velocity.value, p.reynolds, p.friction_factor, p.drop_per_length.value, p.total_drop.value, p.sum_k]
@@ -139,15 +263,43 @@ pub fn size(line: &Valid) -> Result<Sizing, LineError> {
     if !finite {
         return Err(LineError::NotComputable);
     }
-    let proposed = candidates.iter().position(Candidate::passes);
-    let failing_at_largest = match proposed {
-        Some(_) => Vec::new(),
-        None => candidates
-            .last()
+    let verdict = verdict(line, &candidates);
+    let proposed = match verdict {
+        Verdict::Proposed { index, .. } => Some(index),
+        _ => None,
+    };
+    let failing_at_largest = match &verdict {
+        Verdict::Proposed { .. } => Vec::new(),
+        _ => candidates
+            .iter()
+            .rev()
+            .find(|c| c.skipped.is_none())
             .map(|c| c.checks.iter().filter(|k| !k.met()).map(|k| k.limit).collect())
             .unwrap_or_default(),
     };
-    Ok(Sizing { properties: props, candidates, proposed, failing_at_largest, warnings: line.method_warnings() })
+    let mut warnings: Vec<String> = line.method_warnings().into_iter().map(String::from).collect();
+    if let Some(c) = proposed.map(|i| &candidates[i]) {
+        let p = &c.point;
+        if p.static_drop.value < 0.0
+            && line.circuit == super::line::Circuit::Open
+            && line.limits.max_total_drop.is_some()
+        {
+            warnings.push(format!(
+                "the line falls {:.3} m: the fall gives back {:.0} Pa, which the total drop counts; friction and \
+                 fittings alone take {:.0} Pa",
+                -line.rise.value,
+                -p.static_drop.value,
+                p.friction_drop.value + p.fittings_drop.value
+            ));
+        }
+    }
+    if let Some(freezing_c) = line.fluid.freezing_point_c() {
+        warnings.push(format!(
+            "{:.1} K above the mixture's freezing point ({freezing_c:.1} °C)",
+            line.temperature.get::<uom::si::thermodynamic_temperature::degree_celsius>() - freezing_c
+        ));
+    }
+    Ok(Sizing { properties: props, candidates, proposed, failing_at_largest, verdict, warnings })
 }
 
 /// Check mode: the results at one named size.

@@ -186,6 +186,7 @@ impl LineFile {
     /// a pinned size no longer applies.
     pub fn set_series(&mut self, choice: &str) {
         self.check_size = None;
+        self.smallest_size = None;
         self.pipe = if choice == CUSTOM_BORE {
             let m = self.material().unwrap_or(Material::CarbonSteel);
             PipeFile::Bore { diameter: "50 mm".into(), material: m.id().into() }

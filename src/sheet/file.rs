@@ -12,6 +12,7 @@
 //! The format is documented field by field in `docs/sheet-format.md`; the
 //! text becomes the core's line in `reader`.
 
+use crate::hydraulics::line::Circuit;
 use serde::{Deserialize, Serialize};
 
 use super::units::{self, Dimension, Unit};
@@ -40,8 +41,51 @@ pub struct SheetFile {
     /// Unit system and per-field unit choices.
     #[serde(default)]
     pub units: UnitChoice,
+    /// Sheet-wide design basis (absent: an open system, a 3 K freezing
+    /// margin, preferred sizes only).
+    #[serde(default, skip_serializing_if = "Basis::is_default")]
+    pub basis: Basis,
     /// The lines.
     pub lines: Vec<LineFile>,
+}
+
+/// Sheet-wide design settings, as stored.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize, Default)]
+#[serde(deny_unknown_fields)]
+pub struct Basis {
+    /// Open system or closed loop.
+    #[serde(default, skip_serializing_if = "is_open")]
+    pub circuit: Circuit,
+    /// Kelvin a glycol mixture must stay above its freezing point; absent
+    /// means [`DEFAULT_FREEZE_MARGIN_K`].
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub freeze_margin_k: Option<u8>,
+    /// Search every size, the rarely stocked ones too.
+    #[serde(default, skip_serializing_if = "is_false")]
+    pub every_size: bool,
+}
+
+/// Margin above a glycol mixture's freezing point when the sheet sets
+/// none: 3 K, the low end of the 3–5 K of common practice.
+pub const DEFAULT_FREEZE_MARGIN_K: u8 = 3;
+
+/// Largest freezing margin a sheet may ask for, K.
+pub const MAX_FREEZE_MARGIN_K: u8 = 20;
+
+fn is_open(c: &Circuit) -> bool {
+    *c == Circuit::Open
+}
+
+impl Basis {
+    /// True when nothing differs from the defaults (then it is not written).
+    pub fn is_default(&self) -> bool {
+        *self == Basis::default()
+    }
+
+    /// The margin in force, K.
+    pub fn freeze_margin(&self) -> u8 {
+        self.freeze_margin_k.unwrap_or(DEFAULT_FREEZE_MARGIN_K)
+    }
 }
 
 /// SI or US customary, the base for per-field defaults.
@@ -103,6 +147,8 @@ pub struct Units {
     pub temperature: &'static Unit,
     /// Roughness.
     pub roughness: &'static Unit,
+    /// The sheet's design basis.
+    pub basis: Basis,
 }
 
 impl Units {
@@ -118,6 +164,7 @@ impl Units {
                 velocity: f(Dimension::Velocity, "m/s"),
                 temperature: f(Dimension::Temperature, "°C"),
                 roughness: f(Dimension::Roughness, "mm"),
+                basis: Basis::default(),
             },
             System::Us => Units {
                 flow: f(Dimension::Flow, "US gpm"),
@@ -127,6 +174,7 @@ impl Units {
                 velocity: f(Dimension::Velocity, "ft/s"),
                 temperature: f(Dimension::Temperature, "°F"),
                 roughness: f(Dimension::Roughness, "in"),
+                basis: Basis::default(),
             },
         }
     }
@@ -177,6 +225,7 @@ impl UnitChoice {
         let pick = |slot: &mut &'static Unit, choice: &Option<String>, d: Dimension, field: Field| {
             if let Some(text) = choice {
                 *slot = units::find(d, text)
+                    .filter(|u| u.reference().is_none())
                     .ok_or_else(|| FieldError { field, message: format!("'{text}' is not a unit of {field}") })?;
             }
             Ok::<(), FieldError>(())
@@ -238,6 +287,9 @@ pub struct LineFile {
     /// Check mode: the size to report instead of the proposal.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub check_size: Option<String>,
+    /// The smallest size the search may propose.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub smallest_size: Option<String>,
 }
 
 fn is_false(b: &bool) -> bool {
@@ -550,6 +602,12 @@ impl SheetFile {
     /// # Errors
     /// [`SheetError::Limit`] naming the first limit passed.
     pub fn check_limits(&self) -> Result<(), SheetError> {
+        if self.basis.freeze_margin() > MAX_FREEZE_MARGIN_K {
+            return Err(SheetError::Syntax(format!(
+                "basis.freeze_margin_k must be 0 to {MAX_FREEZE_MARGIN_K} K, not {}",
+                self.basis.freeze_margin()
+            )));
+        }
         if self.lines.len() > MAX_LINES {
             return Err(SheetError::Limit(Limit::Lines(self.lines.len())));
         }
@@ -584,9 +642,12 @@ impl SheetFile {
         serde_json::to_string_pretty(self).unwrap_or_default()
     }
 
-    /// Resolved units (defaults where the file chose none).
+    /// Resolved units (defaults where the file chose none), with the
+    /// sheet's design basis.
     pub fn units(&self) -> Units {
-        self.units.resolve().unwrap_or_else(|_| Units::defaults(self.units.system))
+        let mut u = self.units.resolve().unwrap_or_else(|_| Units::defaults(self.units.system));
+        u.basis = self.basis;
+        u
     }
 }
 
@@ -629,6 +690,7 @@ impl LineFile {
             ("rise", &self.rise),
             ("hazen_williams_c", &self.hazen_williams_c),
             ("check_size", &self.check_size),
+            ("smallest_size", &self.smallest_size),
             ("limits.max_drop_per_length", &self.limits.max_drop_per_length),
             ("limits.max_total_drop", &self.limits.max_total_drop),
             ("limits.max_velocity", &self.limits.max_velocity),

@@ -98,6 +98,7 @@ impl Service {
                 min_velocity: None,
             },
             check_size: None,
+            smallest_size: None,
         }
     }
 }

@@ -58,7 +58,21 @@ impl Reader<'_> {
         unit: &'static Unit,
         rho: Option<f64>,
     ) -> Option<f64> {
-        match units::parse(dim, text, unit).and_then(|m| m.to_si(rho)) {
+        let parsed = units::parse(dim, text, unit);
+        if let Ok(m) = &parsed {
+            if let (Some(kind), false) = (m.unit.reference(), field == Field::FluidPressure) {
+                self.fail(
+                    field,
+                    format!(
+                        "{} is a {kind} pressure; a drop or a limit is a difference of pressures: write it in {}",
+                        m.unit.symbol,
+                        m.unit.symbol.trim_end_matches(['g', 'a'])
+                    ),
+                );
+                return None;
+            }
+        }
+        match parsed.and_then(|m| m.to_si(rho)) {
             Ok(v) => Some(v),
             Err(e) => {
                 self.fail(field, e.to_string());
@@ -266,6 +280,15 @@ impl Reader<'_> {
         }
         if limits == Limits::default() {
             self.fail(Field::Limits, "set at least one limit to size against");
+        } else if limits.max_drop_per_length.is_none()
+            && limits.max_total_drop.is_none()
+            && limits.max_velocity.is_none()
+        {
+            self.fail(
+                Field::MinVelocity,
+                "a minimum velocity alone does not size a line: set a maximum too (drop per length, total drop or \
+                 velocity)",
+            );
         }
         limits
     }
@@ -296,6 +319,18 @@ impl LineFile {
         let rise = r.optional(Field::Rise, &self.rise, Dimension::Length, units.length, None).unwrap_or(0.0);
         let method = r.method(self, material);
         let limits = r.limits(self, rho);
+        let smallest = match (self.smallest_size.as_deref().map(str::trim).filter(|t| !t.is_empty()), pipe) {
+            (None, _) => Some(None),
+            (Some(n), Some(Pipe::Series(s))) => match s.size(n) {
+                Some(z) => Some(Some(z.nominal)),
+                None => {
+                    r.fail(Field::SmallestSize, format!("'{n}' is not a size of this pipe series"));
+                    None
+                }
+            },
+            (Some(_), _) => Some(None),
+        };
+        let basis = units.basis;
         let complete = (|| {
             Some(Line {
                 flow: VolumeRate::new::<cubic_meter_per_second>(flow?),
@@ -313,6 +348,10 @@ impl LineFile {
                 rise: Length::new::<meter>(rise),
                 method: method?,
                 limits,
+                circuit: basis.circuit,
+                freeze_margin: f64::from(basis.freeze_margin()),
+                every_size: basis.every_size,
+                smallest: smallest?,
             })
         })();
         match complete {

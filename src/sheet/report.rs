@@ -7,9 +7,8 @@ use super::file::{FieldError, LineFile, SheetFile, Units};
 use super::units::{format_number, from_si, show, Unit};
 use crate::hydraulics::field::Field;
 use crate::hydraulics::friction::Regime;
-use crate::hydraulics::line::Limit;
-use crate::hydraulics::line::Valid;
-use crate::hydraulics::sizing::{self, Candidate, Capacity, Sizing, Step};
+use crate::hydraulics::line::{Circuit, Limit, Pipe, Valid};
+use crate::hydraulics::sizing::{self, Candidate, Capacity, Sizing, Step, Verdict};
 
 /// Shown on every result, export and printout.
 pub const CAUTION: &str = "Design guidance only. Check every result against the governing \
@@ -32,6 +31,8 @@ pub struct Outcome {
     pub capacity: Option<Capacity>,
     /// The shown size's figures in the sheet's units.
     pub figures: Option<Figures>,
+    /// The verdict in words: what set the size, or why none fits.
+    pub verdict: String,
 }
 
 /// What the open results panel shows beyond the [`Outcome`]: the sizes
@@ -120,7 +121,8 @@ pub fn evaluate_line(number: usize, lf: &LineFile, units: &Units) -> LineReport 
         let rho = sizing.properties.density_kg_m3();
         let capacity = shown.and_then(|i| sizing::capacity(&line, sizing.candidates[i].point.bore).ok());
         let figures = shown.map(|i| Figures::of(&sizing.candidates[i], units, rho));
-        Ok(Outcome { line, sizing, shown, checked, capacity, figures })
+        let verdict = verdict_text(&line, &sizing, units);
+        Ok(Outcome { line, sizing, shown, checked, capacity, figures, verdict })
     });
     LineReport { number, name: lf.name.clone(), outcome }
 }
@@ -140,6 +142,58 @@ fn headroom_pct(c: &Candidate) -> String {
         .and_then(|b| c.checks.iter().find(|k| k.limit == b))
         .map(|k| format!("{:+.0} %", k.headroom * 100.0))
         .unwrap_or_default()
+}
+
+/// A limit's value (SI) in the sheet's unit for that limit.
+pub fn limit_value(limit: Limit, si: f64, u: &Units, rho: f64) -> String {
+    match limit {
+        Limit::DropPerLength => show(si, u.drop_per_length, Some(rho), 3),
+        Limit::TotalDrop => show(si, u.pressure, Some(rho), 3),
+        Limit::MaxVelocity | Limit::MinVelocity => show(si, u.velocity, Some(rho), 3),
+    }
+}
+
+/// A size as people write it ("NPS 2", "DN50", "110 mm").
+pub fn designation(line: &Valid, nominal: &str) -> String {
+    match line.pipe {
+        Pipe::Series(s) => s.designation(nominal),
+        Pipe::Custom(_) => nominal.to_owned(),
+    }
+}
+
+/// The verdict in one sentence: what the next size down fails (why the
+/// answer is not smaller), that the limits conflict, that the rise alone
+/// breaks the total-drop limit, or what even the largest size fails.
+pub fn verdict_text(line: &Valid, s: &Sizing, u: &Units) -> String {
+    let rho = s.properties.density_kg_m3();
+    let name = |i: usize| designation(line, s.candidates[i].nominal);
+    let names = |ls: &[Limit]| ls.iter().map(|l| l.name()).collect::<Vec<_>>().join(", ");
+    match &s.verdict {
+        Verdict::Proposed { below: Some(b), .. } => format!(
+            "governed by {}: {} runs at {} (limit {})",
+            b.check.limit.name(),
+            name(b.index),
+            limit_value(b.check.limit, b.check.value, u, rho),
+            limit_value(b.check.limit, b.check.allowed, u, rho)
+        ),
+        Verdict::Proposed { index, below: None } => {
+            format!("{} is the smallest size searched, and it meets every limit", name(*index))
+        }
+        Verdict::Conflict { max_up_to, max_limits, min_from } => format!(
+            "the limits conflict: up to {} fail {}; from {} fail minimum velocity",
+            name(*max_up_to),
+            names(max_limits),
+            name(*min_from)
+        ),
+        Verdict::RiseExceedsTotal { static_drop, allowed } => format!(
+            "the rise alone takes {}, more than the total-drop limit of {}: no size can meet it",
+            show(*static_drop, u.pressure, Some(rho), 3),
+            show(*allowed, u.pressure, Some(rho), 3)
+        ),
+        Verdict::TooSmall { failing } => {
+            format!("no size meets the limits: even the largest size searched fails {}", names(failing))
+        }
+    }
 }
 
 /// The regime as words, with the transition zone marked uncertain.
@@ -166,6 +220,14 @@ pub struct Figures {
     pub drop_per_length: String,
     /// Total drop with its unit.
     pub total_drop: String,
+    /// Friction over length and equivalent length, with its unit.
+    pub friction_drop: String,
+    /// Fittings and other K losses, with its unit.
+    pub fittings_drop: String,
+    /// The static part ρ g Δz, with its unit.
+    pub static_drop: String,
+    /// Whether the static part is in the total (an open system).
+    pub static_in_total: bool,
     /// Reynolds number.
     pub reynolds: String,
     /// Darcy friction factor.
@@ -198,17 +260,17 @@ impl Figures {
     /// for heads.
     pub fn of(c: &Candidate, u: &Units, rho: f64) -> Figures {
         let p = &c.point;
-        let limit_text = |limit: Limit, si: f64| match limit {
-            Limit::DropPerLength => show(si, u.drop_per_length, Some(rho), 3),
-            Limit::TotalDrop => show(si, u.pressure, Some(rho), 3),
-            Limit::MaxVelocity | Limit::MinVelocity => show(si, u.velocity, Some(rho), 3),
-        };
+        let limit_text = |limit: Limit, si: f64| limit_value(limit, si, u, rho);
         Figures {
             size: c.nominal,
             bore: show(p.bore.value, u.bore(), Some(rho), 4),
             velocity: show(p.velocity.value, u.velocity, Some(rho), 3),
             drop_per_length: show(p.drop_per_length.value, u.drop_per_length, Some(rho), 3),
             total_drop: show(p.total_drop.value, u.pressure, Some(rho), 3),
+            friction_drop: show(p.friction_drop.value, u.pressure, Some(rho), 3),
+            fittings_drop: show(p.fittings_drop.value, u.pressure, Some(rho), 3),
+            static_drop: show(p.static_drop.value, u.pressure, Some(rho), 3),
+            static_in_total: u.basis.circuit == Circuit::Open,
             reynolds: format_number(p.reynolds, 3),
             friction: format_number(p.friction_factor, 4),
             regime: regime_name(p.regime),
@@ -233,19 +295,38 @@ impl Figures {
     }
 }
 
+const COLUMNS: usize = 15;
+
 /// A table row with only a status and a note (no size to report).
-fn status_row(r: &LineReport, status: &str, note: String) -> [String; 11] {
-    let mut row: [String; 11] = Default::default();
+fn status_row(r: &LineReport, status: &str, note: String) -> [String; COLUMNS] {
+    let mut row: [String; COLUMNS] = Default::default();
     row[0] = r.number.to_string();
     row[1] = r.name.clone();
     row[2] = status.to_owned();
-    row[9] = note;
+    row[14] = note;
     row
 }
 
-/// One line's table row; its notes (transition zone, method warnings,
+/// The name of the limit that set the size (what the next size down fails).
+fn governed_by(s: &Sizing) -> &'static str {
+    match &s.verdict {
+        Verdict::Proposed { below: Some(b), .. } => b.check.limit.name(),
+        _ => "",
+    }
+}
+
+/// The shown size's status words.
+fn status_words(o: &Outcome, c: &Candidate) -> &'static str {
+    match (o.checked, c.passes()) {
+        (false, _) => "proposed",
+        (true, true) => "checked: meets limits",
+        (true, false) => "checked: FAILS limits",
+    }
+}
+
+/// One line's table row; its notes (verdict, transition zone, warnings,
 /// errors) are added to `notes`.
-fn table_row(r: &LineReport, u: &Units, notes: &mut Vec<String>) -> [String; 11] {
+fn table_row(r: &LineReport, u: &Units, notes: &mut Vec<String>) -> [String; COLUMNS] {
     let o = match &r.outcome {
         Err(errs) => {
             notes.extend(errs.iter().map(|e| format!("line {} ({}): {e}", r.number, r.name)));
@@ -253,11 +334,9 @@ fn table_row(r: &LineReport, u: &Units, notes: &mut Vec<String>) -> [String; 11]
         }
         Ok(o) => o,
     };
+    notes.push(format!("line {}: {}", r.number, o.verdict));
     let row = match o.shown {
-        None => {
-            let fails: Vec<&str> = o.sizing.failing_at_largest.iter().map(|l| l.name()).collect();
-            status_row(r, "NO SIZE", format!("largest size fails {}", fails.join(", ")))
-        }
+        None => status_row(r, "NO SIZE", "see below".into()),
         Some(i) => {
             let c = &o.sizing.candidates[i];
             if c.uncertain() {
@@ -268,23 +347,28 @@ fn table_row(r: &LineReport, u: &Units, notes: &mut Vec<String>) -> [String; 11]
             }
             let f = o.figures.clone().unwrap_or_else(|| Figures::of(c, u, o.sizing.properties.density_kg_m3()));
             let size = match (o.checked, c.passes()) {
-                (true, true) => format!("{} (checked)", f.size),
-                (true, false) => format!("{} (checked: FAILS)", f.size),
-                _ => f.size.to_owned(),
+                (true, true) => format!("{} (checked)", designation(&o.line, f.size)),
+                (true, false) => format!("{} (checked: FAILS)", designation(&o.line, f.size)),
+                _ => designation(&o.line, f.size),
             };
-            let Figures { bore, velocity, drop_per_length, total_drop, reynolds, friction, binding, headroom, .. } = f;
+            let static_drop =
+                if f.static_in_total { f.static_drop.clone() } else { format!("({}, apart)", f.static_drop) };
             [
                 r.number.to_string(),
                 r.name.clone(),
                 size,
-                bore,
-                velocity,
-                drop_per_length,
-                total_drop,
-                reynolds,
-                friction,
-                binding.to_owned(),
-                headroom,
+                f.bore,
+                f.velocity,
+                f.drop_per_length,
+                f.friction_drop,
+                f.fittings_drop,
+                static_drop,
+                f.total_drop,
+                f.reynolds,
+                f.friction,
+                f.binding.to_owned(),
+                f.headroom,
+                governed_by(&o.sizing).to_owned(),
             ]
         }
     };
@@ -292,19 +376,48 @@ fn table_row(r: &LineReport, u: &Units, notes: &mut Vec<String>) -> [String; 11]
     row
 }
 
+/// The sheet's circuit in words, for every output's heading.
+pub fn circuit_note(u: &Units) -> &'static str {
+    match u.basis.circuit {
+        Circuit::Open => "Open system: the static rise counts in each total drop.",
+        Circuit::Closed => {
+            "Closed loop: the static rise is returned by the down-leg; it is shown apart and not counted in \
+             any total drop or pump head."
+        }
+    }
+}
+
 /// A fixed-width table for a terminal.
 pub fn table(sheet: &SheetFile, reports: &[LineReport]) -> String {
     let u = sheet.units();
-    let head =
-        ["#", "line", "size", "bore", "velocity", "drop/length", "total drop", "Re", "f", "binding limit", "headroom"];
-    let mut rows: Vec<[String; 11]> = vec![head.map(String::from)];
+    let head = [
+        "#",
+        "line",
+        "size",
+        "bore",
+        "velocity",
+        "drop/length",
+        "friction",
+        "fittings",
+        "static",
+        "total drop",
+        "Re",
+        "f",
+        "least headroom",
+        "headroom",
+        "governed by",
+    ];
+    let mut rows: Vec<[String; COLUMNS]> = vec![head.map(String::from)];
     let mut notes = Vec::new();
     rows.extend(reports.iter().map(|r| table_row(r, &u, &mut notes)));
-    let widths: Vec<usize> = (0..11).map(|k| rows.iter().map(|r| r[k].chars().count()).max().unwrap_or(0)).collect();
+    let widths: Vec<usize> =
+        (0..COLUMNS).map(|k| rows.iter().map(|r| r[k].chars().count()).max().unwrap_or(0)).collect();
     let mut out = String::new();
     if !sheet.project.is_empty() || !sheet.date.is_empty() {
         out.push_str(&format!("{}  {}\n\n", sheet.project, sheet.date));
     }
+    out.push_str(circuit_note(&u));
+    out.push_str("\n\n");
     for row in &rows {
         let cells: Vec<String> = row.iter().zip(&widths).map(|(c, w)| format!("{c:<w$}")).collect();
         out.push_str(cells.join("  ").trim_end());
@@ -337,9 +450,11 @@ fn csv_field(s: &str) -> String {
 pub fn csv(sheet: &SheetFile, reports: &[LineReport]) -> String {
     let u = sheet.units();
     let mut out = String::new();
+    let p = u.pressure.symbol;
     out.push_str(&format!(
-        "line,name,status,size,bore,velocity ({}),drop per length ({}),total drop ({}),Re,f,regime,binding limit,headroom %,message\n",
-        u.velocity.symbol, u.drop_per_length.symbol, u.pressure.symbol
+        "line,name,status,size,bore,velocity ({}),drop per length ({}),friction ({p}),fittings ({p}),static ({p}),\
+         static in total,total drop ({p}),Re,f,regime,least headroom,headroom %,verdict,message\n",
+        u.velocity.symbol, u.drop_per_length.symbol
     ));
     for r in reports {
         let name = csv_field(&r.name);
@@ -348,49 +463,50 @@ pub fn csv(sheet: &SheetFile, reports: &[LineReport]) -> String {
                 Some(i) => {
                     let c = &o.sizing.candidates[i];
                     let rho = o.sizing.properties.density_kg_m3();
-                    let p = &c.point;
-                    let status = match (o.checked, c.passes()) {
-                        (false, _) => "proposed",
-                        (true, true) => "checked: meets limits",
-                        (true, false) => "checked: fails limits",
-                    };
-                    let bore_mm = p.bore.value * 1e3;
+                    let pt = &c.point;
+                    let bore_mm = pt.bore.value * 1e3;
                     let headroom = c
                         .binding
                         .and_then(|b| c.checks.iter().find(|k| k.limit == b))
                         .map(|k| format!("{:.1}", k.headroom * 100.0))
                         .unwrap_or_default();
                     out.push_str(&format!(
-                        "{},{name},{status},{},{} mm,{},{},{},{},{},{},{},{headroom},{}\n",
+                        "{},{name},{},{},{} mm,{},{},{},{},{},{},{},{},{},{},{},{headroom},{},{}\n",
                         r.number,
-                        csv_field(c.nominal),
+                        status_words(o, c),
+                        csv_field(&designation(&o.line, c.nominal)),
                         format_number(bore_mm, 5),
-                        conv(p.velocity.value, u.velocity, rho, 4),
-                        conv(p.drop_per_length.value, u.drop_per_length, rho, 4),
-                        conv(p.total_drop.value, u.pressure, rho, 4),
-                        format_number(p.reynolds, 5),
-                        format_number(p.friction_factor, 5),
-                        regime_name(p.regime),
+                        conv(pt.velocity.value, u.velocity, rho, 4),
+                        conv(pt.drop_per_length.value, u.drop_per_length, rho, 4),
+                        conv(pt.friction_drop.value, u.pressure, rho, 4),
+                        conv(pt.fittings_drop.value, u.pressure, rho, 4),
+                        conv(pt.static_drop.value, u.pressure, rho, 4),
+                        if u.basis.circuit == Circuit::Open { "yes" } else { "no" },
+                        conv(pt.total_drop.value, u.pressure, rho, 4),
+                        format_number(pt.reynolds, 5),
+                        format_number(pt.friction_factor, 5),
+                        regime_name(pt.regime),
                         c.binding.map(|b| b.name()).unwrap_or(""),
+                        csv_field(&o.verdict),
                         csv_field(&o.sizing.warnings.join("; ")),
                     ));
                 }
                 None => {
-                    let fails: Vec<&str> = o.sizing.failing_at_largest.iter().map(|l| l.name()).collect();
                     out.push_str(&format!(
-                        "{},{name},no size meets the limits,,,,,,,,,,,{}\n",
+                        "{},{name},no size meets the limits,,,,,,,,,,,,,,,{},{}\n",
                         r.number,
-                        csv_field(&format!("largest size fails {}", fails.join(", ")))
+                        csv_field(&o.verdict),
+                        csv_field(&o.sizing.warnings.join("; "))
                     ));
                 }
             },
             Err(errs) => {
                 let msg: Vec<String> = errs.iter().map(|e| e.to_string()).collect();
-                out.push_str(&format!("{},{name},error,,,,,,,,,,,{}\n", r.number, csv_field(&msg.join("; "))));
+                out.push_str(&format!("{},{name},error,,,,,,,,,,,,,,,,{}\n", r.number, csv_field(&msg.join("; "))));
             }
         }
     }
-    out.push_str(&format!("# {CAUTION}\n"));
+    out.push_str(&format!("# {}\n# {CAUTION}\n", circuit_note(&u)));
     out
 }
 
@@ -404,8 +520,12 @@ struct JsonCandidate<'a> {
     regime: &'static str,
     friction_factor: f64,
     drop_per_length_pa_m: f64,
+    friction_drop_pa: f64,
+    fittings_drop_pa: f64,
+    static_drop_pa: f64,
     total_drop_pa: f64,
     meets_limits: bool,
+    skipped: Option<&'static str>,
     binding_limit: Option<&'static str>,
     headroom: Vec<(&'static str, f64)>,
 }
@@ -421,7 +541,9 @@ struct JsonLine<'a> {
     checked_size: Option<&'a str>,
     failing_at_largest: Vec<&'static str>,
     capacity_m3_s: Option<f64>,
-    warnings: Vec<&'static str>,
+    verdict: Option<String>,
+    governed_by: Option<&'static str>,
+    warnings: Vec<String>,
     candidates: Vec<JsonCandidate<'a>>,
 }
 
@@ -432,6 +554,8 @@ struct JsonReport<'a> {
     project: &'a str,
     date: &'a str,
     caution: &'static str,
+    circuit: &'static str,
+    static_in_total: bool,
     lines: Vec<JsonLine<'a>>,
 }
 
@@ -450,6 +574,11 @@ pub fn json(sheet: &SheetFile, reports: &[LineReport]) -> String {
                 checked_size: if o.checked { o.shown.map(|i| o.sizing.candidates[i].nominal) } else { None },
                 failing_at_largest: o.sizing.failing_at_largest.iter().map(|l| l.id()).collect(),
                 capacity_m3_s: o.capacity.and_then(|c| c.max_flow).map(|q| q.value),
+                verdict: Some(o.verdict.clone()),
+                governed_by: match &o.sizing.verdict {
+                    Verdict::Proposed { below: Some(b), .. } => Some(b.check.limit.id()),
+                    _ => None,
+                },
                 warnings: o.sizing.warnings.clone(),
                 candidates: o
                     .sizing
@@ -464,8 +593,12 @@ pub fn json(sheet: &SheetFile, reports: &[LineReport]) -> String {
                         regime: regime_name(c.point.regime),
                         friction_factor: c.point.friction_factor,
                         drop_per_length_pa_m: c.point.drop_per_length.value,
+                        friction_drop_pa: c.point.friction_drop.value,
+                        fittings_drop_pa: c.point.fittings_drop.value,
+                        static_drop_pa: c.point.static_drop.value,
                         total_drop_pa: c.point.total_drop.value,
                         meets_limits: c.passes(),
+                        skipped: c.skipped.map(|k| k.reason()),
                         binding_limit: c.binding.map(|b| b.id()),
                         headroom: c.checks.iter().map(|k| (k.limit.id(), k.headroom)).collect(),
                     })
@@ -481,6 +614,8 @@ pub fn json(sheet: &SheetFile, reports: &[LineReport]) -> String {
                 checked_size: None,
                 failing_at_largest: Vec::new(),
                 capacity_m3_s: None,
+                verdict: None,
+                governed_by: None,
                 warnings: Vec::new(),
                 candidates: Vec::new(),
             },
@@ -492,6 +627,8 @@ pub fn json(sheet: &SheetFile, reports: &[LineReport]) -> String {
         project: &sheet.project,
         date: &sheet.date,
         caution: CAUTION,
+        circuit: sheet.basis.circuit.id(),
+        static_in_total: sheet.basis.circuit == Circuit::Open,
         lines,
     };
     serde_json::to_string_pretty(&report).unwrap_or_default()

@@ -83,6 +83,11 @@ enum Scale {
     Mass(f64),
     /// Head of the line's fluid: Pa = value × factor (m) × ρ g.
     Head(f64),
+    /// A pressure marked gauge: Pa absolute = value × factor + one
+    /// standard atmosphere ([`ATMOSPHERE_PA`]).
+    Gauge(f64),
+    /// A pressure marked absolute: Pa = value × factor.
+    Absolute(f64),
     /// Head per length: Pa/m = value × factor (m/m) × ρ g.
     HeadPerLength(f64),
 }
@@ -106,6 +111,14 @@ const US_GAL: f64 = 3.785_411_784e-3;
 const UK_GAL: f64 = 4.546_09e-3;
 const PSI: f64 = 6_894.757_293_168;
 const G_N: f64 = crate::hydraulics::losses::G_N;
+/// Conventional water column: 1 m H₂O = g_n × 1000 kg/m³ = 9806.65 Pa
+/// (NIST SP 811, appendix B.8: "meter of water, conventional").
+const M_H2O: f64 = 9_806.65;
+
+/// The atmospheric pressure a gauge reading is taken against: one standard
+/// atmosphere, 101 325 Pa (NIST SP 811, appendix B.8). Stated beside every
+/// pressure field that takes gauge units.
+pub const ATMOSPHERE_PA: f64 = 101_325.0;
 
 macro_rules! unit {
     ($sym:literal, $dim:ident, $scale:expr, [$($alias:literal),*]) => {
@@ -127,10 +140,18 @@ pub const UNITS: &[Unit] = &[
     unit!("lb/h", Flow, Scale::Mass(LB / 3600.0), ["lb/hr", "lbm/h", "pph"]),
     unit!("Pa", Pressure, Scale::Linear(1.0), []),
     unit!("kPa", Pressure, Scale::Linear(1e3), []),
+    unit!("MPa", Pressure, Scale::Linear(1e6), []),
     unit!("bar", Pressure, Scale::Linear(1e5), []),
     unit!("psi", Pressure, Scale::Linear(PSI), ["lbf/in2"]),
-    unit!("m head", Pressure, Scale::Head(1.0), ["m", "mhead", "mhd", "mwc"]),
-    unit!("ft head", Pressure, Scale::Head(FT), ["ft", "fthead", "fthd", "ftwc"]),
+    unit!("m H₂O", Pressure, Scale::Linear(M_H2O), ["mh2o", "mwc", "mwg", "mofwater"]),
+    unit!("ft H₂O", Pressure, Scale::Linear(FT * M_H2O), ["fth2o", "ftwc", "ftofwater"]),
+    unit!("in H₂O", Pressure, Scale::Linear(IN * M_H2O), ["inh2o", "inwc", "inwg", "\"wc", "\"wg"]),
+    unit!("m head", Pressure, Scale::Head(1.0), ["m", "mhead", "mhd", "mfluid", "mhead(linefluid)"]),
+    unit!("ft head", Pressure, Scale::Head(FT), ["ft", "fthead", "fthd", "ftfluid", "fthead(linefluid)"]),
+    unit!("barg", Pressure, Scale::Gauge(1e5), ["bar(g)", "bargauge"]),
+    unit!("bara", Pressure, Scale::Absolute(1e5), ["bar(a)", "barabs"]),
+    unit!("psig", Pressure, Scale::Gauge(PSI), ["psi(g)"]),
+    unit!("psia", Pressure, Scale::Absolute(PSI), ["psi(a)"]),
     unit!("Pa/m", DropPerLength, Scale::Linear(1.0), []),
     unit!("kPa/100 m", DropPerLength, Scale::Linear(10.0), ["kpa/100m"]),
     unit!("psi/100 ft", DropPerLength, Scale::Linear(PSI / (100.0 * FT)), ["psi/100ft"]),
@@ -176,9 +197,30 @@ pub fn find(dimension: Dimension, text: &str) -> Option<&'static Unit> {
         .find(|u| normalise(u.symbol) == key || u.aliases.iter().any(|a| normalise(a) == key))
 }
 
-/// The units of one dimension, in listing order.
+/// The units of one dimension, in listing order: the ones a sheet may
+/// choose for the dimension (units marked gauge or absolute are typed into
+/// a pressure field, never chosen for all of them).
 pub fn of(dimension: Dimension) -> impl Iterator<Item = &'static Unit> {
-    UNITS.iter().filter(move |u| u.dimension == dimension)
+    UNITS.iter().filter(move |u| u.dimension == dimension && u.reference().is_none())
+}
+
+impl Unit {
+    /// "gauge" or "absolute" for a pressure unit marked so (barg, psia …).
+    pub fn reference(&self) -> Option<&'static str> {
+        match self.scale {
+            Scale::Gauge(_) => Some("gauge"),
+            Scale::Absolute(_) => Some("absolute"),
+            _ => None,
+        }
+    }
+
+    /// What the unit means, for the unit menus: heads say whose.
+    pub fn meaning(&self) -> &'static str {
+        match self.scale {
+            Scale::Head(_) | Scale::HeadPerLength(_) => "head of the line's own fluid",
+            _ => "",
+        }
+    }
 }
 
 /// Why text is not a value of the field's dimension.
@@ -254,8 +296,11 @@ impl Measure {
             Scale::Mass(k) => self.value * k / rho()?,
             Scale::Head(k) => self.value * k * rho()? * G_N,
             Scale::HeadPerLength(k) => self.value * k * rho()? * G_N,
+            Scale::Gauge(k) => self.value * k + ATMOSPHERE_PA,
+            Scale::Absolute(k) => self.value * k,
         };
-        let underflow = si == 0.0 && self.value != 0.0 && !matches!(self.unit.scale, Scale::Affine(..));
+        let underflow =
+            si == 0.0 && self.value != 0.0 && !matches!(self.unit.scale, Scale::Affine(..) | Scale::Gauge(_));
         if !si.is_finite() || underflow {
             return Err(UnitError::OutOfReach { value: self.value, unit: self.unit.symbol });
         }
@@ -275,7 +320,8 @@ impl Measure {
 pub fn from_si(si: f64, unit: &'static Unit, density: Option<f64>) -> Result<f64, UnitError> {
     let rho = || density.filter(|d| d.is_finite() && *d > 0.0).ok_or(UnitError::NeedsDensity(unit.symbol));
     Ok(match unit.scale {
-        Scale::Linear(k) => si / k,
+        Scale::Linear(k) | Scale::Absolute(k) => si / k,
+        Scale::Gauge(k) => (si - ATMOSPHERE_PA) / k,
         Scale::Affine(offset, k) => si / k - offset,
         Scale::Mass(k) => si * rho()? / k,
         Scale::Head(k) | Scale::HeadPerLength(k) => si / (k * rho()? * G_N),

@@ -18,7 +18,8 @@ use crate::sheet::units::{self, Dimension};
 
 /// The fields whose errors the editor shows beside an input (each fitting
 /// row checks its own count); the others are listed at the top.
-pub const BESIDE_INPUTS: [Field; 21] = [
+pub const BESIDE_INPUTS: [Field; 22] = [
+    Field::SmallestSize,
     Field::FittingCount,
     Field::Flow,
     Field::Fluid,
@@ -135,7 +136,7 @@ fn FlowAndFluid() -> impl IntoView {
             {move || match kind() {
                 FluidKind::Water => view! {
                     <LineText field=Field::FluidTemperature label="Temperature" id="fluid-temperature" unit=Dimension::Temperature/>
-                    <LineText field=Field::FluidPressure label="System pressure (absolute)" id="fluid-pressure" unit=Dimension::Pressure placeholder="101.325 kPa if empty"/>
+                    <LineText field=Field::FluidPressure label="System pressure (absolute; barg or psig = gauge + 101.325 kPa)" id="fluid-pressure" unit=Dimension::Pressure placeholder="101.325 kPa absolute if empty"/>
                 }.into_any(),
                 FluidKind::Glycol => view! {
                     <div class="field">
@@ -189,6 +190,20 @@ fn PipeFields() -> impl IntoView {
                 </select>
                 <span class="field-error" aria-live="polite">{move || errors_for(line.report, Field::PipeSeries).get()}</span>
             </div>
+            {move || crate::hydraulics::pipes::series(&choice()).map(|s| view! {
+                <div class="field">
+                    <label for="pipe-smallest">"Smallest size to propose"</label>
+                    <select id="pipe-smallest" data-testid="pipe-smallest"
+                        on:change=move |ev| { let v = event_target_value(&ev); file.update(|f| f.smallest_size = (!v.is_empty()).then_some(v)) }>
+                        <option value="" selected=move || file.with(|f| f.smallest_size.is_none())>"Any"</option>
+                        {s.sizes.iter().map(|z| {
+                            let n = z.nominal;
+                            view! { <option value=n selected=move || file.with(|f| f.smallest_size.as_deref() == Some(n))>{s.designation(n)}</option> }
+                        }).collect_view()}
+                    </select>
+                    <span class="field-error" aria-live="polite">{move || errors_for(line.report, Field::SmallestSize).get()}</span>
+                </div>
+            })}
             {move || (choice() == CUSTOM_BORE).then(|| view! {
                 <LineText field=Field::PipeDiameter label="Inside diameter" id="pipe-diameter" suffix="mm unless typed"/>
                 <div class="field">

@@ -120,7 +120,11 @@ pub fn UnitPicker(
             on:change=move |ev| sheet.set_unit(dim, &event_target_value(&ev))
         >
             {units::of(dim)
-                .map(|u| view! { <option value=u.symbol selected=move || current() == u.symbol>{u.symbol}</option> })
+                .map(|u| view! {
+                    <option value=u.symbol selected=move || current() == u.symbol title=u.meaning()>
+                        {if u.meaning().is_empty() { u.symbol.to_owned() } else { format!("{} (line fluid)", u.symbol) }}
+                    </option>
+                })
                 .collect_view()}
         </select>
     }

@@ -158,6 +158,7 @@ pub fn blank() -> SheetFile {
         project: String::new(),
         date: String::new(),
         units: Default::default(),
+        basis: Default::default(),
         lines: Vec::new(),
     }
 }
@@ -262,6 +263,7 @@ impl Keeper {
             sheet.project.track();
             sheet.date.track();
             sheet.units.track();
+            sheet.basis.track();
             sheet.lines.with(|v| v.iter().for_each(|s| s.file.track()));
             if seen.get_value() != Some(sheet) {
                 // A worksheet just opened: what it shows is what is stored.

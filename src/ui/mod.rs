@@ -87,6 +87,7 @@ pub fn Desk(
                     <button type="button" data-testid="units-us" aria-pressed=move || if system() == System::Us { "true" } else { "false" }
                         on:click=move |_| sheet.set_system(System::Us)>"US"</button>
                 </div>
+                <DesignBasis/>
                 <button type="button" class="demo" data-testid="open-demo" on:click=open_demo>"Open the demo sheet"</button>
                 {stored.then(|| view! {
                     <button type="button" data-testid="show-shelf" aria-pressed=pressed("shelf") on:click=toggle("shelf")>"Worksheets"</button>
@@ -129,5 +130,50 @@ pub fn Desk(
         </main>
         <footer class="caution screen-only" role="note" data-testid="caution">{CAUTION}</footer>
         <print::PrintSheet/>
+    }
+}
+
+/// The sheet-wide design basis: open system or closed loop, the margin
+/// above a glycol's freezing point, and whether rarely stocked sizes are
+/// searched.
+#[component]
+fn DesignBasis() -> impl IntoView {
+    use crate::hydraulics::line::Circuit;
+    use crate::sheet::file::{DEFAULT_FREEZE_MARGIN_K, MAX_FREEZE_MARGIN_K};
+    let sheet = expect_context::<Sheet>();
+    let basis = sheet.basis;
+    let summary = move || match basis.get().circuit {
+        Circuit::Open => "Basis: open system",
+        Circuit::Closed => "Basis: closed loop",
+    };
+    view! {
+        <details class="basis" data-testid="basis">
+            <summary>{summary}</summary>
+            <label>"Circuit"
+                <select data-testid="basis-circuit" on:change=move |ev| {
+                    let v = event_target_value(&ev);
+                    basis.update(|b| b.circuit = if v == "closed" { Circuit::Closed } else { Circuit::Open });
+                }>
+                    {Circuit::ALL.map(|c| view! { <option value=c.id() selected=move || basis.get().circuit == c>{c.label()}</option> }).collect_view()}
+                </select>
+            </label>
+            <label>"Glycol: keep above freezing by"
+                <select data-testid="basis-freeze" on:change=move |ev| {
+                    let v = event_target_value(&ev).parse::<u8>().ok().filter(|k| *k <= MAX_FREEZE_MARGIN_K);
+                    basis.update(|b| b.freeze_margin_k = v.filter(|k| *k != DEFAULT_FREEZE_MARGIN_K));
+                }>
+                    {[0u8, 1, 2, 3, 4, 5, 6, 8, 10].map(|k| view! {
+                        <option value=k.to_string() selected=move || basis.get().freeze_margin() == k>
+                            {if k == DEFAULT_FREEZE_MARGIN_K { format!("{k} K (common practice 3–5 K)") } else { format!("{k} K") }}
+                        </option>
+                    }).collect_view()}
+                </select>
+            </label>
+            <label class="check">
+                <input type="checkbox" data-testid="basis-every-size" prop:checked=move || basis.get().every_size
+                    on:change=move |ev| basis.update(|b| b.every_size = event_target_checked(&ev))/>
+                "Search rarely stocked sizes too (by default they are left out: common practice)"
+            </label>
+        </details>
     }
 }

@@ -9,7 +9,7 @@ use crate::hydraulics::line::{Method, Pipe};
 use crate::hydraulics::losses::Fitting;
 use crate::sheet::file::{FluidFile, LineFile, PipeFile};
 use crate::sheet::library::display_name;
-use crate::sheet::report::CAUTION;
+use crate::sheet::report::{circuit_note, designation, CAUTION};
 use crate::sheet::units::format_number;
 
 /// The sources every printed sheet lists.
@@ -120,26 +120,36 @@ fn PrintLine(line: Slot, number: usize, stamp: RwSignal<u32>) -> impl IntoView {
                     format_number(rho, 5), format_number(mu * 1e3, 4), o.line.fluid.sources(), format_number(o.line.roughness.value * 1e3, 3)
                 );
                 let answer = match o.shown {
-                    None => format!("No size meets the limits; the largest fails {}.", o.sizing.failing_at_largest.iter().map(|l| l.name()).collect::<Vec<_>>().join(", ")),
+                    None => "No size meets the limits.".to_owned(),
                     Some(i) => {
                         let c = &o.sizing.candidates[i];
                         let f = o.figures.clone().expect("a shown size has its figures");
                         format!(
-                            "{} {}: velocity {}, drop per length {}, total drop {}, Re {}, f {}{}",
+                            "{} {}: velocity {}, drop per length {}, total drop {} (friction {} + fittings {}{}), Re {}, f {}{}",
                             if o.checked { "Checked size" } else { "Proposed size" },
-                            f.size,
+                            designation(&o.line, f.size),
                             f.velocity,
                             f.drop_per_length,
                             f.total_drop,
+                            f.friction_drop,
+                            f.fittings_drop,
+                            if f.static_in_total { format!(" + static {}", f.static_drop) } else { format!("; static {} apart, closed loop", f.static_drop) },
                             f.reynolds,
                             f.friction,
                             if c.passes() { String::new() } else { " — FAILS a limit".into() },
                         )
                     }
                 };
-                let warnings = o.sizing.warnings.join(" ");
+                let transition = o.shown.is_some_and(|i| o.sizing.candidates[i].uncertain());
+                let mut warnings = o.sizing.warnings.clone();
+                if transition {
+                    warnings.insert(0, "Re is in the transition zone (2000–4000): the friction factor is uncertain; the safe-side turbulent value is used.".to_owned());
+                }
+                let warnings = warnings.join(" ");
+                let verdict = o.verdict.clone();
                 view! {
                     <p class="print-answer"><strong>{answer}</strong></p>
+                    <p data-testid="print-verdict">{verdict}</p>
                     <p><em>"Assumptions: "</em>{assumptions}</p>
                     {(!warnings.is_empty()).then(|| view! { <p class="bad">{warnings}</p> })}
                 }.into_any()
@@ -197,6 +207,7 @@ pub fn PrintSheet() -> impl IntoView {
                 <h1>{move || sheet.project.with(|p| display_name(p))}</h1>
                 <p>{move || format!("Pipe sizing review sheet · {} · Headroom {}", sheet.date.get(), env!("CARGO_PKG_VERSION"))}</p>
                 <p class="print-caution"><strong>"Caution: "</strong>{CAUTION}</p>
+                <p data-testid="print-circuit">{move || circuit_note(&sheet.resolved.get())}</p>
             </header>
             <For each=rows key=|(i, s)| (*i, s.id) children=move |(i, s)| view! { <PrintLine line=s number=i + 1 stamp=stamp/> }/>
             <footer>

@@ -37,13 +37,14 @@ pub fn LineResults(
 #[component]
 fn Answer(o: Outcome) -> impl IntoView {
     let shown = o.shown.map(|i| o.sizing.candidates[i].clone());
-    let failing: Vec<&str> = o.sizing.failing_at_largest.iter().map(|l| l.name()).collect();
     let warnings = o.sizing.warnings.clone();
+    let verdict = o.verdict.clone();
     match shown {
         None => view! {
             <div class="answer answer-none" data-testid="answer" role="status">
                 <p class="answer-size" data-testid="proposed-size">"No size"</p>
-                <p data-testid="answer-why">{format!("Even the largest size fails: {}.", failing.join(", "))}</p>
+                <p data-testid="answer-why">{verdict}</p>
+                {warnings.into_iter().map(|w| view! { <p class="warn">{w}</p> }).collect_view()}
             </div>
         }
         .into_any(),
@@ -78,6 +79,11 @@ fn Answer(o: Outcome) -> impl IntoView {
                         <div><dt>"Total drop"</dt><dd data-testid="answer-total-drop">{fig.total_drop.clone()}</dd></div>
                         <div><dt>"Inside diameter"</dt><dd>{fig.bore.clone()}</dd></div>
                     </dl>
+                    <p class="breakdown" data-testid="answer-breakdown">
+                        {format!("Friction {} + fittings {}", fig.friction_drop, fig.fittings_drop)}
+                        {if fig.static_in_total { format!(" + static {}", fig.static_drop) } else { format!("; static {} shown apart (closed loop)", fig.static_drop) }}
+                    </p>
+                    {(!o.checked).then(|| view! { <p class="verdict-line" data-testid="answer-verdict">{verdict}</p> })}
                     <p class="headroom-title">"Headroom to each limit"</p>
                     <ul class="headroom">{rows}</ul>
                     {c.uncertain().then(|| view! { <p class="warn" data-testid="warn-transition">"Re is in the transition zone (2000–4000): the friction factor is uncertain; the safe-side turbulent value is used."</p> })}
@@ -98,7 +104,11 @@ fn SizeTable(o: Outcome, d: Detail, file: RwSignal<crate::sheet::file::LineFile>
             let i = near.index;
             let c: &Candidate = &o.sizing.candidates[i];
             let f = near.figures.clone();
-            let verdict = if c.passes() { "meets" } else { "fails" };
+            let verdict = match (c.passes(), c.skipped) {
+                (_, Some(k)) => k.reason(),
+                (true, None) => "meets",
+                (false, None) => "fails",
+            };
             let nominal = c.nominal;
             let is_shown = o.shown == Some(i);
             view! {

@@ -3,6 +3,8 @@
 
 use leptos::prelude::*;
 
+use crate::hydraulics::line::Circuit;
+
 use super::state::{Sheet, Slot};
 use crate::sheet::presets::SERVICES;
 use crate::sheet::units;
@@ -15,18 +17,16 @@ pub fn Roster() -> impl IntoView {
     let add_service = RwSignal::new(SERVICES[0].id);
     let path_total = move || {
         let u = sheet.resolved.get();
-        let (mut sum, mut n, mut bad) = (0.0, 0, 0);
+        let (mut sum, mut rise, mut n, mut bad) = (0.0, 0.0, 0, 0);
         sheet.lines.with(|v| {
             for s in v.iter().filter(|s| s.in_path.get()) {
                 n += 1;
                 s.report.with(|r| {
-                    match r
-                        .outcome
-                        .as_ref()
-                        .ok()
-                        .and_then(|o| o.shown.map(|i| o.sizing.candidates[i].point.total_drop.value))
-                    {
-                        Some(dp) => sum += dp,
+                    match r.outcome.as_ref().ok().and_then(|o| o.shown.map(|i| o.sizing.candidates[i].point)) {
+                        Some(p) => {
+                            sum += p.total_drop.value;
+                            rise += p.static_drop.value;
+                        }
                         None => bad += 1,
                     }
                 });
@@ -35,13 +35,23 @@ pub fn Roster() -> impl IntoView {
         if n == 0 {
             "Tick lines to add up their drops along a path (for a pump-head estimate).".to_owned()
         } else {
-            let water_head = units::find(units::Dimension::Pressure, "m head").expect("m head");
-            let mut t = format!(
-                "Path of {n} line{}: {} total drop ({} of water at 1000 kg/m³)",
-                if n == 1 { "" } else { "s" },
-                units::show(sum, u.pressure, Some(1000.0), 3),
-                units::show(sum, water_head, Some(1000.0), 3)
-            );
+            let water = units::find(units::Dimension::Pressure, "m H₂O").expect("m H₂O");
+            let plural = if n == 1 { "" } else { "s" };
+            let show = |v: f64| units::show(v, u.pressure, None, 3);
+            let mut t = match u.basis.circuit {
+                Circuit::Closed => format!(
+                    "Path of {n} line{plural}: {} friction and fittings ({}); static {} shown apart — a closed loop returns it, so it is not pump head",
+                    show(sum),
+                    units::show(sum, water, None, 3),
+                    show(rise)
+                ),
+                Circuit::Open => format!(
+                    "Path of {n} line{plural}: {} total drop ({}), of which static {}",
+                    show(sum),
+                    units::show(sum, water, None, 3),
+                    show(rise)
+                ),
+            };
             if bad > 0 {
                 t.push_str(&format!("; {bad} ticked line(s) have no result and are left out"));
             }

@@ -55,6 +55,7 @@ pub fn SharePanel() -> impl IntoView {
         sheet.project.track();
         sheet.date.track();
         sheet.units.track();
+        sheet.basis.track();
         sheet.lines.with(|v| v.iter().for_each(|s| s.file.track()));
         share_url(&sheet)
     });

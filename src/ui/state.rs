@@ -12,7 +12,7 @@ use std::sync::atomic::{AtomicUsize, Ordering};
 use leptos::prelude::*;
 
 use crate::sheet::convert;
-use crate::sheet::file::{LineFile, SheetFile, System, UnitChoice, Units, FORMAT, VERSION};
+use crate::sheet::file::{Basis, LineFile, SheetFile, System, UnitChoice, Units, FORMAT, VERSION};
 use crate::sheet::presets::Service;
 use crate::sheet::report::{detail, evaluate_line, Detail, LineReport, Outcome};
 use crate::sheet::units::Dimension;
@@ -51,7 +51,9 @@ pub struct Sheet {
     pub date: RwSignal<String>,
     /// Unit choices as stored.
     pub units: RwSignal<UnitChoice>,
-    /// Unit choices resolved.
+    /// Sheet-wide design basis (circuit, freezing margin, sizes searched).
+    pub basis: RwSignal<Basis>,
+    /// Unit choices resolved, with the design basis.
     pub resolved: Memo<Units>,
     /// The lines in order.
     pub lines: RwSignal<Vec<Slot>>,
@@ -99,14 +101,18 @@ impl Sheet {
         let keep = StoredValue::new(owner.clone());
         owner.with(|| {
             let units = RwSignal::new(UnitChoice::default());
+            let basis = RwSignal::new(Basis::default());
             let resolved = Memo::new(move |_| {
                 let u = units.get();
-                u.resolve().unwrap_or_else(|_| Units::defaults(u.system))
+                let mut r = u.resolve().unwrap_or_else(|_| Units::defaults(u.system));
+                r.basis = basis.get();
+                r
             });
             Sheet {
                 project: RwSignal::new(String::new()),
                 date: RwSignal::new(String::new()),
                 units,
+                basis,
                 resolved,
                 lines: RwSignal::new(Vec::new()),
                 selected: RwSignal::new(None),
@@ -240,6 +246,7 @@ impl Sheet {
         self.project.set(sheet.project);
         self.date.set(sheet.date);
         self.units.set(sheet.units);
+        self.basis.set(sheet.basis);
         let slots: Vec<Slot> = sheet.lines.into_iter().map(|l| self.make_slot(l)).collect();
         self.selected.set(slots.first().map(|s| s.id));
         self.lines.set(slots);
@@ -253,6 +260,7 @@ impl Sheet {
             project: self.project.get_untracked(),
             date: self.date.get_untracked(),
             units: self.units.get_untracked(),
+            basis: self.basis.get_untracked(),
             lines: self.lines.with_untracked(|v| v.iter().map(|s| s.file.get_untracked()).collect()),
         }
     }

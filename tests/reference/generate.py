@@ -44,12 +44,15 @@ dump("colebrook.json", {"versions": versions, "points": grid})
 # Pipe schedules: our series id -> fluids schedule name. fluids works in m.
 schedules = {
     "steel-sch40": "40", "steel-sch80": "80", "steel-std": "STD", "steel-xs": "XS",
+    "steel-sch10": "10", "steel-sch20": "20",
     "stainless-5s": "5S", "stainless-10s": "10S", "stainless-40s": "40S", "stainless-80s": "80S",
     "pvc-sch40": "40D1785", "pvc-sch80": "80D1785",
 }
 nps_values = {"1/8": 0.125, "1/4": 0.25, "3/8": 0.375, "1/2": 0.5, "3/4": 0.75, "1": 1, "1-1/4": 1.25,
               "1-1/2": 1.5, "2": 2, "2-1/2": 2.5, "3": 3, "3-1/2": 3.5, "4": 4, "5": 5, "6": 6, "8": 8,
-              "10": 10, "12": 12, "14": 14, "16": 16, "18": 18, "20": 20, "24": 24}
+              "10": 10, "12": 12, "14": 14, "16": 16, "18": 18, "20": 20, "22": 22, "24": 24,
+              "26": 26, "28": 28, "30": 30, "32": 32, "34": 34, "36": 36, "38": 38, "40": 40, "42": 42,
+              "44": 44, "46": 46, "48": 48}
 pipes = {}
 for sid, sch in schedules.items():
     rows = {}
@@ -70,7 +73,40 @@ for name, d in [("DN8", 8), ("DN10", 10), ("DN15", 15), ("DN20", 20), ("DN25", 2
             dn[name] = {"od_mm": fluids.piping.MEDIUMo_BS1387[i], "wall_mm": fluids.piping.MEDIUMt_BS1387[i],
                         "id_mm": fluids.piping.MEDIUMi_BS1387[i]}
 pipes["en10255-medium"] = dn
+# EN 10255 heavy carries BS 1387 heavy.
+dn = {}
+for name, d in [("DN8", 8), ("DN10", 10), ("DN15", 15), ("DN20", 20), ("DN25", 25), ("DN32", 32), ("DN40", 40),
+                ("DN50", 50), ("DN65", 65), ("DN80", 80), ("DN100", 100), ("DN125", 125), ("DN150", 150)]:
+    for i, v in enumerate(fluids.piping.DN_HEAVY_BS1387):
+        if abs(v - d) < 1e-9:
+            dn[name] = {"od_mm": fluids.piping.HEAVYo_BS1387[i], "wall_mm": fluids.piping.HEAVYt_BS1387[i],
+                        "id_mm": fluids.piping.HEAVYi_BS1387[i]}
+pipes["en10255-heavy"] = dn
 dump("pipes.json", {"versions": versions, "series": pipes})
+
+# Large steel mains, held back for review: drop per length of water at every
+# size of the series, from fluids' pipe tables and Colebrook, with CoolProp
+# water; our sizing of the same line must agree to 2 %.
+mains = []
+for sid, flow_m3s, t_c in [("steel-std", 0.45, 7.0), ("steel-std", 1.8, 12.0), ("steel-xs", 0.9, 45.0),
+                            ("steel-sch40", 0.6, 80.0), ("steel-sch10", 1.2, 15.0), ("steel-sch20", 0.3, 25.0)]:
+    T = t_c + 273.15
+    rho = CP.PropsSI("D", "T", T, "P", 500e3, "Water")
+    mu = CP.PropsSI("V", "T", T, "P", 500e3, "Water")
+    sizes = {}
+    for name, nps in nps_values.items():
+        try:
+            got_nps, di, do, t = nearest_pipe(NPS=nps, schedule=schedules[sid])
+        except Exception:
+            continue
+        if abs(got_nps - nps) > 1e-9 or nps < 4:
+            continue
+        v = flow_m3s / (math.pi / 4 * di * di)
+        re = rho * v * di / mu
+        f = Colebrook(re, 0.045e-3 / di)
+        sizes[name] = f * rho * v * v / (2 * di)
+    mains.append({"series": sid, "flow_m3_s": flow_m3s, "t_c": t_c, "drop_pa_m": sizes})
+dump("mains.json", {"versions": versions, "cases": mains})
 
 # Darby 3-K constants, by fluids' name for each row.
 dump("darby.json", {"versions": versions, "rows": {k: list(v) for k, v in Darby.items()}})
@@ -105,5 +141,11 @@ for code, name in [("MEG", "ethylene"), ("MPG", "propylene")]:
                 "rho": CP.PropsSI("D", "T", T, "P", 101325, fl),
                 "mu": CP.PropsSI("V", "T", T, "P", 101325, fl),
             })
-dump("glycol.json", {"versions": versions, "points": glycol})
+freezing = []
+for code, name in [("MEG", "ethylene"), ("MPG", "propylene")]:
+    for pct in range(10, 61):
+        fl = "INCOMP::%s-%g%%" % (code, pct)
+        freezing.append({"glycol": name, "percent": pct,
+                         "freeze_c": CP.PropsSI("T_freeze", "T", 300, "P", 101325, fl) - 273.15})
+dump("glycol.json", {"versions": versions, "points": glycol, "freezing": freezing})
 print("reference values written to %s (%s)" % (out, ", ".join("%s %s" % kv for kv in versions.items())))

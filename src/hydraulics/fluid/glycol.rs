@@ -10,8 +10,12 @@
 //! ln μ. The test command measures the interpolation error against CoolProp
 //! off the grid (see the README).
 //!
-//! Below the mixture's freezing point (also from the table, linear between
-//! rows) the answer is an error, never a number.
+//! Below the mixture's freezing point (also from the table) the answer is an
+//! error, never a number. Between strengths the freezing point is a
+//! quadratic through the three nearest rows, never colder than the chord:
+//! the curve bends down (each 5 % colder by more than the last), so a
+//! straight line between rows puts the freezing point too cold, on the
+//! unsafe side.
 
 use uom::si::dynamic_viscosity::pascal_second;
 use uom::si::f64::{DynamicViscosity, MassDensity, ThermodynamicTemperature};
@@ -44,7 +48,9 @@ fn bracket(x: f64) -> (usize, f64) {
     (i, pos - i as f64)
 }
 
-/// Freezing point of a mixture, °C (linear between tabulated strengths).
+/// Freezing point of a mixture, °C: quadratic through the three nearest
+/// tabulated strengths, and never colder than the straight line between the
+/// two around it.
 ///
 /// # Errors
 /// [`FluidError::Concentration`] outside 10–60 % by mass.
@@ -55,7 +61,13 @@ pub fn freezing_point_c(g: Glycol, fraction: f64) -> Result<f64, FluidError> {
     }
     let (freeze, _, _) = tables(g);
     let (i, w) = bracket(fraction);
-    Ok(freeze[i] * (1.0 - w) + freeze[i + 1] * w)
+    let chord = freeze[i] * (1.0 - w) + freeze[i + 1] * w;
+    // Three rows j, j+1, j+2 holding i and i+1, positions 0, 1, 2.
+    let j = if i + 2 < freeze.len() { i } else { i - 1 };
+    let u = w + (i - j) as f64;
+    let (a, b, c) = (freeze[j], freeze[j + 1], freeze[j + 2]);
+    let quadratic = a * (u - 1.0) * (u - 2.0) / 2.0 - b * u * (u - 2.0) + c * u * (u - 1.0) / 2.0;
+    Ok(quadratic.max(chord))
 }
 
 /// Density and viscosity of a glycol solution.

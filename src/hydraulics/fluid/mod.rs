@@ -80,6 +80,15 @@ impl Fluid {
         }
     }
 
+    /// A glycol mixture's freezing point, °C (`None` for other fluids or a
+    /// strength outside the table, which [`Fluid::properties`] reports).
+    pub fn freezing_point_c(&self) -> Option<f64> {
+        match *self {
+            Fluid::GlycolMix(g, x) => glycol::freezing_point_c(g, x).ok(),
+            _ => None,
+        }
+    }
+
     /// Where its density and viscosity come from, as the explain trace and
     /// the printed sheet say it.
     pub fn sources(&self) -> &'static str {

@@ -47,6 +47,14 @@ pub enum FluidError {
         /// Saturation pressure, Pa absolute.
         p_sat_pa: f64,
     },
+    /// Pressure above the range Headroom evaluates water at (10 MPa, a
+    /// limit of ours well inside IAPWS-IF97 region 1's 100 MPa).
+    PressureRange {
+        /// Pressure asked, Pa absolute.
+        p_pa: f64,
+        /// Highest accepted, Pa absolute.
+        max_pa: f64,
+    },
     /// A glycol mixture below its freezing point.
     Freezes {
         /// Temperature, °C.
@@ -73,6 +81,12 @@ impl std::fmt::Display for FluidError {
             FluidError::TemperatureRange { t_c, min_c, max_c } => {
                 write!(f, "temperature {t_c:.1} °C is outside {min_c}–{max_c} °C for this fluid")
             }
+            FluidError::PressureRange { p_pa, max_pa } => write!(
+                f,
+                "{:.1} MPa is above the {:.0} MPa absolute that Headroom evaluates water at",
+                p_pa / 1e6,
+                max_pa / 1e6
+            ),
             FluidError::Boils { t_c, p_pa, p_sat_pa } => write!(
                 f,
                 "water at {t_c:.1} °C boils below {:.1} kPa absolute; {:.1} kPa is too low",

@@ -131,11 +131,16 @@ pub fn iapws2008_viscosity(t_k: f64, rho: f64) -> f64 {
 /// Lowest and highest temperatures accepted, °C.
 pub const RANGE_C: (f64, f64) = (0.0, 150.0);
 
+/// Highest pressure water is evaluated at, Pa absolute (a limit of ours;
+/// IF97 region 1 itself reaches 100 MPa).
+pub const MAX_PRESSURE_PA: f64 = 10e6;
+
 /// Density and viscosity of liquid water at a temperature and an absolute
 /// pressure.
 ///
 /// # Errors
 /// [`FluidError::TemperatureRange`] outside [`RANGE_C`];
+/// [`FluidError::PressureRange`] above [`MAX_PRESSURE_PA`];
 /// [`FluidError::Boils`] when the pressure is below the saturation pressure.
 ///
 /// # Examples
@@ -157,7 +162,10 @@ pub fn properties(t: ThermodynamicTemperature, p: Pressure) -> Result<Properties
     }
     let p_pa = p.get::<pascal>();
     let p_sat = if97_saturation_pressure(t_k.max(273.16));
-    if !(p_pa.is_finite() && p_pa >= p_sat && p_pa <= 10e6) {
+    if p_pa > MAX_PRESSURE_PA {
+        return Err(FluidError::PressureRange { p_pa, max_pa: MAX_PRESSURE_PA });
+    }
+    if !(p_pa.is_finite() && p_pa >= p_sat) {
         return Err(FluidError::Boils { t_c, p_pa, p_sat_pa: p_sat });
     }
     let rho = 1.0 / if97_region1_specific_volume(t_k, p_pa);
