@@ -23,6 +23,7 @@ fn typed_line() -> LineFile {
         aged: false,
         length: "42".into(),
         fittings: vec![],
+        components: vec![],
         extra_k: None,
         equivalent_length: None,
         rise: None,

@@ -45,7 +45,16 @@ fn too_many_fitting_rows_and_too_long_text_are_refused_naming_the_line() {
     let row = s.lines[1].fittings[0].clone();
     s.lines[1].fittings = vec![row; MAX_FITTING_ROWS + 1];
     let err = SheetFile::from_json(&s.to_json()).unwrap_err();
-    assert!(err.to_string().contains("line 2 has 41 fitting rows; a line may have at most 40"), "{err}");
+    assert!(err.to_string().contains("line 2 has 41 fitting or component rows; a line may have at most 40"), "{err}");
+    // Components have the same limit.
+    let mut s = demo();
+    s.lines[2].components = vec![s.lines[2].components[0].clone(); MAX_FITTING_ROWS + 1];
+    let err = SheetFile::from_json(&s.to_json()).unwrap_err();
+    assert!(err.to_string().contains("line 3 has 41 fitting or component rows"), "{err}");
+    let mut s = demo();
+    s.lines[2].components[0].name = "n".repeat(MAX_TEXT_CHARS + 1);
+    let err = SheetFile::from_json(&s.to_json()).unwrap_err();
+    assert!(err.to_string().contains("line 3's components.name is 201 characters long"), "{err}");
 
     let mut s = demo();
     s.lines[2].flow = "9".repeat(MAX_TEXT_CHARS + 1);

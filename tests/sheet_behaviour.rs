@@ -91,17 +91,24 @@ fn the_explain_trace_names_formula_and_source_for_each_step() {
     let o = outcome(
         r#"{"flow":"6 L/s","fluid":{"kind":"water","temperature":"10"},
         "pipe":{"series":"steel-sch40"},"length":"20","rise":"3",
-        "fittings":[{"fitting":"valve-globe","count":1}],"limits":{"max_drop_per_length":"300"}}"#,
+        "fittings":[{"fitting":"valve-globe","count":1}],
+        "components":[{"kind":"cv","value":"60"},{"kind":"rated","drop":"20 kPa","at_flow":"5 L/s"}],
+        "limits":{"max_drop_per_length":"300"}}"#,
     )
     .unwrap();
     let c = o.sizing.proposal().unwrap();
     let steps = sizing::trace(&o.line, c);
     let symbols: Vec<&str> = steps.iter().map(|s| s.symbol).collect();
-    assert_eq!(symbols, ["ρ", "μ", "D", "V", "Re", "ε/D", "f", "Δp/L", "Δp_f", "ΣK", "Δp_K", "Δp_z", "Δp"]);
+    assert_eq!(symbols, ["ρ", "μ", "D", "V", "Re", "ε/D", "f", "Δp/L", "Δp_f", "ΣK", "Δp_K", "Δp_c", "Δp_z", "Δp"]);
     assert!(steps.iter().all(|s| !s.formula.is_empty() && !s.source.is_empty() && s.value.is_finite()));
-    // The steps add up: Δp = Δp_f + Δp_K + Δp_z.
+    // The steps add up: Δp = Δp_f + Δp_K + Δp_c + Δp_z.
     let v = |sym: &str| steps.iter().find(|s| s.symbol == sym).unwrap().value;
-    assert!((v("Δp") - (v("Δp_f") + v("Δp_K") + v("Δp_z"))).abs() < 1e-9 * v("Δp"));
+    assert!((v("Δp") - (v("Δp_f") + v("Δp_K") + v("Δp_c") + v("Δp_z"))).abs() < 1e-9 * v("Δp"));
+    // Components by hand: Cv 60 is Kv 60/1.156 = 51.903; at 6 L/s = 21.6 m³/h
+    // of water at 10 °C (ρ 999.70 kg/m³, IAPWS-IF97): (21.6/51.903)² × 0.99970 bar
+    // = 17 314 Pa; the rated 20 kPa at 5 L/s becomes 20 × 1.2² = 28.8 kPa.
+    let want = 1e5 * 0.999_70 * (21.6f64 / (60.0 / 1.156)).powi(2) + 28_800.0;
+    assert!((v("Δp_c") - want).abs() < 1e-4 * want, "{} vs {want}", v("Δp_c"));
     // And Re is recomputable from the steps before it.
     assert!((v("Re") - v("ρ") * v("V") * v("D") / v("μ")).abs() < 1e-9 * v("Re"));
 }

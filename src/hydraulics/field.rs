@@ -67,6 +67,8 @@ pub enum Field {
     MinVelocity,
     /// Check mode's pinned size.
     CheckSize,
+    /// Valves and equipment by Kv, rated drop, butterfly valve or reducer.
+    Components,
     /// The smallest size the search may propose.
     SmallestSize,
     /// The sheet's flow unit.
@@ -87,7 +89,7 @@ pub enum Field {
 
 impl Field {
     /// Every field, in the order of the sheet file.
-    pub const ALL: [Field; 36] = [
+    pub const ALL: [Field; 37] = [
         Field::Line,
         Field::Name,
         Field::Flow,
@@ -116,6 +118,7 @@ impl Field {
         Field::MaxVelocity,
         Field::MinVelocity,
         Field::CheckSize,
+        Field::Components,
         Field::SmallestSize,
         Field::UnitsFlow,
         Field::UnitsPressure,
@@ -157,6 +160,7 @@ impl Field {
             Field::MaxVelocity => "limits.max_velocity",
             Field::MinVelocity => "limits.min_velocity",
             Field::CheckSize => "check_size",
+            Field::Components => "components",
             Field::SmallestSize => "smallest_size",
             Field::UnitsFlow => "units.flow",
             Field::UnitsPressure => "units.pressure",
@@ -197,6 +201,7 @@ impl Field {
             Field::MaxVelocity => "maximum velocity",
             Field::MinVelocity => "minimum velocity",
             Field::CheckSize => "checked size",
+            Field::Components => "component",
             Field::SmallestSize => "smallest size",
             Field::UnitsFlow => "flow unit",
             Field::UnitsPressure => "pressure unit",

@@ -19,7 +19,7 @@ use super::field::Field;
 use super::fluid::{Fluid, FluidError, Properties};
 use super::friction::{self, Regime};
 use super::geometry::mean_velocity;
-use super::losses::{self, Fittings, G_N};
+use super::losses::{self, Component, Fittings, G_N};
 use super::pipes::Series;
 
 /// Pressure per length (M L⁻² T⁻²), which `uom` has no name for.
@@ -295,9 +295,12 @@ pub struct Point {
     pub friction_drop: Pressure,
     /// ΣK ρ V² / 2.
     pub fittings_drop: Pressure,
+    /// Across the valves and equipment given by Kv, rated drop, or as a
+    /// butterfly valve or reducer.
+    pub components_drop: Pressure,
     /// ρ g Δz (reported in both circuits).
     pub static_drop: Pressure,
-    /// Friction + fittings, + static in an open system.
+    /// Friction + fittings + components, + static in an open system.
     pub total_drop: Pressure,
 }
 
@@ -410,6 +413,21 @@ impl Line {
                 return Err(LineError::NotFinite(Field::EquivalentLength));
             }
         }
+        for c in &self.fittings.components {
+            let f = Field::Components;
+            match *c {
+                Component::Kv(kv) => within(kv, f, "Kv (m³/h at 1 bar)", 1e-6, 1e6)?,
+                Component::Rated { drop_pa, flow_m3_s } => {
+                    within(drop_pa, f, "rated drop (Pa)", 1.0, 1e8)?;
+                    within(flow_m3_s, f, "rated flow (m³/s)", 1e-9, 1e3)?;
+                }
+                Component::Butterfly => {}
+                Component::Reducer { to_bore_m, angle_deg } => {
+                    within(to_bore_m, f, "reducer's other bore (m)", 1e-4, 20.0)?;
+                    within(angle_deg, f, "reducer's included angle (°)", 1.0, 180.0)?;
+                }
+            }
+        }
         if let Method::HazenWilliams { c } = self.method {
             positive(c, Field::HazenWilliamsC)?;
             within(c, Field::HazenWilliamsC, "Hazen–Williams C", 1.0, 250.0)?;
@@ -483,6 +501,13 @@ impl Line {
             self.fittings.sum_k(reynolds.max(1.0), self.pipe.darby_diameter_in(bore))
         };
         let fittings_drop = losses::minor_loss(sum_k, props.density, velocity);
+        let components_drop = if self.fittings.components.is_empty() {
+            Pressure::new::<pascal>(0.0)
+        } else {
+            let dn = self.pipe.darby_diameter_in(bore);
+            let q = flow.get::<uom::si::volume_rate::cubic_meter_per_second>();
+            Pressure::new::<pascal>(self.fittings.components.iter().map(|c| c.drop(q, rho, d, dn)).sum())
+        };
         let static_drop = losses::static_pressure(self.rise, props.density);
         Point {
             bore,
@@ -495,10 +520,11 @@ impl Line {
             sum_k,
             friction_drop,
             fittings_drop,
+            components_drop,
             static_drop,
             total_drop: match self.circuit {
-                Circuit::Open => friction_drop + fittings_drop + static_drop,
-                Circuit::Closed => friction_drop + fittings_drop,
+                Circuit::Open => friction_drop + fittings_drop + components_drop + static_drop,
+                Circuit::Closed => friction_drop + fittings_drop + components_drop,
             },
         }
     }

@@ -205,12 +205,135 @@ impl Fitting {
     }
 }
 
+/// Water's reference density in the definition of Kv, kg/m³ (IEC 60534-2-1:
+/// ρ₀ = 1000 kg/m³, water at 5–40 °C).
+pub const KV_RHO0: f64 = 1000.0;
+
+/// Cv (US gal/min at 1 psi) per Kv (m³/h at 1 bar): Cv = 1.156 Kv
+/// (IEC 60534-1 / ISA-75.01.01; 1.156 is the rounded ratio of the units).
+pub const CV_PER_KV: f64 = 1.156;
+
+/// A valve or piece of equipment in a line, given as the trade gives it.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum Component {
+    /// Flow coefficient Kv, m³/h of water at 1 bar drop (a Cv is entered as
+    /// Kv = Cv / 1.156): Δp = ρ/ρ₀ · (Q/Kv)² bar (IEC 60534-2-1, the
+    /// non-choked liquid form).
+    Kv(f64),
+    /// A drop measured or rated at a flow (a coil, heat exchanger, meter,
+    /// backflow device or strainer from the maker's data): Δp = Δp_r ·
+    /// (Q/Q_r)², the square law of turbulent flow (common practice).
+    Rated {
+        /// The rated drop, Pa.
+        drop_pa: f64,
+        /// The flow it was rated at, m³/s.
+        flow_m3_s: f64,
+    },
+    /// A centric (concentric, resilient-seated) butterfly valve, fully open:
+    /// K = c · fT (Crane TP-410, 2009: c = 45 for 2–8 in, 35 for 10–14 in,
+    /// 25 for 16–24 in; fT Crane's full-turbulence friction factor for the
+    /// nominal size).
+    Butterfly,
+    /// The line's bore changing to another bore with an included angle
+    /// (180° for a sudden change): a contraction when the other bore is
+    /// smaller, an enlargement when it is larger (Crane TP-410 formulas;
+    /// the sudden enlargement is Borda–Carnot).
+    Reducer {
+        /// The bore the flow goes to, m.
+        to_bore_m: f64,
+        /// Included angle, degrees (0 < θ ≤ 180).
+        angle_deg: f64,
+    },
+}
+
+/// Crane TP-410's friction factor at full turbulence for clean commercial
+/// steel, by nominal size in inches (table on page A-27 of the 2009 edition;
+/// values from memory, checked against `fluids.fittings.ft_Crane` in
+/// tests/reference.rs).
+pub fn crane_ft(dn_in: f64) -> f64 {
+    const TABLE: [(f64, f64); 19] = [
+        (0.5, 0.027),
+        (0.75, 0.025),
+        (1.0, 0.023),
+        (1.25, 0.022),
+        (1.5, 0.021),
+        (2.0, 0.019),
+        (2.5, 0.018),
+        (3.0, 0.018),
+        (4.0, 0.017),
+        (5.0, 0.016),
+        (6.0, 0.015),
+        (8.0, 0.014),
+        (10.0, 0.014),
+        (12.0, 0.013),
+        (14.0, 0.013),
+        (16.0, 0.013),
+        (18.0, 0.012),
+        (20.0, 0.012),
+        (24.0, 0.012),
+    ];
+    // The row of the nearest tabulated size at or below, the first row below it.
+    TABLE.iter().rev().find(|(d, _)| dn_in >= d - 1e-9).unwrap_or(&TABLE[0]).1
+}
+
+impl Component {
+    /// The pressure lost across it, Pa: flow `q` (m³/s) of density `rho`
+    /// (kg/m³) in a bore `bore` (m) of nominal diameter `dn_in` inches.
+    pub fn drop(&self, q: f64, rho: f64, bore: f64, dn_in: f64) -> f64 {
+        let area = |d: f64| std::f64::consts::FRAC_PI_4 * d * d;
+        match *self {
+            Component::Kv(kv) => 1e5 * rho / KV_RHO0 * (q * 3600.0 / kv).powi(2),
+            Component::Rated { drop_pa, flow_m3_s } => drop_pa * (q / flow_m3_s).powi(2),
+            Component::Butterfly => {
+                let v = q / area(bore);
+                Component::butterfly_k(dn_in) * 0.5 * rho * v * v
+            }
+            Component::Reducer { to_bore_m, angle_deg } => {
+                let (small, large) = (bore.min(to_bore_m), bore.max(to_bore_m));
+                let v_small = q / area(small);
+                Component::reducer_k(small / large, angle_deg, to_bore_m < bore) * 0.5 * rho * v_small * v_small
+            }
+        }
+    }
+
+    /// Crane's centric butterfly valve K for a nominal size (c · fT).
+    pub fn butterfly_k(dn_in: f64) -> f64 {
+        let c = if dn_in < 9.0 {
+            45.0
+        } else if dn_in < 15.0 {
+            35.0
+        } else {
+            25.0
+        };
+        c * crane_ft(dn_in)
+    }
+
+    /// Crane TP-410's K for a contraction or an enlargement, referred to
+    /// the velocity in the smaller bore; β = d_small / d_large, θ the
+    /// included angle.
+    /// Contraction: θ < 45°: 0.8 sin(θ/2)(1 − β²); else 0.5 √sin(θ/2) (1 − β²).
+    /// Enlargement: θ < 45°: 2.6 sin(θ/2)(1 − β²)²; else (1 − β²)² (Borda–Carnot).
+    pub fn reducer_k(beta: f64, angle_deg: f64, contraction: bool) -> f64 {
+        let half = (0.5 * angle_deg).to_radians();
+        let b2 = beta * beta;
+        match (contraction, angle_deg < 45.0) {
+            (true, true) => 0.8 * half.sin() * (1.0 - b2),
+            (true, false) => 0.5 * half.sin().sqrt() * (1.0 - b2),
+            (false, true) => 2.6 * half.sin() * (1.0 - b2).powi(2),
+            (false, false) => (1.0 - b2).powi(2),
+        }
+    }
+}
+
 /// Fittings counted on one line, plus a directly entered ΣK and an
 /// equivalent length of straight pipe.
 #[derive(Debug, Clone, PartialEq, Default)]
 pub struct Fittings {
     /// Each fitting with how many of it the line has.
     pub counts: Vec<(Fitting, u32)>,
+    /// Valves and equipment given by Kv, rated drop, or as a butterfly
+    /// valve or reducer.
+    pub components: Vec<Component>,
     /// Extra ΣK entered directly (dimensionless).
     pub extra_k: f64,
     /// Equivalent length of straight pipe for anything else, m.
@@ -257,6 +380,34 @@ mod tests {
         // ρ g h with ρ = 1000 kg/m³, h = 10 m: 98 066.5 Pa by definition of g_n.
         let p = static_pressure(Length::new::<meter>(10.0), MassDensity::new::<kilogram_per_cubic_meter>(1000.0));
         assert!((p.get::<pascal>() - 98_066.5).abs() < 1e-9);
+    }
+
+    #[test]
+    fn kv_by_the_definition() {
+        // IEC 60534: Kv is the flow in m³/h of water (ρ₀ = 1000 kg/m³) at a
+        // 1 bar drop. Kv 10 at 10 m³/h of water of 1000 kg/m³: exactly 1 bar;
+        // at 5 m³/h of a 1050 kg/m³ glycol: 0.25 × 1.05 bar = 26 250 Pa.
+        let c = Component::Kv(10.0);
+        assert!((c.drop(10.0 / 3600.0, 1000.0, 0.05, 2.0) - 1e5).abs() < 1e-6);
+        assert!((c.drop(5.0 / 3600.0, 1050.0, 0.05, 2.0) - 26_250.0).abs() < 1e-6);
+        // A coil rated 30 kPa at 2 L/s passes 3 L/s: 30 × 1.5² = 67.5 kPa.
+        let coil = Component::Rated { drop_pa: 30e3, flow_m3_s: 2e-3 };
+        assert!((coil.drop(3e-3, 998.0, 0.05, 2.0) - 67_500.0).abs() < 1e-6);
+    }
+
+    #[test]
+    fn crane_reducers_by_hand() {
+        // Sudden enlargement 50 → 100 mm (β 0.5): Borda–Carnot (1 − 0.25)² = 0.5625.
+        assert!((Component::reducer_k(0.5, 180.0, false) - 0.5625).abs() < 1e-12);
+        // 30° conical enlargement: 2.6 sin 15° × 0.5625 = 0.378523.
+        assert!((Component::reducer_k(0.5, 30.0, false) - 0.378_523).abs() < 1e-6);
+        // 30° conical contraction: 0.8 sin 15° × 0.75 = 0.155291.
+        assert!((Component::reducer_k(0.5, 30.0, true) - 0.155_291).abs() < 1e-6);
+        // Sudden contraction: 0.5 × √1 × 0.75 = 0.375.
+        assert!((Component::reducer_k(0.5, 180.0, true) - 0.375).abs() < 1e-12);
+        // Crane butterfly 6 in: 45 × 0.015 = 0.675; 12 in: 35 × 0.013 = 0.455.
+        assert!((Component::butterfly_k(6.0) - 0.675).abs() < 1e-12);
+        assert!((Component::butterfly_k(12.0) - 0.455).abs() < 1e-12);
     }
 
     #[test]

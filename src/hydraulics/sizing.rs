@@ -519,7 +519,7 @@ pub fn trace(line: &Valid, c: &Candidate) -> Vec<Step> {
         Step {
             symbol: "ΣK",
             name: "fittings",
-            formula: "Σ n (K1/Re + Ki (1 + Kd/D^0.3)) + K_extra",
+            formula: "Σ n (K1/Re + Ki (1 + Kd/Dn^0.3)) + K_extra, Dn nominal diameter in inches",
             value: p.sum_k,
             unit: "",
             source: "Darby (2001) 3-K method",
@@ -533,8 +533,20 @@ pub fn trace(line: &Valid, c: &Candidate) -> Vec<Step> {
             source: "velocity-head method",
         },
         Step {
+            symbol: "Δp_c",
+            name: "valves and equipment",
+            formula: "Kv: 10⁵ (ρ/1000) (3600 Q/Kv)²; rated: Δp_r (Q/Q_r)²; butterfly, reducer: K ρ V²/2",
+            value: p.components_drop.value,
+            unit: "Pa",
+            source: "IEC 60534-2-1 (Kv, Cv = 1.156 Kv); square law (rated); Crane TP-410 (butterfly, reducers)",
+        },
+        Step {
             symbol: "Δp_z",
-            name: "static (rise)",
+            name: if line.circuit == super::line::Circuit::Closed {
+                "static (rise) — closed loop: shown apart, not in the total"
+            } else {
+                "static (rise)"
+            },
             formula: "ρ g Δz, g = 9.80665 m/s²",
             value: p.static_drop.value,
             unit: "Pa",
@@ -543,7 +555,11 @@ pub fn trace(line: &Valid, c: &Candidate) -> Vec<Step> {
         Step {
             symbol: "Δp",
             name: "total drop",
-            formula: "Δp_f + Δp_K + Δp_z",
+            formula: if line.circuit == super::line::Circuit::Closed {
+                "Δp_f + Δp_K + Δp_c (closed loop)"
+            } else {
+                "Δp_f + Δp_K + Δp_c + Δp_z"
+            },
             value: p.total_drop.value,
             unit: "Pa",
             source: "sum",

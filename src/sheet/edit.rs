@@ -7,7 +7,7 @@
 //! - Switching a fluid or a pipe keeps what still applies (the temperature,
 //!   the material) and fills the rest with defaults marked below.
 
-use super::file::{FittingCount, FluidFile, GlycolName, LineFile, MethodName, PipeFile};
+use super::file::{ComponentFile, ComponentKind, FittingCount, FluidFile, GlycolName, LineFile, MethodName, PipeFile};
 use super::presets::Service;
 use crate::hydraulics::field::Field;
 use crate::hydraulics::losses::Fitting;
@@ -234,6 +234,43 @@ impl LineFile {
     /// Adds a row of one welded 90° elbow.
     pub fn add_fitting(&mut self) {
         self.fittings.push(FittingCount::new(Fitting::Elbow90Welded.id(), 1));
+    }
+
+    /// Adds a valve or piece of equipment (a Kv valve to start with).
+    pub fn add_component(&mut self) {
+        self.components.push(ComponentFile::default());
+    }
+
+    /// Removes a component.
+    pub fn remove_component(&mut self, row: usize) {
+        if row < self.components.len() {
+            self.components.remove(row);
+        }
+    }
+
+    /// Changes how a component is given; texts of other kinds are cleared.
+    pub fn set_component_kind(&mut self, row: usize, kind: ComponentKind) {
+        if let Some(c) = self.components.get_mut(row) {
+            if c.kind != kind {
+                *c = ComponentFile { name: std::mem::take(&mut c.name), kind, ..ComponentFile::default() };
+            }
+        }
+    }
+
+    /// Sets one text of a component, as typed: `which` is "name", "value",
+    /// "drop", "at_flow", "to_bore" or "angle".
+    pub fn set_component_text(&mut self, row: usize, which: &str, text: String) {
+        if let Some(c) = self.components.get_mut(row) {
+            match which {
+                "name" => c.name = text,
+                "value" => c.value = text,
+                "drop" => c.drop = text,
+                "at_flow" => c.at_flow = text,
+                "to_bore" => c.to_bore = text,
+                "angle" => c.angle = text,
+                _ => {}
+            }
+        }
     }
 
     /// Removes a fitting row.

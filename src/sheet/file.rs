@@ -266,6 +266,9 @@ pub struct LineFile {
     /// Counted fittings.
     #[serde(default, skip_serializing_if = "Vec::is_empty")]
     pub fittings: Vec<FittingCount>,
+    /// Valves and equipment by Kv/Cv, rated drop, butterfly valve or reducer.
+    #[serde(default, skip_serializing_if = "Vec::is_empty")]
+    pub components: Vec<ComponentFile>,
     /// Extra ΣK.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub extra_k: Option<String>,
@@ -290,6 +293,84 @@ pub struct LineFile {
     /// The smallest size the search may propose.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub smallest_size: Option<String>,
+}
+
+/// A valve or piece of equipment, as stored. Which texts count depends on
+/// the kind: `value` for Kv and Cv, `drop` and `at_flow` for a rated drop,
+/// `to_bore` and `angle` for a reducer, none for a butterfly valve.
+#[derive(Debug, Clone, PartialEq, Eq, Serialize, Deserialize, Default)]
+#[serde(deny_unknown_fields)]
+pub struct ComponentFile {
+    /// What it is, e.g. "2-way valve V-3".
+    #[serde(default)]
+    pub name: String,
+    /// How it is given.
+    pub kind: ComponentKind,
+    /// Kv (m³/h at 1 bar) or Cv (US gpm at 1 psi).
+    #[serde(default, skip_serializing_if = "String::is_empty")]
+    pub value: String,
+    /// The rated drop.
+    #[serde(default, skip_serializing_if = "String::is_empty")]
+    pub drop: String,
+    /// The flow the drop was rated at.
+    #[serde(default, skip_serializing_if = "String::is_empty")]
+    pub at_flow: String,
+    /// The bore the flow goes to (mm unless typed).
+    #[serde(default, skip_serializing_if = "String::is_empty")]
+    pub to_bore: String,
+    /// Included angle in degrees; empty means a sudden change (180°).
+    #[serde(default, skip_serializing_if = "String::is_empty")]
+    pub angle: String,
+}
+
+/// How a component is given.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize, Deserialize, Default)]
+#[serde(rename_all = "lowercase")]
+pub enum ComponentKind {
+    /// Flow coefficient Kv.
+    #[default]
+    Kv,
+    /// Flow coefficient Cv.
+    Cv,
+    /// A drop at a rated flow.
+    Rated,
+    /// A centric butterfly valve, open.
+    Butterfly,
+    /// A reducer or enlargement.
+    Reducer,
+}
+
+impl ComponentKind {
+    /// Every kind, in listing order.
+    pub const ALL: [ComponentKind; 5] =
+        [ComponentKind::Kv, ComponentKind::Cv, ComponentKind::Rated, ComponentKind::Butterfly, ComponentKind::Reducer];
+
+    /// Its id in files.
+    pub fn id(self) -> &'static str {
+        match self {
+            ComponentKind::Kv => "kv",
+            ComponentKind::Cv => "cv",
+            ComponentKind::Rated => "rated",
+            ComponentKind::Butterfly => "butterfly",
+            ComponentKind::Reducer => "reducer",
+        }
+    }
+
+    /// The kind of an id.
+    pub fn from_id(id: &str) -> Option<ComponentKind> {
+        ComponentKind::ALL.into_iter().find(|k| k.id() == id)
+    }
+
+    /// A plain name.
+    pub fn label(self) -> &'static str {
+        match self {
+            ComponentKind::Kv => "Valve by Kv (m³/h at 1 bar)",
+            ComponentKind::Cv => "Valve by Cv (US gpm at 1 psi)",
+            ComponentKind::Rated => "Equipment by drop at a rated flow (coil, exchanger, meter, strainer …)",
+            ComponentKind::Butterfly => "Butterfly valve, centric, open (Crane)",
+            ComponentKind::Reducer => "Reducer or enlargement to another bore",
+        }
+    }
 }
 
 fn is_false(b: &bool) -> bool {
@@ -530,7 +611,7 @@ impl std::fmt::Display for Limit {
         match self {
             Limit::Lines(n) => write!(f, "it has {n} lines; a worksheet may have at most {MAX_LINES}"),
             Limit::FittingRows { line, rows } => {
-                write!(f, "line {line} has {rows} fitting rows; a line may have at most {MAX_FITTING_ROWS}")
+                write!(f, "line {line} has {rows} fitting or component rows; a line may have at most {MAX_FITTING_ROWS} of each")
             }
             Limit::Text { line: Some(line), field, chars } => {
                 write!(f, "line {line}'s {field} is {chars} characters long; a field may hold at most {MAX_TEXT_CHARS}")
@@ -624,6 +705,9 @@ impl SheetFile {
             if l.fittings.len() > MAX_FITTING_ROWS {
                 return Err(SheetError::Limit(Limit::FittingRows { line: i + 1, rows: l.fittings.len() }));
             }
+            if l.components.len() > MAX_FITTING_ROWS {
+                return Err(SheetError::Limit(Limit::FittingRows { line: i + 1, rows: l.components.len() }));
+            }
             let mut err = None;
             l.each_text(&mut |field, text| {
                 if err.is_none() {
@@ -682,6 +766,14 @@ impl LineFile {
         for fc in &self.fittings {
             visit("fittings.fitting", &fc.fitting);
             visit("fittings.count", &fc.count);
+        }
+        for c in &self.components {
+            visit("components.name", &c.name);
+            visit("components.value", &c.value);
+            visit("components.drop", &c.drop);
+            visit("components.at_flow", &c.at_flow);
+            visit("components.to_bore", &c.to_bore);
+            visit("components.angle", &c.angle);
         }
         let optional = [
             ("roughness", &self.roughness),

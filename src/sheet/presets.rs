@@ -86,6 +86,7 @@ impl Service {
             aged: false,
             length: String::new(),
             fittings: Vec::new(),
+            components: Vec::new(),
             extra_k: None,
             equivalent_length: None,
             rise: None,

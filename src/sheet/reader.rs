@@ -17,13 +17,13 @@ use uom::si::thermodynamic_temperature::kelvin;
 use uom::si::velocity::meter_per_second;
 use uom::si::volume_rate::cubic_meter_per_second;
 
-use super::file::{FieldError, FluidFile, LineFile, MethodName, PipeFile, Units};
+use super::file::{ComponentKind, FieldError, FluidFile, LineFile, MethodName, PipeFile, Units};
 use super::number::{parse_count, parse_decimal};
 use super::units::{self, Dimension, Unit};
 use crate::hydraulics::field::Field;
 use crate::hydraulics::fluid::{Fluid, Properties};
 use crate::hydraulics::line::{pa_per_m, Limits, Line, Method, Pipe, Valid};
-use crate::hydraulics::losses::{Fitting, Fittings};
+use crate::hydraulics::losses::{Component, Fitting, Fittings, CV_PER_KV};
 use crate::hydraulics::pipes::{self, Material};
 
 /// Atmospheric pressure where none is given: the standard atmosphere,
@@ -251,6 +251,88 @@ impl Reader<'_> {
         }
     }
 
+    /// One text of a component: `None` (with an error naming the component)
+    /// when it is empty or wrong.
+    #[allow(clippy::too_many_arguments)]
+    fn component_value(
+        &mut self,
+        who: &str,
+        what: &str,
+        text: &str,
+        dim: Dimension,
+        unit: &'static Unit,
+        rho: Option<f64>,
+    ) -> Option<f64> {
+        if text.trim().is_empty() {
+            self.fail(Field::Components, format!("{who}: enter the {what}"));
+            return None;
+        }
+        let got = units::parse(dim, text, unit).and_then(|m| {
+            if m.unit.reference().is_some() {
+                return Err(units::UnitError::UnknownUnit { dimension: dim, unit: m.unit.symbol.to_owned() });
+            }
+            m.to_si(rho)
+        });
+        match got {
+            Ok(v) if v.is_finite() && v > 0.0 => Some(v),
+            Ok(_) => {
+                self.fail(Field::Components, format!("{who}: the {what} must be greater than zero"));
+                None
+            }
+            Err(e) => {
+                self.fail(Field::Components, format!("{who}: {what}: {e}"));
+                None
+            }
+        }
+    }
+
+    /// The line's valves and equipment; `None` when any is wrong (each
+    /// reported, naming the component).
+    fn components(&mut self, lf: &LineFile, rho: Option<f64>) -> Option<Vec<Component>> {
+        let mut out = Vec::with_capacity(lf.components.len());
+        let mut ok = true;
+        let u = self.units;
+        let mm = units::find(Dimension::Length, "mm").expect("mm is a length unit");
+        for (i, c) in lf.components.iter().enumerate() {
+            let who = if c.name.trim().is_empty() {
+                format!("component {}", i + 1)
+            } else {
+                format!("component {} ({})", i + 1, c.name.trim())
+            };
+            let number = |r: &mut Self, what: &str, text: &str| match parse_decimal(text) {
+                Ok(v) if v.is_finite() && v > 0.0 => Some(v),
+                Ok(_) => {
+                    r.fail(Field::Components, format!("{who}: the {what} must be greater than zero"));
+                    None
+                }
+                Err(e) => {
+                    r.fail(Field::Components, format!("{who}: {what}: {e}"));
+                    None
+                }
+            };
+            let got = match c.kind {
+                ComponentKind::Kv => number(self, "Kv", &c.value).map(Component::Kv),
+                ComponentKind::Cv => number(self, "Cv", &c.value).map(|cv| Component::Kv(cv / CV_PER_KV)),
+                ComponentKind::Rated => {
+                    let drop = self.component_value(&who, "rated drop", &c.drop, Dimension::Pressure, u.pressure, rho);
+                    let flow = self.component_value(&who, "rated flow", &c.at_flow, Dimension::Flow, u.flow, rho);
+                    drop.zip(flow).map(|(drop_pa, flow_m3_s)| Component::Rated { drop_pa, flow_m3_s })
+                }
+                ComponentKind::Butterfly => Some(Component::Butterfly),
+                ComponentKind::Reducer => {
+                    let to = self.component_value(&who, "other bore", &c.to_bore, Dimension::Length, mm, None);
+                    let angle = if c.angle.trim().is_empty() { Some(180.0) } else { number(self, "angle", &c.angle) };
+                    to.zip(angle).map(|(to_bore_m, angle_deg)| Component::Reducer { to_bore_m, angle_deg })
+                }
+            };
+            match got {
+                Some(c) => out.push(c),
+                None => ok = false,
+            }
+        }
+        ok.then_some(out)
+    }
+
     fn limits(&mut self, lf: &LineFile, rho: Option<f64>) -> Limits {
         let (lim, u) = (&lf.limits, self.units);
         let limits = Limits {
@@ -310,6 +392,7 @@ impl LineFile {
         let roughness = r.roughness(self, material);
         let length = r.length(&self.length);
         let counts = r.fittings(self);
+        let components = r.components(self, rho);
         let extra_k = match self.extra_k.as_deref().map(str::trim) {
             None | Some("") => Some(0.0),
             Some(t) => r.number(Field::ExtraK, t),
@@ -342,6 +425,7 @@ impl LineFile {
                 length: Length::new::<meter>(length?),
                 fittings: Fittings {
                     counts,
+                    components: components?,
                     extra_k: extra_k?,
                     equivalent_length: equivalent_length.map(Length::new::<meter>),
                 },

@@ -169,13 +169,22 @@ pub fn verdict_text(line: &Valid, s: &Sizing, u: &Units) -> String {
     let name = |i: usize| designation(line, s.candidates[i].nominal);
     let names = |ls: &[Limit]| ls.iter().map(|l| l.name()).collect::<Vec<_>>().join(", ");
     match &s.verdict {
-        Verdict::Proposed { below: Some(b), .. } => format!(
-            "governed by {}: {} runs at {} (limit {})",
-            b.check.limit.name(),
-            name(b.index),
-            limit_value(b.check.limit, b.check.value, u, rho),
-            limit_value(b.check.limit, b.check.allowed, u, rho)
-        ),
+        Verdict::Proposed { index, below: Some(b) } => {
+            let passed_over: Vec<String> = (b.index + 1..*index)
+                .filter_map(|i| s.candidates[i].skipped.map(|k| format!("{} {}", name(i), k.reason())))
+                .collect();
+            let mut t = format!(
+                "governed by {}: {} runs at {} (limit {})",
+                b.check.limit.name(),
+                name(b.index),
+                limit_value(b.check.limit, b.check.value, u, rho),
+                limit_value(b.check.limit, b.check.allowed, u, rho)
+            );
+            if !passed_over.is_empty() {
+                t.push_str(&format!("; {}", passed_over.join("; ")));
+            }
+            t
+        }
         Verdict::Proposed { index, below: None } => {
             format!("{} is the smallest size searched, and it meets every limit", name(*index))
         }
@@ -224,6 +233,9 @@ pub struct Figures {
     pub friction_drop: String,
     /// Fittings and other K losses, with its unit.
     pub fittings_drop: String,
+    /// Valves and equipment by Kv, rated drop, butterfly or reducer, with
+    /// its unit ("" when the line has none).
+    pub components_drop: String,
     /// The static part ρ g Δz, with its unit.
     pub static_drop: String,
     /// Whether the static part is in the total (an open system).
@@ -269,6 +281,11 @@ impl Figures {
             total_drop: show(p.total_drop.value, u.pressure, Some(rho), 3),
             friction_drop: show(p.friction_drop.value, u.pressure, Some(rho), 3),
             fittings_drop: show(p.fittings_drop.value, u.pressure, Some(rho), 3),
+            components_drop: if c.point.components_drop.value == 0.0 {
+                String::new()
+            } else {
+                show(p.components_drop.value, u.pressure, Some(rho), 3)
+            },
             static_drop: show(p.static_drop.value, u.pressure, Some(rho), 3),
             static_in_total: u.basis.circuit == Circuit::Open,
             reynolds: format_number(p.reynolds, 3),
@@ -295,7 +312,7 @@ impl Figures {
     }
 }
 
-const COLUMNS: usize = 15;
+const COLUMNS: usize = 16;
 
 /// A table row with only a status and a note (no size to report).
 fn status_row(r: &LineReport, status: &str, note: String) -> [String; COLUMNS] {
@@ -303,7 +320,7 @@ fn status_row(r: &LineReport, status: &str, note: String) -> [String; COLUMNS] {
     row[0] = r.number.to_string();
     row[1] = r.name.clone();
     row[2] = status.to_owned();
-    row[14] = note;
+    row[15] = note;
     row
 }
 
@@ -362,6 +379,7 @@ fn table_row(r: &LineReport, u: &Units, notes: &mut Vec<String>) -> [String; COL
                 f.drop_per_length,
                 f.friction_drop,
                 f.fittings_drop,
+                f.components_drop,
                 static_drop,
                 f.total_drop,
                 f.reynolds,
@@ -399,6 +417,7 @@ pub fn table(sheet: &SheetFile, reports: &[LineReport]) -> String {
         "drop/length",
         "friction",
         "fittings",
+        "components",
         "static",
         "total drop",
         "Re",
@@ -452,8 +471,8 @@ pub fn csv(sheet: &SheetFile, reports: &[LineReport]) -> String {
     let mut out = String::new();
     let p = u.pressure.symbol;
     out.push_str(&format!(
-        "line,name,status,size,bore,velocity ({}),drop per length ({}),friction ({p}),fittings ({p}),static ({p}),\
-         static in total,total drop ({p}),Re,f,regime,least headroom,headroom %,verdict,message\n",
+        "line,name,status,size,bore,velocity ({}),drop per length ({}),friction ({p}),fittings ({p}),components ({p}),\
+         static ({p}),static in total,total drop ({p}),Re,f,regime,least headroom,headroom %,verdict,message\n",
         u.velocity.symbol, u.drop_per_length.symbol
     ));
     for r in reports {
@@ -471,7 +490,7 @@ pub fn csv(sheet: &SheetFile, reports: &[LineReport]) -> String {
                         .map(|k| format!("{:.1}", k.headroom * 100.0))
                         .unwrap_or_default();
                     out.push_str(&format!(
-                        "{},{name},{},{},{} mm,{},{},{},{},{},{},{},{},{},{},{},{headroom},{},{}\n",
+                        "{},{name},{},{},{} mm,{},{},{},{},{},{},{},{},{},{},{},{},{headroom},{},{}\n",
                         r.number,
                         status_words(o, c),
                         csv_field(&designation(&o.line, c.nominal)),
@@ -480,6 +499,7 @@ pub fn csv(sheet: &SheetFile, reports: &[LineReport]) -> String {
                         conv(pt.drop_per_length.value, u.drop_per_length, rho, 4),
                         conv(pt.friction_drop.value, u.pressure, rho, 4),
                         conv(pt.fittings_drop.value, u.pressure, rho, 4),
+                        conv(pt.components_drop.value, u.pressure, rho, 4),
                         conv(pt.static_drop.value, u.pressure, rho, 4),
                         if u.basis.circuit == Circuit::Open { "yes" } else { "no" },
                         conv(pt.total_drop.value, u.pressure, rho, 4),
@@ -493,7 +513,7 @@ pub fn csv(sheet: &SheetFile, reports: &[LineReport]) -> String {
                 }
                 None => {
                     out.push_str(&format!(
-                        "{},{name},no size meets the limits,,,,,,,,,,,,,,,{},{}\n",
+                        "{},{name},no size meets the limits,,,,,,,,,,,,,,,,{},{}\n",
                         r.number,
                         csv_field(&o.verdict),
                         csv_field(&o.sizing.warnings.join("; "))
@@ -502,7 +522,7 @@ pub fn csv(sheet: &SheetFile, reports: &[LineReport]) -> String {
             },
             Err(errs) => {
                 let msg: Vec<String> = errs.iter().map(|e| e.to_string()).collect();
-                out.push_str(&format!("{},{name},error,,,,,,,,,,,,,,,,{}\n", r.number, csv_field(&msg.join("; "))));
+                out.push_str(&format!("{},{name},error,,,,,,,,,,,,,,,,,{}\n", r.number, csv_field(&msg.join("; "))));
             }
         }
     }
@@ -522,6 +542,7 @@ struct JsonCandidate<'a> {
     drop_per_length_pa_m: f64,
     friction_drop_pa: f64,
     fittings_drop_pa: f64,
+    components_drop_pa: f64,
     static_drop_pa: f64,
     total_drop_pa: f64,
     meets_limits: bool,
@@ -595,6 +616,7 @@ pub fn json(sheet: &SheetFile, reports: &[LineReport]) -> String {
                         drop_per_length_pa_m: c.point.drop_per_length.value,
                         friction_drop_pa: c.point.friction_drop.value,
                         fittings_drop_pa: c.point.fittings_drop.value,
+                        components_drop_pa: c.point.components_drop.value,
                         static_drop_pa: c.point.static_drop.value,
                         total_drop_pa: c.point.total_drop.value,
                         meets_limits: c.passes(),

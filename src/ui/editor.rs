@@ -18,8 +18,9 @@ use crate::sheet::units::{self, Dimension};
 
 /// The fields whose errors the editor shows beside an input (each fitting
 /// row checks its own count); the others are listed at the top.
-pub const BESIDE_INPUTS: [Field; 22] = [
+pub const BESIDE_INPUTS: [Field; 23] = [
     Field::SmallestSize,
+    Field::Components,
     Field::FittingCount,
     Field::Flow,
     Field::Fluid,
@@ -237,6 +238,7 @@ fn RunFields() -> impl IntoView {
             <LineText field=Field::Length label="Length of straight pipe" id="length" unit=Dimension::Length/>
             <LineText field=Field::Rise label="Rise, end above start (negative for a fall)" id="rise" unit=Dimension::Length placeholder="0"/>
             <FittingList/>
+            <ComponentList/>
             <LineText field=Field::ExtraK label="Extra ΣK" id="extra-k" placeholder="0"/>
             <LineText field=Field::EquivalentLength label="Equivalent length for other losses" id="equivalent-length" unit=Dimension::Length placeholder="0"/>
         </fieldset>
@@ -284,6 +286,71 @@ fn MethodFields() -> impl IntoView {
                 <LineText field=Field::HazenWilliamsC label="Hazen–Williams C" id="hw-c" placeholder=hw_hint/>
             })}
         </fieldset>
+    }
+}
+
+/// Valves and equipment given as the trade gives them: Kv or Cv, a drop at
+/// a rated flow, a butterfly valve, a reducer.
+#[component]
+fn ComponentList() -> impl IntoView {
+    use crate::sheet::file::ComponentKind;
+    let line = expect_context::<Slot>();
+    let file = line.file;
+    let rows = move || {
+        file.with(|f| {
+            let n = f.components.len();
+            f.components.iter().map(|c| c.kind).enumerate().map(|(i, k)| (n, i, k)).collect::<Vec<_>>()
+        })
+    };
+    let text = move |i: usize, which: &'static str, label: &'static str, hint: &'static str| {
+        let value = move || {
+            file.with(|f| {
+                f.components
+                    .get(i)
+                    .map(|c| match which {
+                        "name" => c.name.clone(),
+                        "value" => c.value.clone(),
+                        "drop" => c.drop.clone(),
+                        "at_flow" => c.at_flow.clone(),
+                        "to_bore" => c.to_bore.clone(),
+                        _ => c.angle.clone(),
+                    })
+                    .unwrap_or_default()
+            })
+        };
+        view! {
+            <label class="component-field">{label}
+                <input type="text" data-testid=format!("component-{i}-{which}") placeholder=hint prop:value=value
+                    on:input=move |ev| { let t = event_target_value(&ev); file.update(|f| f.set_component_text(i, which, t)) }/>
+            </label>
+        }
+    };
+    view! {
+        <div class="fittings components" data-testid="components">
+            <span class="label">"Valves and equipment (Kv/Cv, rated drop, butterfly, reducer)"</span>
+            <For each=rows key=|r| *r children=move |(_, i, kind)| view! {
+                <div class="component-row">
+                    <select aria-label="component kind" data-testid=format!("component-{i}-kind")
+                        on:change=move |ev| { if let Some(k) = ComponentKind::from_id(&event_target_value(&ev)) { file.update(|f| f.set_component_kind(i, k)) } }>
+                        {ComponentKind::ALL.map(|k| view! { <option value=k.id() selected=k == kind>{k.label()}</option> }).collect_view()}
+                    </select>
+                    {text(i, "name", "Name", "e.g. CV-3")}
+                    {match kind {
+                        ComponentKind::Kv => text(i, "value", "Kv", "m³/h at 1 bar").into_any(),
+                        ComponentKind::Cv => text(i, "value", "Cv", "US gpm at 1 psi").into_any(),
+                        ComponentKind::Rated => view! { {text(i, "drop", "Drop", "e.g. 30 kPa")}{text(i, "at_flow", "at flow", "e.g. 2 L/s")} }.into_any(),
+                        ComponentKind::Butterfly => view! { <span class="hint">"K = c·fT by size (Crane TP-410)"</span> }.into_any(),
+                        ComponentKind::Reducer => view! { {text(i, "to_bore", "To bore", "mm unless typed")}{text(i, "angle", "Angle °", "180 if sudden")} }.into_any(),
+                    }}
+                    <button type="button" class="quiet" aria-label="remove this component"
+                        on:click=move |_| file.update(|f| f.remove_component(i))>"✕"</button>
+                </div>
+            }/>
+            <span class="field-error" data-testid="components-error" aria-live="polite">{move || errors_for(line.report, Field::Components).get()}</span>
+            <button type="button" class="quiet" data-testid="add-component" on:click=move |_| file.update(|f| f.add_component())>
+                "+ Add a valve or equipment"
+            </button>
+        </div>
     }
 }
 

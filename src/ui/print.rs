@@ -7,7 +7,7 @@ use leptos::prelude::*;
 use super::state::{after, listen, Sheet, Slot};
 use crate::hydraulics::line::{Method, Pipe};
 use crate::hydraulics::losses::Fitting;
-use crate::sheet::file::{FluidFile, LineFile, PipeFile};
+use crate::sheet::file::{ComponentKind, FluidFile, LineFile, PipeFile};
 use crate::sheet::library::display_name;
 use crate::sheet::report::{circuit_note, designation, CAUTION};
 use crate::sheet::units::format_number;
@@ -20,7 +20,8 @@ pub const SOURCES: &[&str] = &[
     "Friction factor: laminar 64/Re; Colebrook (1939), J. ICE 11, solved exactly; transition zone 2000–4000 taken at the turbulent value and flagged.",
     "Pressure drop: Darcy–Weisbach; Hazen–Williams (Williams & Hazen, Hydraulic Tables) where chosen, for water near room temperature only.",
     "Fittings: Darby (2001) 3-K method, Chem. Eng. 108(4); entrance 0.5 and exit 1.0 (Crane TP-410, common practice).",
-    "Pipe dimensions: ASME B36.10M, B36.19M; ASTM B88, D1785; EN 10255; ISO 4065 / EN 12201-2.",
+    "Pipe dimensions: ASME B36.10M, B36.19M; ASTM B88, D1785; EN 10255; EN 1057; ISO 4065 / EN 12201-2. Plastic bores on the mean wall (minimum plus half the tolerance: ASTM D1785; ISO 11922-1 grade V).",
+    "Valves and equipment: Kv/Cv by IEC 60534-2-1 (Cv = 1.156 Kv, ρ₀ = 1000 kg/m³); rated drops scaled by (Q/Q_r)²; butterfly valves and reducers by Crane TP-410.",
     "Roughness: Moody (1944); Idelchik, Handbook of Hydraulic Resistance; common practice where marked.",
     "Units: NIST SP 811 (2008); g = 9.80665 m/s².",
 ];
@@ -28,7 +29,13 @@ pub const SOURCES: &[&str] = &[
 fn fluid_text(f: &LineFile) -> String {
     match &f.fluid {
         FluidFile::Water { temperature, pressure } => {
-            format!("water at {temperature}, {} absolute", pressure.clone().unwrap_or_else(|| "101.325 kPa".into()))
+            let p = pressure.clone().unwrap_or_else(|| "101.325 kPa".into());
+            let marked = ["barg", "psig", "bara", "psia"].iter().any(|u| p.trim().to_lowercase().ends_with(u));
+            if marked {
+                format!("water at {temperature}, {p} (gauge taken against 101.325 kPa)")
+            } else {
+                format!("water at {temperature}, {p} absolute")
+            }
         }
         FluidFile::Glycol { glycol, percent, temperature } => {
             format!("{percent} % {glycol:?} glycol in water at {temperature}").to_lowercase()
@@ -85,6 +92,35 @@ fn PrintLine(line: Slot, number: usize, stamp: RwSignal<u32>) -> impl IntoView {
                 },
             ),
             (
+                "Valves and equipment",
+                if f.components.is_empty() {
+                    "none".into()
+                } else {
+                    f.components
+                        .iter()
+                        .map(|c| {
+                            let what = match c.kind {
+                                ComponentKind::Kv => format!("Kv {}", c.value),
+                                ComponentKind::Cv => format!("Cv {}", c.value),
+                                ComponentKind::Rated => format!("{} at {}", c.drop, c.at_flow),
+                                ComponentKind::Butterfly => "butterfly valve (Crane)".to_owned(),
+                                ComponentKind::Reducer => format!(
+                                    "to bore {}, {}°",
+                                    c.to_bore,
+                                    if c.angle.trim().is_empty() { "180" } else { c.angle.as_str() }
+                                ),
+                            };
+                            if c.name.is_empty() {
+                                what
+                            } else {
+                                format!("{}: {what}", c.name)
+                            }
+                        })
+                        .collect::<Vec<_>>()
+                        .join("; ")
+                },
+            ),
+            (
                 "Extra ΣK / equivalent length",
                 format!(
                     "{} / {}",
@@ -125,7 +161,7 @@ fn PrintLine(line: Slot, number: usize, stamp: RwSignal<u32>) -> impl IntoView {
                         let c = &o.sizing.candidates[i];
                         let f = o.figures.clone().expect("a shown size has its figures");
                         format!(
-                            "{} {}: velocity {}, drop per length {}, total drop {} (friction {} + fittings {}{}), Re {}, f {}{}",
+                            "{} {}: velocity {}, drop per length {}, total drop {} (friction {} + fittings {}{}{}), Re {}, f {}{}",
                             if o.checked { "Checked size" } else { "Proposed size" },
                             designation(&o.line, f.size),
                             f.velocity,
@@ -133,6 +169,7 @@ fn PrintLine(line: Slot, number: usize, stamp: RwSignal<u32>) -> impl IntoView {
                             f.total_drop,
                             f.friction_drop,
                             f.fittings_drop,
+                            if f.components_drop.is_empty() { String::new() } else { format!(" + valves and equipment {}", f.components_drop) },
                             if f.static_in_total { format!(" + static {}", f.static_drop) } else { format!("; static {} apart, closed loop", f.static_drop) },
                             f.reynolds,
                             f.friction,

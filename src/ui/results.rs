@@ -81,6 +81,7 @@ fn Answer(o: Outcome) -> impl IntoView {
                     </dl>
                     <p class="breakdown" data-testid="answer-breakdown">
                         {format!("Friction {} + fittings {}", fig.friction_drop, fig.fittings_drop)}
+                        {(!fig.components_drop.is_empty()).then(|| format!(" + valves and equipment {}", fig.components_drop))}
                         {if fig.static_in_total { format!(" + static {}", fig.static_drop) } else { format!("; static {} shown apart (closed loop)", fig.static_drop) }}
                     </p>
                     {(!o.checked).then(|| view! { <p class="verdict-line" data-testid="answer-verdict">{verdict}</p> })}

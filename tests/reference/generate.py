@@ -108,6 +108,25 @@ for sid, flow_m3s, t_c in [("steel-std", 0.45, 7.0), ("steel-std", 1.8, 12.0), (
     mains.append({"series": sid, "flow_m3_s": flow_m3s, "t_c": t_c, "drop_pa_m": sizes})
 dump("mains.json", {"versions": versions, "cases": mains})
 
+# Crane TP-410 forms in fluids: butterfly valves (centric) and fT at Sch 40
+# bores, conical and sudden contractions and enlargements, Kv/Cv.
+from fluids.fittings import K_butterfly_valve_Crane, contraction_conical_Crane, diffuser_conical, Kv_to_Cv, ft_Crane
+crane = {"butterfly": {}, "ft": {}, "reducers": [], "cv_per_kv": Kv_to_Cv(1.0)}
+for name, nps in nps_values.items():
+    if nps < 2 or nps > 24:
+        continue
+    got_nps, di, do, t = nearest_pipe(NPS=nps, schedule="40" if nps not in (22,) else "STD")
+    crane["butterfly"][name] = K_butterfly_valve_Crane(di, style=0)
+    crane["ft"][name] = ft_Crane(di)
+for beta in [0.3, 0.5, 0.7, 0.9]:
+    for angle in [10.0, 30.0, 44.0, 60.0, 90.0, 180.0]:
+        crane["reducers"].append({
+            "beta": beta, "angle": angle,
+            "contraction": contraction_conical_Crane(0.1, 0.1 * beta, angle=angle),
+            "enlargement": diffuser_conical(0.1 * beta, 0.1, angle=angle, method="Crane"),
+        })
+dump("crane.json", {"versions": versions, **crane})
+
 # Darby 3-K constants, by fluids' name for each row.
 dump("darby.json", {"versions": versions, "rows": {k: list(v) for k, v in Darby.items()}})
 
