@@ -22,6 +22,10 @@ fn the_docs_list_every_series_material_fitting_and_field_id() {
     assert_eq!(listed("fitting ids"), Fitting::ALL.map(Fitting::id));
     assert_eq!(listed("field paths"), Field::ALL.map(Field::path));
     assert_eq!(
+        listed("velocity rules"),
+        headroom::hydraulics::velocity::RULES.iter().map(|r| r.id).collect::<Vec<_>>()
+    );
+    assert_eq!(
         listed("component kinds"),
         headroom::sheet::file::ComponentKind::ALL.map(headroom::sheet::file::ComponentKind::id)
     );

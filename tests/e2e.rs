@@ -34,6 +34,7 @@ fn typed_line() -> LineFile {
             max_total_drop: None,
             max_velocity: Some("2.4".into()),
             min_velocity: None,
+            velocity_by_size: Some("hydronic".into()),
         },
         check_size: None,
         smallest_size: None,

@@ -8,6 +8,7 @@ use headroom::hydraulics::line::{pa_per_m, Circuit, Limits, Line, Method, Pipe};
 use headroom::hydraulics::losses::{Component, Fitting, Fittings};
 use headroom::hydraulics::pipes::{self, SERIES};
 use headroom::hydraulics::sizing;
+use headroom::hydraulics::velocity;
 use headroom::sheet::file::SheetFile;
 use headroom::sheet::units::{self, format_number, from_si, Dimension, UNITS};
 use proptest::prelude::*;
@@ -145,6 +146,7 @@ proptest! {
                 max_total_drop: Some(Pressure::new::<pascal>(lim * 100.0)),
                 max_velocity: Some(Velocity::new::<meter_per_second>(lim)),
                 min_velocity: None,
+                velocity_by_size: if hw { velocity::rule("hydronic") } else { None },
             },
             circuit: if rise > 0.0 { Circuit::Closed } else { Circuit::Open },
             freeze_margin: 3.0,

@@ -248,3 +248,34 @@ fn water_above_the_pressure_range_is_a_range_message_not_boiling() {
     assert!(e.iter().any(|e| e.message.contains("above the 10 MPa")), "{e:?}");
     assert!(!e.iter().any(|e| e.message.contains("boils")), "{e:?}");
 }
+
+#[test]
+fn a_velocity_limit_can_depend_on_the_size() {
+    // 1.5 L/s of water in Sch 40 steel (ASME B36.10M bores). By hand,
+    // V = Q / (π/4 D²): 1 in (1.049 in = 26.64 mm) 2.69 m/s; 1-1/4 in
+    // (1.380 in = 35.05 mm) 1.555 m/s; 1-1/2 in (1.610 in = 40.89 mm)
+    // 1.142 m/s. A flat 2.4 m/s takes 1-1/4 in; the "hydronic" table (common
+    // practice: 1.2 m/s up to 1-1/2 in) takes 1-1/2 in, and the 1-1/4 in
+    // size fails it at 1.2 m/s, not at 2.4.
+    let line = |limits: &str| {
+        format!(
+            r#""flow":"1.5 L/s",{WATER_20},"pipe":{{"series":"steel-sch40"}},"length":"30 m","limits":{{{limits}}}"#
+        )
+    };
+    assert_eq!(ok("", &line(r#""max_velocity":"2.4 m/s""#)).sizing.proposal().unwrap().nominal, "1-1/4");
+    let o = ok("", &line(r#""max_velocity":"2.4 m/s","velocity_by_size":"hydronic""#));
+    assert_eq!(o.sizing.proposal().unwrap().nominal, "1-1/2");
+    let below = o.sizing.candidates.iter().find(|c| c.nominal == "1-1/4").unwrap();
+    let k = below.checks.iter().find(|k| k.limit.name() == "maximum velocity").unwrap();
+    assert_eq!(k.allowed, 1.2);
+    assert!((k.value - 1.555).abs() < 0.002, "{}", k.value);
+    assert!(
+        o.verdict.starts_with("governed by maximum velocity: NPS 1-1/4 runs at 1.55 m/s (limit 1.20 m/s)"),
+        "{}",
+        o.verdict
+    );
+    // The table alone is a maximum: enough to size with.
+    assert!(outcome("", &line(r#""velocity_by_size":"copper-cold""#)).is_ok());
+    let e = errors("", &line(r#""velocity_by_size":"fast""#));
+    assert_eq!(e[0].field, Field::VelocityBySize);
+}

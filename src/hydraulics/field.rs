@@ -65,6 +65,8 @@ pub enum Field {
     MaxVelocity,
     /// Smallest velocity.
     MinVelocity,
+    /// The velocity-by-size table.
+    VelocityBySize,
     /// Check mode's pinned size.
     CheckSize,
     /// Valves and equipment by Kv, rated drop, butterfly valve or reducer.
@@ -89,7 +91,7 @@ pub enum Field {
 
 impl Field {
     /// Every field, in the order of the sheet file.
-    pub const ALL: [Field; 37] = [
+    pub const ALL: [Field; 38] = [
         Field::Line,
         Field::Name,
         Field::Flow,
@@ -117,6 +119,7 @@ impl Field {
         Field::MaxTotalDrop,
         Field::MaxVelocity,
         Field::MinVelocity,
+        Field::VelocityBySize,
         Field::CheckSize,
         Field::Components,
         Field::SmallestSize,
@@ -159,6 +162,7 @@ impl Field {
             Field::MaxTotalDrop => "limits.max_total_drop",
             Field::MaxVelocity => "limits.max_velocity",
             Field::MinVelocity => "limits.min_velocity",
+            Field::VelocityBySize => "limits.velocity_by_size",
             Field::CheckSize => "check_size",
             Field::Components => "components",
             Field::SmallestSize => "smallest_size",
@@ -200,6 +204,7 @@ impl Field {
             Field::MaxTotalDrop => "total-drop limit",
             Field::MaxVelocity => "maximum velocity",
             Field::MinVelocity => "minimum velocity",
+            Field::VelocityBySize => "velocity by size",
             Field::CheckSize => "checked size",
             Field::Components => "component",
             Field::SmallestSize => "smallest size",

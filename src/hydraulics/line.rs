@@ -130,6 +130,20 @@ pub struct Limits {
     pub max_velocity: Option<Velocity>,
     /// Smallest mean velocity (to keep air or solids moving).
     pub min_velocity: Option<Velocity>,
+    /// A largest velocity that depends on the size.
+    pub velocity_by_size: Option<&'static super::velocity::VelocityRule>,
+}
+
+impl Limits {
+    /// The largest velocity allowed in a size of nominal diameter `dn_in`
+    /// inches: the lower of the line's maximum and its by-size table.
+    pub fn max_velocity_at(&self, dn_in: f64) -> Option<f64> {
+        let by_size = self.velocity_by_size.map(|r| r.max_at(dn_in));
+        match (self.max_velocity.map(|v| v.value), by_size) {
+            (Some(a), Some(b)) => Some(a.min(b)),
+            (a, b) => a.or(b),
+        }
+    }
 }
 
 /// One of the limits.
@@ -451,7 +465,11 @@ impl Line {
                 positive(v, what)?;
             }
         }
-        if l.max_drop_per_length.is_none() && l.max_total_drop.is_none() && l.max_velocity.is_none() {
+        if l.max_drop_per_length.is_none()
+            && l.max_total_drop.is_none()
+            && l.max_velocity.is_none()
+            && l.velocity_by_size.is_none()
+        {
             return Err(LineError::NoMaximum);
         }
         within(self.freeze_margin, Field::FluidTemperature, "freezing margin (K)", 0.0, 20.0)?;

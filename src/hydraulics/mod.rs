@@ -12,3 +12,4 @@ pub mod line;
 pub mod losses;
 pub mod pipes;
 pub mod sizing;
+pub mod velocity;

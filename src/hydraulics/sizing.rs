@@ -164,8 +164,13 @@ pub fn judge(line: &Line, p: &Point) -> (Vec<Check>, Option<Limit>) {
     if let Some(dp) = l.max_total_drop {
         checks.push(max(Limit::TotalDrop, p.total_drop.value, dp.value));
     }
-    if let Some(v) = l.max_velocity {
-        checks.push(max(Limit::MaxVelocity, p.velocity.value, v.value));
+    let v_max = if l.velocity_by_size.is_some() {
+        l.max_velocity_at(line.pipe.darby_diameter_in(p.bore))
+    } else {
+        l.max_velocity.map(|v| v.value)
+    };
+    if let Some(v) = v_max {
+        checks.push(max(Limit::MaxVelocity, p.velocity.value, v));
     }
     if let Some(v) = l.min_velocity {
         checks.push(Check {
@@ -386,8 +391,8 @@ pub fn capacity(line: &Valid, bore: Length) -> Result<Capacity, LineError> {
     };
     let flow = |q: f64| VolumeRate::new::<cubic_meter_per_second>(q);
     let start = (area * Velocity::new::<uom::si::velocity::meter_per_second>(1.0)).value;
-    if let Some(v) = l.max_velocity {
-        consider((area * v).value, Limit::MaxVelocity);
+    if let Some(v) = l.max_velocity_at(line.pipe.darby_diameter_in(bore)) {
+        consider(area.value * v, Limit::MaxVelocity);
     }
     if let Some(g) = l.max_drop_per_length {
         if let Some(q) = largest_within(|q| line.point(&props, bore, flow(q)).drop_per_length.value - g.value, start) {

@@ -542,6 +542,9 @@ pub struct LimitsFile {
     /// Smallest velocity.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub min_velocity: Option<String>,
+    /// A velocity-by-size table, by id (`hydraulics::velocity::RULES`).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub velocity_by_size: Option<String>,
 }
 
 /// A bad value in one field.
@@ -786,6 +789,7 @@ impl LineFile {
             ("limits.max_drop_per_length", &self.limits.max_drop_per_length),
             ("limits.max_total_drop", &self.limits.max_total_drop),
             ("limits.max_velocity", &self.limits.max_velocity),
+            ("limits.velocity_by_size", &self.limits.velocity_by_size),
             ("limits.min_velocity", &self.limits.min_velocity),
         ];
         for (field, text) in optional {

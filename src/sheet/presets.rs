@@ -22,6 +22,8 @@ pub struct Service {
     pub max_drop_pa_m: &'static str,
     /// Velocity limit, m/s.
     pub max_velocity_m_s: &'static str,
+    /// A velocity-by-size table (`hydraulics::velocity::RULES`), if any.
+    pub velocity_by_size: Option<&'static str>,
 }
 
 /// The services offered, in picker order.
@@ -34,6 +36,7 @@ pub const SERVICES: &[Service] = &[
         series: "steel-sch40",
         max_drop_pa_m: "400",
         max_velocity_m_s: "2.4",
+        velocity_by_size: Some("hydronic"),
     },
     Service {
         id: "heating",
@@ -43,6 +46,7 @@ pub const SERVICES: &[Service] = &[
         series: "steel-sch40",
         max_drop_pa_m: "300",
         max_velocity_m_s: "2.0",
+        velocity_by_size: Some("hydronic"),
     },
     Service {
         id: "domestic-cold",
@@ -52,6 +56,7 @@ pub const SERVICES: &[Service] = &[
         series: "copper-l",
         max_drop_pa_m: "600",
         max_velocity_m_s: "2.0",
+        velocity_by_size: Some("copper-cold"),
     },
     Service {
         id: "process",
@@ -61,6 +66,7 @@ pub const SERVICES: &[Service] = &[
         series: "stainless-10s",
         max_drop_pa_m: "500",
         max_velocity_m_s: "3.0",
+        velocity_by_size: None,
     },
 ];
 
@@ -97,6 +103,7 @@ impl Service {
                 max_total_drop: None,
                 max_velocity: Some(format!("{} m/s", self.max_velocity_m_s)),
                 min_velocity: None,
+                velocity_by_size: self.velocity_by_size.map(str::to_owned),
             },
             check_size: None,
             smallest_size: None,
@@ -120,6 +127,7 @@ mod tests {
             // Values carry their units, so a US sheet reads them right.
             let l = line.to_line(&units).unwrap_or_else(|e| panic!("{}: {e:?}", s.id));
             assert!(l.limits.max_velocity.is_some());
+            assert_eq!(l.limits.velocity_by_size.map(|r| r.id), s.velocity_by_size);
         }
     }
 }

@@ -25,6 +25,7 @@ use crate::hydraulics::fluid::{Fluid, Properties};
 use crate::hydraulics::line::{pa_per_m, Limits, Line, Method, Pipe, Valid};
 use crate::hydraulics::losses::{Component, Fitting, Fittings, CV_PER_KV};
 use crate::hydraulics::pipes::{self, Material};
+use crate::hydraulics::velocity;
 
 /// Atmospheric pressure where none is given: the standard atmosphere,
 /// 101 325 Pa (ISO 2533).
@@ -354,6 +355,17 @@ impl Reader<'_> {
             min_velocity: self
                 .optional(Field::MinVelocity, &lim.min_velocity, Dimension::Velocity, u.velocity, None)
                 .map(Velocity::new::<meter_per_second>),
+            velocity_by_size: match lim.velocity_by_size.as_deref().map(str::trim).filter(|t| !t.is_empty()) {
+                None => None,
+                Some(id) => {
+                    let rule = velocity::rule(id);
+                    if rule.is_none() {
+                        let ids: Vec<&str> = velocity::RULES.iter().map(|r| r.id).collect();
+                        self.fail(Field::VelocityBySize, format!("'{id}' is not one of {}", ids.join(", ")));
+                    }
+                    rule
+                }
+            },
         };
         if let (Some(lo), Some(hi)) = (limits.min_velocity, limits.max_velocity) {
             if lo >= hi {
@@ -365,6 +377,7 @@ impl Reader<'_> {
         } else if limits.max_drop_per_length.is_none()
             && limits.max_total_drop.is_none()
             && limits.max_velocity.is_none()
+            && limits.velocity_by_size.is_none()
         {
             self.fail(
                 Field::MinVelocity,

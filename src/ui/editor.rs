@@ -18,7 +18,8 @@ use crate::sheet::units::{self, Dimension};
 
 /// The fields whose errors the editor shows beside an input (each fitting
 /// row checks its own count); the others are listed at the top.
-pub const BESIDE_INPUTS: [Field; 23] = [
+pub const BESIDE_INPUTS: [Field; 24] = [
+    Field::VelocityBySize,
     Field::SmallestSize,
     Field::Components,
     Field::FittingCount,
@@ -257,6 +258,19 @@ fn LimitFields() -> impl IntoView {
             <LineText field=Field::MaxTotalDrop label="Largest total drop" id="max-total-drop" unit=Dimension::Pressure placeholder="none"/>
             <LineText field=Field::MaxVelocity label="Largest velocity" id="max-velocity" unit=Dimension::Velocity placeholder="none"/>
             <LineText field=Field::MinVelocity label="Smallest velocity (optional)" id="min-velocity" unit=Dimension::Velocity placeholder="none"/>
+            <div class="field">
+                <label for="velocity-by-size">"Largest velocity by size"</label>
+                <select id="velocity-by-size" data-testid="velocity-by-size"
+                    on:change=move |ev| { let v = event_target_value(&ev); line.file.update(|f| f.limits.velocity_by_size = (!v.is_empty()).then_some(v)) }>
+                    <option value="" selected=move || line.file.with(|f| f.limits.velocity_by_size.is_none())>"None"</option>
+                    {crate::hydraulics::velocity::RULES.iter().map(|r| {
+                        let id = r.id;
+                        view! { <option value=id title=r.source selected=move || line.file.with(|f| f.limits.velocity_by_size.as_deref() == Some(id))>{r.label}" (common practice)"</option> }
+                    }).collect_view()}
+                </select>
+                <span class="hint">{move || line.file.with(|f| f.limits.velocity_by_size.as_deref().and_then(crate::hydraulics::velocity::rule).map(|r| r.source).unwrap_or(""))}</span>
+                <span class="field-error" aria-live="polite">{move || errors_for(line.report, Field::VelocityBySize).get()}</span>
+            </div>
         </fieldset>
     }
 }
