@@ -6,7 +6,9 @@
 //! the standards; `tests/reference.rs` compares each size against the tables
 //! in the `fluids` package (PyPI) where it has that standard (ASME B36.10M,
 //! B36.19M, ASTM D1785, BS 1387 for EN 10255) and says which it could not
-//! check (ASTM B88 copper, ISO 4065 PE, which `fluids` does not carry).
+//! check (ASTM B88 and EN 1057 copper, ISO 4065 PE, PP-R, EN 10220 and the
+//! press-fit tubes, ductile iron, which `fluids` does not carry; those are
+//! held to the rules of their standards by the tests below).
 //!
 //! US-customary tables are kept in inches as the standards print them and
 //! converted with 1 in = 25.4 mm exactly (NIST SP 811, appendix B.8).
@@ -126,6 +128,10 @@ pub enum Material {
     Pvc,
     /// Polyethylene (PE80/PE100).
     Polyethylene,
+    /// Ductile iron with a cement-mortar lining.
+    DuctileIron,
+    /// Polypropylene random copolymer (PP-R).
+    Polypropylene,
 }
 
 /// Roughness of a material, with where the numbers come from.
@@ -141,8 +147,15 @@ pub struct Roughness {
 
 impl Material {
     /// Every material, in listing order.
-    pub const ALL: [Material; 5] =
-        [Material::CarbonSteel, Material::StainlessSteel, Material::Copper, Material::Pvc, Material::Polyethylene];
+    pub const ALL: [Material; 7] = [
+        Material::CarbonSteel,
+        Material::StainlessSteel,
+        Material::Copper,
+        Material::Pvc,
+        Material::Polyethylene,
+        Material::DuctileIron,
+        Material::Polypropylene,
+    ];
 
     /// Its stable id in sheet files (a format: never change one).
     pub fn id(self) -> &'static str {
@@ -152,6 +165,8 @@ impl Material {
             Material::Copper => "copper",
             Material::Pvc => "pvc",
             Material::Polyethylene => "pe",
+            Material::DuctileIron => "ductile-iron",
+            Material::Polypropylene => "pp-r",
         }
     }
 
@@ -168,6 +183,8 @@ impl Material {
             Material::Copper => "copper",
             Material::Pvc => "PVC",
             Material::Polyethylene => "polyethylene",
+            Material::DuctileIron => "ductile iron, cement-lined",
+            Material::Polypropylene => "PP-R",
         }
     }
 
@@ -202,6 +219,18 @@ impl Material {
                 aged_mm: None,
                 source: "common practice for PE pressure pipe (value from memory)",
             },
+            Material::DuctileIron => Roughness {
+                new_mm: 0.1,
+                aged_mm: None,
+                source: "cement-mortar lining: k = 0.1 mm is the design value water-main practice uses to \
+                         allow for joints and bends along the main (common practice, from memory; the bare \
+                         lining is smoother, about 0.03 mm)",
+            },
+            Material::Polypropylene => Roughness {
+                new_mm: 0.007,
+                aged_mm: None,
+                source: "common practice for smooth plastic pressure pipe, as PE (value from memory)",
+            },
         }
     }
 
@@ -214,6 +243,8 @@ impl Material {
             Material::Copper => (150.0, NFPA),
             Material::Pvc => (150.0, NFPA),
             Material::Polyethylene => (150.0, NFPA),
+            Material::DuctileIron => (140.0, "cement-lined ductile iron, C = 140 (AWWA M41 practice, from memory)"),
+            Material::Polypropylene => (150.0, NFPA),
         }
     }
 }
@@ -634,6 +665,96 @@ pub const SERIES: &[Series] = &[
         naming: Naming::OutsideMm,
         rare: &[],
     },
+    Series {
+        id: "steel-en10220",
+        label: "Steel tube, EN 10220 common walls",
+        standard: "EN 10220 / ISO 4200, Seamless and welded steel tubes — dimensions; series 1 outside \
+                   diameters with the walls in common use for water (the former DIN 2448 / 2458 normal walls; \
+                   from memory)",
+        material: Material::CarbonSteel,
+        sizes: mm_sizes! {
+            "DN15": 21.3, 2.0; "DN20": 26.9, 2.3; "DN25": 33.7, 2.6; "DN32": 42.4, 2.6; "DN40": 48.3, 2.6;
+            "DN50": 60.3, 2.9; "DN65": 76.1, 2.9; "DN80": 88.9, 3.2; "DN100": 114.3, 3.6; "DN125": 139.7, 4.0;
+            "DN150": 168.3, 4.5; "DN200": 219.1, 6.3; "DN250": 273.0, 6.3; "DN300": 323.9, 7.1;
+            "DN350": 355.6, 8.0; "DN400": 406.4, 8.8; "DN450": 457.0, 10.0; "DN500": 508.0, 11.0;
+            "DN600": 610.0, 12.5;
+        },
+        wall: Wall::Nominal,
+        naming: Naming::Dn,
+        rare: &["DN450"],
+    },
+    Series {
+        id: "press-steel-en10305",
+        label: "Press-fit carbon steel system tube, EN 10305-3",
+        standard: "EN 10305-3, Steel tubes for precision applications — welded cold-sized tubes; the outside \
+                   diameters and walls of press-fit heating and cooling systems (from memory of makers' ranges)",
+        material: Material::CarbonSteel,
+        sizes: mm_sizes! {
+            "12": 12.0, 1.2; "15": 15.0, 1.2; "18": 18.0, 1.2; "22": 22.0, 1.5; "28": 28.0, 1.5;
+            "35": 35.0, 1.5; "42": 42.0, 1.5; "54": 54.0, 1.5; "76.1": 76.1, 2.0; "88.9": 88.9, 2.0;
+            "108": 108.0, 2.0;
+        },
+        wall: Wall::Nominal,
+        naming: Naming::OutsideMm,
+        rare: &["12"],
+    },
+    Series {
+        id: "press-stainless-en10312",
+        label: "Press-fit stainless system tube, EN 10312",
+        standard: "EN 10312, Welded stainless steel tubes for the conveyance of water, series 2 (the outside \
+                   diameters and walls of press-fit water systems; from memory of makers' ranges)",
+        material: Material::StainlessSteel,
+        sizes: mm_sizes! {
+            "15": 15.0, 1.0; "18": 18.0, 1.0; "22": 22.0, 1.2; "28": 28.0, 1.2; "35": 35.0, 1.5;
+            "42": 42.0, 1.5; "54": 54.0, 1.5; "76.1": 76.1, 2.0; "88.9": 88.9, 2.0; "108": 108.0, 2.0;
+        },
+        wall: Wall::Nominal,
+        naming: Naming::OutsideMm,
+        rare: &[],
+    },
+    Series {
+        id: "ductile-en545-k9",
+        label: "Ductile iron, EN 545 class K9, cement-lined",
+        standard: "EN 545 / ISO 2531 ductile iron pipe for water: outside diameters, class K9 iron walls \
+                   e = 9 (0.5 + 0.001 DN), at least 6 mm, less a cement-mortar lining of 3 mm to DN300 and \
+                   5 mm from DN350 (ISO 4179 nominal lining; all from memory)",
+        material: Material::DuctileIron,
+        sizes: mm_sizes! {
+            "DN80": 98.0, 9.0; "DN100": 118.0, 9.0; "DN125": 144.0, 9.0; "DN150": 170.0, 9.0;
+            "DN200": 222.0, 9.3; "DN250": 274.0, 9.75; "DN300": 326.0, 10.2; "DN350": 378.0, 12.65;
+            "DN400": 429.0, 13.1; "DN450": 480.0, 13.55; "DN500": 532.0, 14.0; "DN600": 635.0, 14.9;
+        },
+        wall: Wall::Nominal,
+        naming: Naming::Dn,
+        rare: &["DN125", "DN450"],
+    },
+    Series {
+        id: "pvc-c900-dr18",
+        label: "PVC, AWWA C900 DR 18",
+        standard: "AWWA C900, PVC pressure pipe, 4–12 in, cast-iron outside diameters, DR 18 (minimum wall \
+                   OD/18; from memory)",
+        material: Material::Pvc,
+        sizes: inch_sizes! {
+            "4": 4.80, 0.267; "6": 6.90, 0.383; "8": 9.05, 0.503; "10": 11.10, 0.617; "12": 13.20, 0.733;
+        },
+        wall: Wall::AstmPlasticMinimum,
+        naming: Naming::Nps,
+        rare: &[],
+    },
+    Series {
+        id: "ppr-sdr6",
+        label: "PP-R, SDR 6",
+        standard: "ISO 15874-2 / EN ISO 15874-2 polypropylene for hot and cold water, SDR 6 (minimum walls \
+                   from memory; close to dn/6)",
+        material: Material::Polypropylene,
+        sizes: mm_sizes! {
+            "20": 20.0, 3.4; "25": 25.0, 4.2; "32": 32.0, 5.4; "40": 40.0, 6.7; "50": 50.0, 8.3;
+            "63": 63.0, 10.5; "75": 75.0, 12.5; "90": 90.0, 15.0; "110": 110.0, 18.3;
+        },
+        wall: Wall::IsoGradeVMinimum,
+        naming: Naming::OutsideMm,
+        rare: &[],
+    },
 ];
 
 /// Finds a series by its identifier.
@@ -699,12 +820,28 @@ mod tests {
         // value to the nearest 0.1 mm (never under 2.0 mm); the SDR 17 walls
         // as remembered sit up to 1 % above dn/17. Either way a wall is
         // never thinner than dn/SDR by more than rounding.
-        for (id, sdr) in [("pe100-sdr11", 11.0), ("pe100-sdr17", 17.0)] {
+        for (id, sdr) in [("pe100-sdr11", 11.0), ("pe100-sdr17", 17.0), ("ppr-sdr6", 6.0)] {
             for z in series(id).unwrap().sizes {
                 let e = (z.od_mm / sdr).max(2.0);
                 assert!(z.wall_mm >= e - 0.1 + 1e-9, "{id} {}: {} vs {e:.2}", z.nominal, z.wall_mm);
                 assert!(z.wall_mm <= 1.01 * e + 0.1 + 1e-9, "{id} {}: {} vs {e:.2}", z.nominal, z.wall_mm);
             }
+        }
+    }
+
+    #[test]
+    fn dimension_ratio_and_lined_iron_walls_follow_their_rules() {
+        // AWWA C900: the minimum wall is OD / DR (to the 0.001 in printed).
+        for z in series("pvc-c900-dr18").unwrap().sizes {
+            assert!((z.wall_mm - z.od_mm / 18.0).abs() <= 0.0006 * 25.4, "{}", z.nominal);
+        }
+        // EN 545 class K9: iron wall 9 (0.5 + 0.001 DN) mm, at least 6 mm;
+        // plus the cement lining (ISO 4179): 3 mm to DN300, 5 mm above.
+        for z in series("ductile-en545-k9").unwrap().sizes {
+            let dn: f64 = z.nominal.trim_start_matches("DN").parse().unwrap();
+            let iron = (9.0 * (0.5 + 0.001 * dn)).max(6.0);
+            let lining = if dn <= 300.0 { 3.0 } else { 5.0 };
+            assert!((z.wall_mm - iron - lining).abs() < 1e-9, "{}: {} vs {}", z.nominal, z.wall_mm, iron + lining);
         }
     }
 

@@ -46,7 +46,7 @@ schedules = {
     "steel-sch40": "40", "steel-sch80": "80", "steel-std": "STD", "steel-xs": "XS",
     "steel-sch10": "10", "steel-sch20": "20",
     "stainless-5s": "5S", "stainless-10s": "10S", "stainless-40s": "40S", "stainless-80s": "80S",
-    "pvc-sch40": "40D1785", "pvc-sch80": "80D1785",
+    "pvc-sch40": "40D1785", "pvc-sch80": "80D1785", "pvc-c900-dr18": "DR18C900",
 }
 nps_values = {"1/8": 0.125, "1/4": 0.25, "3/8": 0.375, "1/2": 0.5, "3/4": 0.75, "1": 1, "1-1/4": 1.25,
               "1-1/2": 1.5, "2": 2, "2-1/2": 2.5, "3": 3, "3-1/2": 3.5, "4": 4, "5": 5, "6": 6, "8": 8,
