@@ -21,7 +21,7 @@ use web_sys::{HtmlElement, HtmlInputElement};
 
 mod web;
 
-use web::{all_text, find, text, type_into};
+use web::{all_text, choose, click, find, text, type_into};
 
 wasm_bindgen_test_configure!(run_in_browser);
 
@@ -343,4 +343,41 @@ async fn the_print_sheet_follows_after_typing_stops_or_when_printing() {
     web_sys::window().unwrap().dispatch_event(&web_sys::Event::new("beforeprint").unwrap()).unwrap();
     leptos::task::tick().await;
     assert!(printed().contains("88.25"));
+}
+
+#[wasm_bindgen_test]
+async fn valves_smallest_size_and_velocity_by_size_are_set_from_the_editor() {
+    // A chilled line, then as a person would: add a valve by Kv, pick a
+    // smallest size and a velocity-by-size table; the page's answer is the
+    // core's answer for the file those choices made.
+    let (root, sheet) = mount_sheet(|s| chilled(s, "AHU-1 branch", "4"));
+    let first = sheet.lines.with_untracked(|v| v[0].id);
+    sheet.selected.set(Some(first));
+    leptos::task::tick().await;
+    click(&root, "add-component");
+    leptos::task::tick().await;
+    type_into(&root, "component-0-name", "CV-1");
+    type_into(&root, "component-0-value", "30");
+    leptos::task::tick().await;
+    let breakdown = text(&root, "answer-breakdown");
+    assert!(breakdown.contains("valves and equipment"), "{breakdown}");
+    // A bad Kv is a message beside the components, not a crash.
+    type_into(&root, "component-0-value", "-3");
+    leptos::task::tick().await;
+    assert!(text(&root, "components-error").contains("component 1 (CV-1): the Kv must be greater than zero"));
+    type_into(&root, "component-0-value", "30");
+    choose(&root, "pipe-smallest", "3");
+    choose(&root, "velocity-by-size", "hydronic");
+    leptos::task::tick().await;
+    let file = sheet.lines.with_untracked(|v| v[0].file.get_untracked());
+    assert_eq!(file.smallest_size.as_deref(), Some("3"));
+    assert_eq!(file.limits.velocity_by_size.as_deref(), Some("hydronic"));
+    assert_eq!(file.components[0].value, "30");
+    assert_eq!(text(&root, "proposed-size"), core_answer(&sheet, 0));
+    assert_eq!(text(&root, "answer-verdict"), {
+        let o = evaluate_line(1, &file, &Units::defaults(System::Si)).outcome.unwrap();
+        o.verdict
+    });
+    // The designation reads with its unit system's name for the size.
+    assert!(text(&root, "answer-designation").starts_with("NPS "));
 }

@@ -11,8 +11,10 @@
 //! copper tube's nominal size, a DN as its NPS (DN50 → 2). Sizes named by
 //! outside diameter (PE, EN 1057 copper) and custom bores have no nominal
 //! inch size; their bore in inches stands in (`pipes::Series::darby_diameter_in`).
-//! The choice matters more than it looks: for a 2 in Sch 40 elbow,
-//! Dn = 2 against the bore 2.067 moves K by about 2 %. Constants typed from memory of Darby's table and checked
+//! The choice matters most in small sizes: against the Sch 40 bore, the
+//! nominal diameter raises K (threaded elbow, globe valve) by 5.5 % at
+//! 1/2 in, 2.3 % at 3/4 in, 1.1 % at 1 in, 0.8 % at 2 in and under 0.2 %
+//! from 4 in (worked from Darby's constants). Constants typed from memory of Darby's table and checked
 //! one by one against `fluids.fittings.Darby` (fluids 1.3.1) by
 //! tests/reference.rs.
 

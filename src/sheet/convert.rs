@@ -66,6 +66,12 @@ pub fn line(l: &mut LineFile, old: &Units, new: &Units, density: Option<f64>) {
     opt(&mut lim.max_total_drop, Dimension::Pressure, old.pressure, new.pressure, density);
     opt(&mut lim.max_velocity, Dimension::Velocity, old.velocity, new.velocity, None);
     opt(&mut lim.min_velocity, Dimension::Velocity, old.velocity, new.velocity, None);
+    // A component's rated drop and flow are read in the sheet's units when
+    // bare; its other bore is read in mm whatever the units.
+    for c in &mut l.components {
+        field(&mut c.drop, Dimension::Pressure, old.pressure, new.pressure, density);
+        field(&mut c.at_flow, Dimension::Flow, old.flow, new.flow, density);
+    }
 }
 
 #[cfg(test)]
@@ -84,6 +90,14 @@ mod tests {
         assert_eq!(rewrite("10", Dimension::Pressure, si.pressure, us.pressure, None), "1.45038");
         let head = units::find(Dimension::Pressure, "m head").unwrap();
         assert_eq!(rewrite("3", Dimension::Pressure, head, us.pressure, None), "3 m head");
+        // A component's bare rated drop and flow keep their meaning too.
+        let mut l: LineFile = serde_json::from_str(
+            r#"{"flow":"1","fluid":{"kind":"water","temperature":"10"},"pipe":{"series":"copper-l"},
+            "components":[{"kind":"rated","drop":"6.894757","at_flow":"6.30902"}]}"#,
+        )
+        .unwrap();
+        line(&mut l, &si, &us, Some(1000.0));
+        assert_eq!((l.components[0].drop.as_str(), l.components[0].at_flow.as_str()), ("1", "100"));
         // Text that is not a number is left alone: nothing typed is lost.
         assert_eq!(rewrite("lots", Dimension::Flow, si.flow, us.flow, None), "lots");
     }

@@ -352,7 +352,7 @@ fn ComponentList() -> impl IntoView {
                     {match kind {
                         ComponentKind::Kv => text(i, "value", "Kv", "m³/h at 1 bar").into_any(),
                         ComponentKind::Cv => text(i, "value", "Cv", "US gpm at 1 psi").into_any(),
-                        ComponentKind::Rated => view! { {text(i, "drop", "Drop", "e.g. 30 kPa")}{text(i, "at_flow", "at flow", "e.g. 2 L/s")} }.into_any(),
+                        ComponentKind::Rated => view! { {text(i, "drop", "Drop", "e.g. 30 kPa")}{text(i, "at_flow", "At flow", "e.g. 2 L/s")} }.into_any(),
                         ComponentKind::Butterfly => view! { <span class="hint">"K = c·fT by size (Crane TP-410)"</span> }.into_any(),
                         ComponentKind::Reducer => view! { {text(i, "to_bore", "To bore", "mm unless typed")}{text(i, "angle", "Angle °", "180 if sudden")} }.into_any(),
                     }}

@@ -7,7 +7,7 @@ use super::state::Slot;
 use crate::hydraulics::sizing::Candidate;
 use crate::hydraulics::sizing::Step;
 use crate::sheet::chart;
-use crate::sheet::report::{Detail, Outcome};
+use crate::sheet::report::{designation, Detail, Outcome};
 use crate::sheet::units::format_number;
 
 /// The answer for the selected line.
@@ -73,6 +73,7 @@ fn Answer(o: Outcome) -> impl IntoView {
                 <div class="answer" class:answer-bad=!pass data-testid="answer" role="status">
                     <p class="answer-head">{head}</p>
                     <p class="answer-size" data-testid="proposed-size">{c.nominal}</p>
+                    <p class="answer-designation" data-testid="answer-designation">{designation(&o.line, c.nominal)}</p>
                     <dl class="answer-figures">
                         <div><dt>"Velocity"</dt><dd data-testid="answer-velocity">{fig.velocity.clone()}</dd></div>
                         <div><dt>"Drop per length"</dt><dd data-testid="answer-drop-per-length">{fig.drop_per_length.clone()}</dd></div>

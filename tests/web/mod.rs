@@ -36,3 +36,13 @@ pub fn type_into(root: &HtmlElement, testid: &str, value: &str) {
     init.set_bubbles(true);
     input.dispatch_event(&Event::new_with_event_init_dict("input", &init).unwrap()).unwrap();
 }
+
+/// Chooses an option of a select the way a person does: set the value,
+/// fire `change`.
+pub fn choose(root: &HtmlElement, testid: &str, value: &str) {
+    let select: web_sys::HtmlSelectElement = find(root, testid).unchecked_into();
+    select.set_value(value);
+    let init = EventInit::new();
+    init.set_bubbles(true);
+    select.dispatch_event(&Event::new_with_event_init_dict("change", &init).unwrap()).unwrap();
+}
