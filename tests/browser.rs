@@ -374,10 +374,9 @@ async fn valves_smallest_size_and_velocity_by_size_are_set_from_the_editor() {
     assert_eq!(file.limits.velocity_by_size.as_deref(), Some("hydronic"));
     assert_eq!(file.components[0].value, "30");
     assert_eq!(text(&root, "proposed-size"), core_answer(&sheet, 0));
-    assert_eq!(text(&root, "answer-verdict"), {
-        let o = evaluate_line(1, &file, &Units::defaults(System::Si)).outcome.unwrap();
-        o.verdict
-    });
+    let verdict = evaluate_line(1, &file, &Units::defaults(System::Si)).outcome.unwrap().verdict;
+    assert!(verdict.starts_with("governed by ") || verdict.contains("smallest size searched"), "{verdict}");
+    assert_eq!(text(&root, "answer-verdict").to_lowercase(), verdict.to_lowercase());
     // The designation reads with its unit system's name for the size.
     assert!(text(&root, "answer-designation").starts_with("NPS "));
 }

@@ -141,9 +141,7 @@ impl Fitting {
         match self {
             Fitting::Elbow90Threaded => "Elbow 90°, threaded, standard (r/D 1)",
             Fitting::Elbow90ThreadedLong => "Elbow 90°, threaded, long radius (r/D 1.5)",
-            Fitting::Elbow90Welded => {
-                "Elbow 90°, welded or flanged, r/D 1 (also for r/D 1.5 long-radius: conservative)"
-            }
+            Fitting::Elbow90Welded => "Elbow 90°, welded or flanged, r/D 1 (safe side for r/D 1.5)",
             Fitting::Elbow90LongRadius => "Bend 90°, welded or flanged, r/D 2",
             Fitting::Elbow45Threaded => "Elbow 45°, threaded, standard (r/D 1)",
             Fitting::Elbow45LongRadius => "Elbow 45°, long radius (r/D 1.5)",

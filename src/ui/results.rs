@@ -34,11 +34,17 @@ pub fn LineResults(
     }
 }
 
+/// The text with its first letter capitalised, to stand as a sentence.
+fn sentence(t: &str) -> String {
+    let mut c = t.chars();
+    c.next().map(|f| f.to_uppercase().chain(c).collect()).unwrap_or_default()
+}
+
 #[component]
 fn Answer(o: Outcome) -> impl IntoView {
     let shown = o.shown.map(|i| o.sizing.candidates[i].clone());
     let warnings = o.sizing.warnings.clone();
-    let verdict = o.verdict.clone();
+    let verdict = sentence(&o.verdict);
     match shown {
         None => view! {
             <div class="answer answer-none" data-testid="answer" role="status">
@@ -73,7 +79,10 @@ fn Answer(o: Outcome) -> impl IntoView {
                 <div class="answer" class:answer-bad=!pass data-testid="answer" role="status">
                     <p class="answer-head">{head}</p>
                     <p class="answer-size" data-testid="proposed-size">{c.nominal}</p>
-                    <p class="answer-designation" data-testid="answer-designation">{designation(&o.line, c.nominal)}</p>
+                    <p class="answer-designation" data-testid="answer-designation">{match o.line.pipe {
+                        crate::hydraulics::line::Pipe::Series(s) => format!("{} · {}", designation(&o.line, c.nominal), s.label),
+                        crate::hydraulics::line::Pipe::Custom(_) => designation(&o.line, c.nominal),
+                    }}</p>
                     <dl class="answer-figures">
                         <div><dt>"Velocity"</dt><dd data-testid="answer-velocity">{fig.velocity.clone()}</dd></div>
                         <div><dt>"Drop per length"</dt><dd data-testid="answer-drop-per-length">{fig.drop_per_length.clone()}</dd></div>
