@@ -2,8 +2,8 @@
 //! bore is the real one; and the materials they are made of, with roughness
 //! and Hazen–Williams C.
 //!
-//! Every table names its standard. All dimensions were typed from memory of
-//! the standards; `tests/reference.rs` compares each size against the tables
+//! Every table names its standard and edition (editions as remembered). All
+//! dimensions were typed from memory of the standards; `tests/reference.rs` compares each size against the tables
 //! in the `fluids` package (PyPI) where it has that standard (ASME B36.10M,
 //! B36.19M, ASTM D1785, BS 1387 for EN 10255) and says which it could not
 //! check (ASTM B88 and EN 1057 copper, ISO 4065 PE, PP-R, EN 10220 and the
@@ -325,13 +325,13 @@ macro_rules! mm_sizes {
     };
 }
 
-const B36_10M: &str = "ASME B36.10M, Welded and Seamless Wrought Steel Pipe";
-const B36_19M: &str = "ASME B36.19M, Stainless Steel Pipe";
+const B36_10M: &str = "ASME B36.10M-2018, Welded and Seamless Wrought Steel Pipe";
+const B36_19M: &str = "ASME B36.19M-2018, Stainless Steel Pipe";
 /// Steel sizes rarely stocked (common practice; our choice): the smallest
 /// three, 3-1/2 and 5, and the in-between large sizes.
 const RARE_STEEL: &[&str] = &["1/8", "1/4", "3/8", "3-1/2", "5", "22", "26", "28", "34", "38", "44", "46"];
-const B88: &str = "ASTM B88, Seamless Copper Water Tube (OD = nominal + 1/8 in)";
-const D1785: &str = "ASTM D1785, PVC Plastic Pipe, Schedules 40, 80 and 120";
+const B88: &str = "ASTM B88-20, Seamless Copper Water Tube (OD = nominal + 1/8 in)";
+const D1785: &str = "ASTM D1785-21, PVC Plastic Pipe, Schedules 40, 80 and 120";
 
 /// Every series Headroom knows.
 pub const SERIES: &[Series] = &[
@@ -588,7 +588,7 @@ pub const SERIES: &[Series] = &[
     Series {
         id: "en10255-medium",
         label: "Steel tube, EN 10255 medium",
-        standard: "EN 10255, Non-alloy steel tubes suitable for welding and threading, medium series (M)",
+        standard: "EN 10255:2004+A1:2007, Non-alloy steel tubes suitable for welding and threading, medium series (M)",
         material: Material::CarbonSteel,
         sizes: mm_sizes! {
             "DN8": 13.5, 2.3; "DN10": 17.2, 2.3; "DN15": 21.3, 2.6; "DN20": 26.9, 2.6;
@@ -603,7 +603,7 @@ pub const SERIES: &[Series] = &[
     Series {
         id: "en10255-heavy",
         label: "Steel tube, EN 10255 heavy",
-        standard: "EN 10255, Non-alloy steel tubes suitable for welding and threading, heavy series (H)",
+        standard: "EN 10255:2004+A1:2007, Non-alloy steel tubes suitable for welding and threading, heavy series (H)",
         material: Material::CarbonSteel,
         sizes: mm_sizes! {
             "DN8": 13.5, 2.9; "DN10": 17.2, 2.9; "DN15": 21.3, 3.2; "DN20": 26.9, 3.2;
@@ -618,7 +618,7 @@ pub const SERIES: &[Series] = &[
     Series {
         id: "copper-en1057",
         label: "Copper tube, EN 1057 R250 (common walls)",
-        standard: "EN 1057, Copper and copper alloys — Seamless, round copper tubes for water and gas in \
+        standard: "EN 1057:2006+A1:2010, Copper and copper alloys — Seamless, round copper tubes for water and gas in \
                    sanitary and heating applications; the walls in common use in the UK for half-hard R250 \
                    tube (BS EN 1057 'Table X'; from memory)",
         material: Material::Copper,
@@ -634,7 +634,7 @@ pub const SERIES: &[Series] = &[
     Series {
         id: "pe100-sdr11",
         label: "PE100, SDR 11",
-        standard: "ISO 4065 / EN 12201-2 polyethylene pressure pipe, SDR 11 (outside diameter dn, minimum wall ≈ dn/11; from memory, 560 mm from the dn/SDR rule)",
+        standard: "ISO 4065:2018 / EN 12201-2:2011+A1:2013 polyethylene pressure pipe, SDR 11 (outside diameter dn, minimum wall ≈ dn/11; from memory, 560 mm from the dn/SDR rule)",
         material: Material::Polyethylene,
         sizes: mm_sizes! {
             "20": 20.0, 2.0; "25": 25.0, 2.3; "32": 32.0, 2.9; "40": 40.0, 3.7; "50": 50.0, 4.6;
@@ -651,7 +651,7 @@ pub const SERIES: &[Series] = &[
     Series {
         id: "pe100-sdr17",
         label: "PE100, SDR 17",
-        standard: "ISO 4065 / EN 12201-2 polyethylene pressure pipe, SDR 17 (minimum walls from memory of \
+        standard: "ISO 4065:2018 / EN 12201-2:2011+A1:2013 polyethylene pressure pipe, SDR 17 (minimum walls from memory of \
                    EN 12201-2; close to dn/17)",
         material: Material::Polyethylene,
         sizes: mm_sizes! {
@@ -668,7 +668,7 @@ pub const SERIES: &[Series] = &[
     Series {
         id: "steel-en10220",
         label: "Steel tube, EN 10220 common walls",
-        standard: "EN 10220 / ISO 4200, Seamless and welded steel tubes — dimensions; series 1 outside \
+        standard: "EN 10220:2002 / ISO 4200:1991, Seamless and welded steel tubes — dimensions; series 1 outside \
                    diameters with the walls in common use for water (the former DIN 2448 / 2458 normal walls; \
                    from memory)",
         material: Material::CarbonSteel,
@@ -686,7 +686,7 @@ pub const SERIES: &[Series] = &[
     Series {
         id: "press-steel-en10305",
         label: "Press-fit carbon steel system tube, EN 10305-3",
-        standard: "EN 10305-3, Steel tubes for precision applications — welded cold-sized tubes; the outside \
+        standard: "EN 10305-3:2016, Steel tubes for precision applications — welded cold-sized tubes; the outside \
                    diameters and walls of press-fit heating and cooling systems (from memory of makers' ranges)",
         material: Material::CarbonSteel,
         sizes: mm_sizes! {
@@ -701,7 +701,7 @@ pub const SERIES: &[Series] = &[
     Series {
         id: "press-stainless-en10312",
         label: "Press-fit stainless system tube, EN 10312",
-        standard: "EN 10312, Welded stainless steel tubes for the conveyance of water, series 2 (the outside \
+        standard: "EN 10312:2002, Welded stainless steel tubes for the conveyance of water, series 2 (the outside \
                    diameters and walls of press-fit water systems; from memory of makers' ranges)",
         material: Material::StainlessSteel,
         sizes: mm_sizes! {
@@ -715,7 +715,7 @@ pub const SERIES: &[Series] = &[
     Series {
         id: "ductile-en545-k9",
         label: "Ductile iron, EN 545 class K9, cement-lined",
-        standard: "EN 545 / ISO 2531 ductile iron pipe for water: outside diameters, class K9 iron walls \
+        standard: "EN 545:2010 / ISO 2531:2009, ductile iron pipe for water: outside diameters, class K9 iron walls \
                    e = 9 (0.5 + 0.001 DN), at least 6 mm, less a cement-mortar lining of 3 mm to DN300 and \
                    5 mm from DN350 (ISO 4179 nominal lining; all from memory)",
         material: Material::DuctileIron,
@@ -731,7 +731,7 @@ pub const SERIES: &[Series] = &[
     Series {
         id: "pvc-c900-dr18",
         label: "PVC, AWWA C900 DR 18",
-        standard: "AWWA C900, PVC pressure pipe, 4–12 in, cast-iron outside diameters, DR 18 (minimum wall \
+        standard: "AWWA C900-16, PVC pressure pipe, 4–12 in, cast-iron outside diameters, DR 18 (minimum wall \
                    OD/18; from memory)",
         material: Material::Pvc,
         sizes: inch_sizes! {
@@ -744,7 +744,7 @@ pub const SERIES: &[Series] = &[
     Series {
         id: "ppr-sdr6",
         label: "PP-R, SDR 6",
-        standard: "ISO 15874-2 / EN ISO 15874-2 polypropylene for hot and cold water, SDR 6 (minimum walls \
+        standard: "ISO 15874-2:2013, polypropylene for hot and cold water, SDR 6 (minimum walls \
                    from memory; close to dn/6)",
         material: Material::Polypropylene,
         sizes: mm_sizes! {
