@@ -887,6 +887,30 @@ mod tests {
     }
 
     #[test]
+    fn en_1057_walls_match_a_makers_published_table() {
+        // A second published table: Lawton Tubes' dimensions for EN 1057
+        // half-hard "TX" tube (lawtontubes.co.uk, product pages, read
+        // 2026-12-02): 15 × 0.7, 22 × 0.9, 28 × 0.9, 35 × 1.2, 42 × 1.2,
+        // 54 × 1.2, 66.7 × 1.2, 76.1 × 1.5, 108 × 1.5, 133 × 1.5, 159 × 2.0.
+        let published = [
+            (15.0, 0.7),
+            (22.0, 0.9),
+            (28.0, 0.9),
+            (35.0, 1.2),
+            (42.0, 1.2),
+            (54.0, 1.2),
+            (66.7, 1.2),
+            (76.1, 1.5),
+            (108.0, 1.5),
+            (133.0, 1.5),
+            (159.0, 2.0),
+        ];
+        let ours: Vec<(f64, f64)> =
+            series("copper-en1057").unwrap().sizes.iter().map(|z| (z.od_mm, z.wall_mm)).collect();
+        assert_eq!(ours, published);
+    }
+
+    #[test]
     fn sizes_read_with_their_designation() {
         assert_eq!(series("steel-sch40").unwrap().designation("5"), "NPS 5");
         assert_eq!(series("copper-l").unwrap().designation("3/4"), "3/4 in");
