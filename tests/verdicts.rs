@@ -279,3 +279,26 @@ fn a_velocity_limit_can_depend_on_the_size() {
     let e = errors("", &line(r#""velocity_by_size":"fast""#));
     assert_eq!(e[0].field, Field::VelocityBySize);
 }
+
+#[test]
+fn a_sheet_is_written_as_the_oldest_version_that_holds_it() {
+    // Version 1 files read as before and are written as version 1 while
+    // they use nothing newer; a version-2 field makes it version 2, which a
+    // version-1 reader refuses as newer (docs/sheet-format.md).
+    let v1 = sheet(
+        "",
+        &format!(r#""flow":"2 L/s",{WATER_20},"pipe":{{"series":"steel-sch40"}},"limits":{{"max_velocity":"2"}}"#),
+    );
+    let s = SheetFile::from_json(&v1).unwrap();
+    assert_eq!(s.clone().with_required_version().version, 1);
+    let mut closed = s.clone();
+    closed.basis.circuit = headroom::hydraulics::line::Circuit::Closed;
+    assert_eq!(closed.with_required_version().version, 2);
+    let mut valve = s;
+    valve.lines[0].components.push(Default::default());
+    let valve = valve.with_required_version();
+    assert_eq!(valve.version, 2);
+    assert_eq!(SheetFile::from_json(&valve.to_json()).unwrap().version, 2);
+    let newer = valve.to_json().replacen("\"version\": 2", "\"version\": 3", 1);
+    assert!(SheetFile::from_json(&newer).unwrap_err().to_string().contains("version 3 is newer"));
+}

@@ -21,8 +21,16 @@ use crate::hydraulics::fluid::Glycol;
 
 /// The value of the `format` field.
 pub const FORMAT: &str = "headroom-sheet";
-/// The version this build writes and the newest it reads.
-pub const VERSION: u32 = 1;
+/// The newest version this build reads and writes. A sheet is written as
+/// the oldest version that holds everything it uses (see
+/// [`SheetFile::required_version`]), so a sheet without the newer fields
+/// still opens in an older Headroom, and one with them is reported there as
+/// newer rather than as damaged.
+///
+/// - 1: the first format.
+/// - 2: adds `basis`, `components`, `smallest_size` and
+///   `limits.velocity_by_size`.
+pub const VERSION: u32 = 2;
 
 /// A whole worksheet.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
@@ -722,6 +730,26 @@ impl SheetFile {
             }
         }
         Ok(())
+    }
+
+    /// The oldest format version that holds everything this sheet uses.
+    pub fn required_version(&self) -> u32 {
+        let v2 = !self.basis.is_default()
+            || self
+                .lines
+                .iter()
+                .any(|l| !l.components.is_empty() || l.smallest_size.is_some() || l.limits.velocity_by_size.is_some());
+        if v2 {
+            2
+        } else {
+            1
+        }
+    }
+
+    /// The sheet with `version` set to [`SheetFile::required_version`].
+    pub fn with_required_version(mut self) -> SheetFile {
+        self.version = self.required_version();
+        self
     }
 
     /// Writes the sheet as pretty JSON.

@@ -13,7 +13,7 @@ use leptos::prelude::*;
 use wasm_bindgen::JsCast;
 
 use super::state::{after_redraw, listen, Sheet};
-use crate::sheet::file::{SheetFile, FORMAT, VERSION};
+use crate::sheet::file::{SheetFile, FORMAT};
 use crate::sheet::library::{
     display_name, Entry, Kv, Library, Problem, StoreError, Trashed, ASIDE_PREFIX, BUILD_KEY, INDEX_KEY, REV_PREFIX,
     TRASH_PREFIX,
@@ -154,7 +154,7 @@ pub fn new_id() -> String {
 pub fn blank() -> SheetFile {
     SheetFile {
         format: FORMAT.to_owned(),
-        version: VERSION,
+        version: 1,
         project: String::new(),
         date: String::new(),
         units: Default::default(),

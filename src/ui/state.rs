@@ -12,7 +12,7 @@ use std::sync::atomic::{AtomicUsize, Ordering};
 use leptos::prelude::*;
 
 use crate::sheet::convert;
-use crate::sheet::file::{Basis, LineFile, SheetFile, System, UnitChoice, Units, FORMAT, VERSION};
+use crate::sheet::file::{Basis, LineFile, SheetFile, System, UnitChoice, Units, FORMAT};
 use crate::sheet::presets::Service;
 use crate::sheet::report::{detail, evaluate_line, Detail, LineReport, Outcome};
 use crate::sheet::units::Dimension;
@@ -256,13 +256,14 @@ impl Sheet {
     pub fn to_file(&self) -> SheetFile {
         SheetFile {
             format: FORMAT.to_owned(),
-            version: VERSION,
+            version: 1,
             project: self.project.get_untracked(),
             date: self.date.get_untracked(),
             units: self.units.get_untracked(),
             basis: self.basis.get_untracked(),
             lines: self.lines.with_untracked(|v| v.iter().map(|s| s.file.get_untracked()).collect()),
         }
+        .with_required_version()
     }
 
     /// Changes one field's unit, rewriting bare numbers so their meaning stays.
