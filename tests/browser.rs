@@ -380,3 +380,35 @@ async fn valves_smallest_size_and_velocity_by_size_are_set_from_the_editor() {
     // The designation reads with its unit system's name for the size.
     assert!(text(&root, "answer-designation").starts_with("NPS "));
 }
+
+#[wasm_bindgen_test]
+async fn a_flow_can_come_from_a_heat_load_and_the_typed_flow_is_kept() {
+    // As a person would: switch the flow to a heat load, type 45 kW and
+    // 6 K; the page shows the derived flow and sizes with it, exactly as the
+    // core does for the file those inputs made. Switching back brings the
+    // typed flow back.
+    let (root, sheet) = mount_sheet(|s| chilled(s, "AHU-2 coil", "4"));
+    let first = sheet.lines.with_untracked(|v| v[0].id);
+    sheet.selected.set(Some(first));
+    leptos::task::tick().await;
+    choose(&root, "flow-from", "load");
+    leptos::task::tick().await;
+    type_into(&root, "load-power", "45 kW");
+    type_into(&root, "load-delta-t", "6");
+    leptos::task::tick().await;
+    let file = sheet.lines.with_untracked(|v| v[0].file.get_untracked());
+    let o = evaluate_line(1, &file, &Units::defaults(System::Si)).outcome.unwrap();
+    let derived = text(&root, "derived-flow");
+    assert_eq!(derived, format!("Flow = Φ / (ρ c_p ΔT) = {}", o.flow_text.clone().unwrap()));
+    // 45 kW / (ρ c_p 6 K) at 7 °C is about 1.79 L/s.
+    assert!((o.line.flow.value - 1.79e-3).abs() < 0.01e-3, "{}", o.line.flow.value);
+    assert_eq!(text(&root, "proposed-size"), core_answer(&sheet, 0));
+    // A zero ΔT is a message beside it, not a crash.
+    type_into(&root, "load-delta-t", "0");
+    leptos::task::tick().await;
+    assert!(all_text(&root, "load-delta-t-error").concat().contains("greater than zero"));
+    choose(&root, "flow-from", "flow");
+    leptos::task::tick().await;
+    let input: HtmlInputElement = find(&root, "flow").unchecked_into();
+    assert_eq!(input.value(), "4");
+}

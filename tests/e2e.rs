@@ -17,6 +17,7 @@ fn typed_line() -> LineFile {
     LineFile {
         name: "CHW main, plant room".into(),
         flow: "18.5".into(),
+        load: None,
         fluid: FluidFile::Water { temperature: "6".into(), pressure: Some("350".into()) },
         pipe: PipeFile::Series("steel-sch40".into()),
         roughness: None,

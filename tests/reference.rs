@@ -118,6 +118,7 @@ fn darby_constants_agree_with_fluids() {
 fn water_agrees_with_iapws_and_coolprop() {
     let data = load("water.json");
     let (mut if97, mut mu08, mut cp_rho, mut cp_mu): (f64, f64, f64, f64) = (0.0, 0.0, 0.0, 0.0);
+    let (mut if97_cp, mut coolprop_cp): (f64, f64) = (0.0, 0.0);
     let points = data["points"].as_array().unwrap();
     for p in points {
         let t = ThermodynamicTemperature::new::<degree_celsius>(f(&p["t_c"]));
@@ -127,7 +128,14 @@ fn water_agrees_with_iapws_and_coolprop() {
         mu08 = mu08.max(rel(w.viscosity_pa_s(), f(&p["iapws2008_mu"])));
         cp_rho = cp_rho.max(rel(w.density_kg_m3(), f(&p["coolprop_rho"])));
         cp_mu = cp_mu.max(rel(w.viscosity_pa_s(), f(&p["coolprop_mu"])));
+        let c = water::specific_heat(t, Pressure::new::<pascal>(f(&p["p_pa"]))).unwrap();
+        if97_cp = if97_cp.max(rel(c, f(&p["if97_cp"])));
+        coolprop_cp = coolprop_cp.max(rel(c, f(&p["coolprop_cp"])));
     }
+    println!("water c_p: vs iapws IF97 {if97_cp:.1e}, vs CoolProp (IAPWS-95) {coolprop_cp:.1e}");
+    assert!(if97_cp < 1e-9, "{if97_cp}");
+    // IF97's c_p is a fit to IAPWS-95 within about 0.1 % in region 1.
+    assert!(coolprop_cp < 2e-3, "{coolprop_cp}");
     println!(
         "water at {} states 0.5–95 °C: vs iapws IF97 ρ {if97:.1e}, IAPWS 2008 μ {mu08:.1e}; vs CoolProp (IAPWS-95) ρ {cp_rho:.1e}, μ {cp_mu:.1e}",
         points.len()
@@ -144,6 +152,7 @@ fn water_agrees_with_iapws_and_coolprop() {
 fn glycol_table_interpolation_agrees_with_coolprop_off_grid() {
     let data = load("glycol.json");
     let (mut rho_worst, mut mu_worst, mut freeze_worst): (f64, f64, f64) = (0.0, 0.0, 0.0);
+    let mut cp_worst: f64 = 0.0;
     let points = data["points"].as_array().unwrap();
     for p in points {
         let g = if p["glycol"] == "ethylene" { Glycol::Ethylene } else { Glycol::Propylene };
@@ -153,6 +162,8 @@ fn glycol_table_interpolation_agrees_with_coolprop_off_grid() {
         rho_worst = rho_worst.max(((got.density_kg_m3() - f(&p["rho"])) / f(&p["rho"])).abs());
         mu_worst = mu_worst.max(((got.viscosity_pa_s() - f(&p["mu"])) / f(&p["mu"])).abs());
         freeze_worst = freeze_worst.max((glycol::freezing_point_c(g, x).unwrap() - f(&p["freeze_c"])).abs());
+        let cp = glycol::specific_heat(g, x, t).unwrap();
+        cp_worst = cp_worst.max(((cp - f(&p["cp"])) / f(&p["cp"])).abs());
     }
     println!(
         "glycol vs CoolProp at {} off-grid states: ρ {:.3} %, μ {:.2} %, freezing point {freeze_worst:.2} K",
@@ -163,6 +174,8 @@ fn glycol_table_interpolation_agrees_with_coolprop_off_grid() {
     assert!(rho_worst < 5e-4, "{rho_worst}");
     assert!(mu_worst < 0.03, "{mu_worst}");
     assert!(freeze_worst < 1.5, "{freeze_worst}");
+    println!("glycol c_p vs CoolProp at the same states: {:.3} %", cp_worst * 100.0);
+    assert!(cp_worst < 2e-3, "{cp_worst}");
 }
 
 #[test]
@@ -284,4 +297,39 @@ fn crane_components_agree_with_fluids() {
     // fit, on the safe side; every other size within 5 %.
     assert!(worst_ft < 0.085 && others < 0.05, "{worst_ft} {others}");
     assert!((cv - CV_PER_KV).abs() < 2e-4);
+}
+
+#[test]
+#[ignore = "needs target/reference from tests/reference/generate.py: scripts/test runs it"]
+fn heat_loads_become_the_flows_coolprop_gives() {
+    // Q = Φ / (ρ c_p ΔT) with CoolProp 8.0.0's ρ and c_p (water IAPWS-95,
+    // INCOMP::MEG/MPG), against the flow the sheet derives from the same load.
+    use headroom::sheet::file::SheetFile;
+    use headroom::sheet::report::evaluate;
+    let data = load("loads.json");
+    let mut worst: f64 = 0.0;
+    for c in data["cases"].as_array().unwrap() {
+        let fluid = match c["kind"].as_str().unwrap() {
+            "water" => {
+                format!(r#"{{"kind":"water","temperature":"{} °C","pressure":"{} Pa"}}"#, f(&c["t_c"]), f(&c["p_pa"]))
+            }
+            g => format!(
+                r#"{{"kind":"glycol","glycol":"{g}","percent":"{}","temperature":"{} °C"}}"#,
+                f(&c["percent"]),
+                f(&c["t_c"])
+            ),
+        };
+        let json = format!(
+            r#"{{"format":"headroom-sheet","version":2,"lines":[{{"load":{{"power":"{} W","delta_t":"{} K"}},
+            "fluid":{fluid},"pipe":{{"series":"steel-sch40"}},"length":"10","limits":{{"max_velocity":"2"}}}}]}}"#,
+            f(&c["power_w"]),
+            f(&c["dt_k"])
+        );
+        let o = evaluate(&SheetFile::from_json(&json).unwrap()).remove(0).outcome.unwrap();
+        let want = f(&c["flow_m3_s"]);
+        worst = worst.max(((o.line.flow.value - want) / want).abs());
+        assert!(o.flow_text.is_some());
+    }
+    println!("heat load to flow vs CoolProp, 6 cases (water, MEG, MPG): worst {:.3} %", worst * 100.0);
+    assert!(worst < 2e-3, "{worst}");
 }

@@ -17,6 +17,10 @@ pub enum Field {
     Name,
     /// Design flow.
     Flow,
+    /// A heat load the flow is derived from.
+    LoadPower,
+    /// The temperature difference across the load.
+    LoadDeltaT,
     /// The fluid as a whole (its properties could not be found).
     Fluid,
     /// Fluid temperature.
@@ -87,14 +91,20 @@ pub enum Field {
     UnitsTemperature,
     /// The sheet's roughness unit.
     UnitsRoughness,
+    /// The sheet's heat-load unit.
+    UnitsPower,
+    /// The sheet's temperature-difference unit.
+    UnitsTemperatureDifference,
 }
 
 impl Field {
     /// Every field, in the order of the sheet file.
-    pub const ALL: [Field; 38] = [
+    pub const ALL: [Field; 42] = [
         Field::Line,
         Field::Name,
         Field::Flow,
+        Field::LoadPower,
+        Field::LoadDeltaT,
         Field::Fluid,
         Field::FluidTemperature,
         Field::FluidPressure,
@@ -130,6 +140,8 @@ impl Field {
         Field::UnitsVelocity,
         Field::UnitsTemperature,
         Field::UnitsRoughness,
+        Field::UnitsPower,
+        Field::UnitsTemperatureDifference,
     ];
 
     /// Its place in the sheet file, e.g. "limits.max_velocity".
@@ -138,6 +150,8 @@ impl Field {
             Field::Line => "line",
             Field::Name => "name",
             Field::Flow => "flow",
+            Field::LoadPower => "load.power",
+            Field::LoadDeltaT => "load.delta_t",
             Field::Fluid => "fluid",
             Field::FluidTemperature => "fluid.temperature",
             Field::FluidPressure => "fluid.pressure",
@@ -173,6 +187,8 @@ impl Field {
             Field::UnitsVelocity => "units.velocity",
             Field::UnitsTemperature => "units.temperature",
             Field::UnitsRoughness => "units.roughness",
+            Field::UnitsPower => "units.power",
+            Field::UnitsTemperatureDifference => "units.temperature_difference",
         }
     }
 
@@ -182,6 +198,8 @@ impl Field {
             Field::Line => "the line",
             Field::Name => "line name",
             Field::Flow => "flow",
+            Field::LoadPower => "heat load",
+            Field::LoadDeltaT => "temperature difference",
             Field::Fluid => "the fluid",
             Field::FluidTemperature => "temperature",
             Field::FluidPressure => "pressure",
@@ -215,6 +233,8 @@ impl Field {
             Field::UnitsVelocity => "velocity unit",
             Field::UnitsTemperature => "temperature unit",
             Field::UnitsRoughness => "roughness unit",
+            Field::UnitsPower => "heat-load unit",
+            Field::UnitsTemperatureDifference => "temperature-difference unit",
         }
     }
 

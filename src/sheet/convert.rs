@@ -45,6 +45,16 @@ fn opt(slot: &mut Option<String>, dim: Dimension, old: &'static Unit, new: &'sta
 /// `density` (kg/m³) is the line's, when it is known.
 pub fn line(l: &mut LineFile, old: &Units, new: &Units, density: Option<f64>) {
     field(&mut l.flow, Dimension::Flow, old.flow, new.flow, density);
+    if let Some(load) = &mut l.load {
+        field(&mut load.power, Dimension::Power, old.power, new.power, None);
+        field(
+            &mut load.delta_t,
+            Dimension::TemperatureDifference,
+            old.temperature_difference,
+            new.temperature_difference,
+            None,
+        );
+    }
     match &mut l.fluid {
         FluidFile::Water { temperature, pressure } => {
             field(temperature, Dimension::Temperature, old.temperature, new.temperature, None);
@@ -96,8 +106,13 @@ mod tests {
             "components":[{"kind":"rated","drop":"6.894757","at_flow":"6.30902"}]}"#,
         )
         .unwrap();
+        l.load = Some(crate::sheet::file::LoadFile { power: "0.29307107".into(), delta_t: "5".into() });
         line(&mut l, &si, &us, Some(1000.0));
         assert_eq!((l.components[0].drop.as_str(), l.components[0].at_flow.as_str()), ("1", "100"));
+        // A heat load's bare numbers too: 0.29307107 kW is 1000 Btu/h (NIST
+        // SP 811, Btu_IT), a 5 K difference is 9 °F.
+        let load = l.load.unwrap();
+        assert_eq!((load.power.as_str(), load.delta_t.as_str()), ("1000", "9"));
         // Text that is not a number is left alone: nothing typed is lost.
         assert_eq!(rewrite("lots", Dimension::Flow, si.flow, us.flow, None), "lots");
     }

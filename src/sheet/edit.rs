@@ -7,7 +7,9 @@
 //! - Switching a fluid or a pipe keeps what still applies (the temperature,
 //!   the material) and fills the rest with defaults marked below.
 
-use super::file::{ComponentFile, ComponentKind, FittingCount, FluidFile, GlycolName, LineFile, MethodName, PipeFile};
+use super::file::{
+    ComponentFile, ComponentKind, FittingCount, FluidFile, GlycolName, LineFile, LoadFile, MethodName, PipeFile,
+};
 use super::presets::Service;
 use crate::hydraulics::field::Field;
 use crate::hydraulics::losses::Fitting;
@@ -70,6 +72,8 @@ impl LineFile {
         match (field, &self.fluid, &self.pipe) {
             (Field::Name, ..) => self.name.clone(),
             (Field::Flow, ..) => self.flow.clone(),
+            (Field::LoadPower, ..) => self.load.as_ref().map(|l| l.power.clone()).unwrap_or_default(),
+            (Field::LoadDeltaT, ..) => self.load.as_ref().map(|l| l.delta_t.clone()).unwrap_or_default(),
             (
                 Field::FluidTemperature,
                 FluidFile::Water { temperature, .. } | FluidFile::Glycol { temperature, .. },
@@ -101,6 +105,16 @@ impl LineFile {
         match (field, &mut self.fluid, &mut self.pipe) {
             (Field::Name, ..) => self.name = text,
             (Field::Flow, ..) => self.flow = text,
+            (Field::LoadPower, ..) => {
+                if let Some(l) = &mut self.load {
+                    l.power = text;
+                }
+            }
+            (Field::LoadDeltaT, ..) => {
+                if let Some(l) = &mut self.load {
+                    l.delta_t = text;
+                }
+            }
             (
                 Field::FluidTemperature,
                 FluidFile::Water { temperature, .. } | FluidFile::Glycol { temperature, .. },
@@ -234,6 +248,17 @@ impl LineFile {
     /// Adds a row of one welded 90° elbow.
     pub fn add_fitting(&mut self) {
         self.fittings.push(FittingCount::new(Fitting::Elbow90Welded.id(), 1));
+    }
+
+    /// Gives the flow as a heat load and ΔT (`true`) or as a flow. Nothing
+    /// typed is lost: the flow text stays while a load is used, and a load
+    /// put aside is kept until the line is saved without it.
+    pub fn set_flow_from_load(&mut self, load: bool) {
+        match (load, &self.load) {
+            (true, None) => self.load = Some(LoadFile::default()),
+            (false, Some(_)) => self.load = None,
+            _ => {}
+        }
     }
 
     /// Adds a valve or piece of equipment (a Kv valve to start with).

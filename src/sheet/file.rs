@@ -28,8 +28,9 @@ pub const FORMAT: &str = "headroom-sheet";
 /// newer rather than as damaged.
 ///
 /// - 1: the first format.
-/// - 2: adds `basis`, `components`, `smallest_size` and
-///   `limits.velocity_by_size`.
+/// - 2: adds `basis`, `components`, `smallest_size`,
+///   `limits.velocity_by_size`, `load`, and the units `power` and
+///   `temperature_difference`.
 pub const VERSION: u32 = 2;
 
 /// A whole worksheet.
@@ -136,6 +137,12 @@ pub struct UnitChoice {
     /// Roughness unit.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub roughness: Option<String>,
+    /// Heat-load unit (version 2).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub power: Option<String>,
+    /// Temperature-difference unit (version 2).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub temperature_difference: Option<String>,
 }
 
 /// The unit of each field, resolved.
@@ -155,6 +162,10 @@ pub struct Units {
     pub temperature: &'static Unit,
     /// Roughness.
     pub roughness: &'static Unit,
+    /// Heat loads.
+    pub power: &'static Unit,
+    /// Temperature differences.
+    pub temperature_difference: &'static Unit,
     /// The sheet's design basis.
     pub basis: Basis,
 }
@@ -172,6 +183,8 @@ impl Units {
                 velocity: f(Dimension::Velocity, "m/s"),
                 temperature: f(Dimension::Temperature, "°C"),
                 roughness: f(Dimension::Roughness, "mm"),
+                power: f(Dimension::Power, "kW"),
+                temperature_difference: f(Dimension::TemperatureDifference, "K"),
                 basis: Basis::default(),
             },
             System::Us => Units {
@@ -182,6 +195,8 @@ impl Units {
                 velocity: f(Dimension::Velocity, "ft/s"),
                 temperature: f(Dimension::Temperature, "°F"),
                 roughness: f(Dimension::Roughness, "in"),
+                power: f(Dimension::Power, "Btu/h"),
+                temperature_difference: f(Dimension::TemperatureDifference, "°F"),
                 basis: Basis::default(),
             },
         }
@@ -199,6 +214,8 @@ impl Units {
             Dimension::Velocity => self.velocity,
             Dimension::Temperature => self.temperature,
             Dimension::Roughness => self.roughness,
+            Dimension::Power => self.power,
+            Dimension::TemperatureDifference => self.temperature_difference,
         }
     }
 
@@ -221,6 +238,8 @@ impl UnitChoice {
             Dimension::Velocity => &mut self.velocity,
             Dimension::Temperature => &mut self.temperature,
             Dimension::Roughness => &mut self.roughness,
+            Dimension::Power => &mut self.power,
+            Dimension::TemperatureDifference => &mut self.temperature_difference,
         }
     }
 
@@ -245,6 +264,13 @@ impl UnitChoice {
         pick(&mut u.velocity, &self.velocity, Dimension::Velocity, Field::UnitsVelocity)?;
         pick(&mut u.temperature, &self.temperature, Dimension::Temperature, Field::UnitsTemperature)?;
         pick(&mut u.roughness, &self.roughness, Dimension::Roughness, Field::UnitsRoughness)?;
+        pick(&mut u.power, &self.power, Dimension::Power, Field::UnitsPower)?;
+        pick(
+            &mut u.temperature_difference,
+            &self.temperature_difference,
+            Dimension::TemperatureDifference,
+            Field::UnitsTemperatureDifference,
+        )?;
         Ok(u)
     }
 }
@@ -256,8 +282,13 @@ pub struct LineFile {
     /// Line name, e.g. "CHW riser B2".
     #[serde(default)]
     pub name: String,
-    /// Design flow.
+    /// Design flow (ignored while `load` is set: the flow is derived).
+    #[serde(default)]
     pub flow: String,
+    /// A heat load and temperature difference the flow is derived from
+    /// (version 2).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub load: Option<LoadFile>,
     /// The fluid.
     pub fluid: FluidFile,
     /// The pipe: a series id or a custom bore.
@@ -301,6 +332,19 @@ pub struct LineFile {
     /// The smallest size the search may propose.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub smallest_size: Option<String>,
+}
+
+/// A heat load and the temperature difference across it, as typed: the
+/// flow is Φ / (ρ c_p ΔT).
+#[derive(Debug, Clone, PartialEq, Eq, Serialize, Deserialize, Default)]
+#[serde(deny_unknown_fields)]
+pub struct LoadFile {
+    /// The heat load.
+    #[serde(default)]
+    pub power: String,
+    /// The temperature difference.
+    #[serde(default)]
+    pub delta_t: String,
 }
 
 /// A valve or piece of equipment, as stored. Which texts count depends on
@@ -771,6 +815,10 @@ impl LineFile {
     pub fn each_text(&self, visit: &mut dyn FnMut(&str, &str)) {
         visit("name", &self.name);
         visit("flow", &self.flow);
+        if let Some(load) = &self.load {
+            visit("load.power", &load.power);
+            visit("load.delta_t", &load.delta_t);
+        }
         match &self.fluid {
             FluidFile::Water { temperature, pressure } => {
                 visit("fluid.temperature", temperature);

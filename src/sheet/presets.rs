@@ -83,6 +83,7 @@ impl Service {
         LineFile {
             name: name.to_owned(),
             flow: String::new(),
+            load: None,
             fluid: FluidFile::Water {
                 temperature: format!("{} °C", self.temperature_c),
                 pressure: Some(format!("{} kPa", self.pressure_kpa)),

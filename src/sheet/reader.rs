@@ -17,7 +17,7 @@ use uom::si::thermodynamic_temperature::kelvin;
 use uom::si::velocity::meter_per_second;
 use uom::si::volume_rate::cubic_meter_per_second;
 
-use super::file::{ComponentKind, FieldError, FluidFile, LineFile, MethodName, PipeFile, Units};
+use super::file::{ComponentKind, FieldError, FluidFile, LineFile, LoadFile, MethodName, PipeFile, Units};
 use super::number::{parse_count, parse_decimal};
 use super::units::{self, Dimension, Unit};
 use crate::hydraulics::field::Field;
@@ -175,6 +175,37 @@ impl Reader<'_> {
             return None; // the fluid's error is already reported
         }
         self.measure(Field::Flow, text, Dimension::Flow, unit, rho)
+    }
+
+    /// The flow a heat load needs: Q = Φ / (ρ c_p ΔT), with ρ and c_p of
+    /// the line's fluid at its temperature and pressure.
+    fn load_flow(&mut self, load: &LoadFile, at: &FluidAt, rho: Option<f64>) -> Option<f64> {
+        let u = self.units;
+        let power = self.measure(Field::LoadPower, &load.power, Dimension::Power, u.power, None);
+        let dt = self.measure(
+            Field::LoadDeltaT,
+            &load.delta_t,
+            Dimension::TemperatureDifference,
+            u.temperature_difference,
+            None,
+        );
+        if let Some(p) = power.filter(|p| !(p.is_finite() && *p > 0.0)) {
+            self.fail(Field::LoadPower, format!("the heat load must be greater than zero, not {p} W"));
+            return None;
+        }
+        if dt.is_some_and(|d| !(d.is_finite() && d > 0.0)) {
+            self.fail(Field::LoadDeltaT, "the temperature difference must be greater than zero");
+            return None;
+        }
+        let (power, dt, rho) = (power?, dt?, rho?);
+        let (f, t, p) = (at.fluid?, at.t_k?, at.p_pa?);
+        match f.specific_heat(ThermodynamicTemperature::new::<kelvin>(t), Pressure::new::<pascal>(p)) {
+            Ok(cp) => Some(power / (rho * cp * dt)),
+            Err(e) => {
+                self.fail(Field::LoadPower, e.to_string());
+                None
+            }
+        }
     }
 
     fn pipe(&mut self, p: &PipeFile) -> (Option<Pipe>, Option<Material>) {
@@ -400,7 +431,10 @@ impl LineFile {
         let mut r = Reader { errors: Vec::new(), units };
         let at = r.fluid(&self.fluid);
         let rho = r.properties(&at).map(|p| p.density_kg_m3());
-        let flow = r.flow(&self.flow, rho);
+        let flow = match &self.load {
+            Some(load) => r.load_flow(load, &at, rho),
+            None => r.flow(&self.flow, rho),
+        };
         let (pipe, material) = r.pipe(&self.pipe);
         let roughness = r.roughness(self, material);
         let length = r.length(&self.length);

@@ -33,6 +33,9 @@ pub struct Outcome {
     pub figures: Option<Figures>,
     /// The verdict in words: what set the size, or why none fits.
     pub verdict: String,
+    /// The flow derived from a heat load, in the sheet's unit (`None` when
+    /// the flow was typed).
+    pub flow_text: Option<String>,
 }
 
 /// What the open results panel shows beyond the [`Outcome`]: the sizes
@@ -122,7 +125,8 @@ pub fn evaluate_line(number: usize, lf: &LineFile, units: &Units) -> LineReport 
         let capacity = shown.and_then(|i| sizing::capacity(&line, sizing.candidates[i].point.bore).ok());
         let figures = shown.map(|i| Figures::of(&sizing.candidates[i], units, rho));
         let verdict = verdict_text(&line, &sizing, units);
-        Ok(Outcome { line, sizing, shown, checked, capacity, figures, verdict })
+        let flow_text = lf.load.as_ref().map(|_| show(line.flow.value, units.flow, Some(rho), 4));
+        Ok(Outcome { line, sizing, shown, checked, capacity, figures, verdict, flow_text })
     });
     LineReport { number, name: lf.name.clone(), outcome }
 }
@@ -351,6 +355,9 @@ fn table_row(r: &LineReport, u: &Units, notes: &mut Vec<String>) -> [String; COL
         }
         Ok(o) => o,
     };
+    if let Some(q) = &o.flow_text {
+        notes.push(format!("line {}: flow from its heat load, Φ / (ρ c_p ΔT) = {q}", r.number));
+    }
     notes.push(format!("line {}: {}", r.number, o.verdict));
     let row = match o.shown {
         None => status_row(r, "NO SIZE", "see below".into()),
@@ -556,6 +563,8 @@ struct JsonLine<'a> {
     line: usize,
     name: &'a str,
     errors: Vec<String>,
+    flow_m3_s: Option<f64>,
+    flow_from_load: bool,
     density_kg_m3: Option<f64>,
     viscosity_pa_s: Option<f64>,
     proposed_size: Option<&'a str>,
@@ -589,6 +598,8 @@ pub fn json(sheet: &SheetFile, reports: &[LineReport]) -> String {
                 line: r.number,
                 name: &r.name,
                 errors: Vec::new(),
+                flow_m3_s: Some(o.line.flow.value),
+                flow_from_load: o.flow_text.is_some(),
                 density_kg_m3: Some(o.sizing.properties.density_kg_m3()),
                 viscosity_pa_s: Some(o.sizing.properties.viscosity_pa_s()),
                 proposed_size: o.sizing.proposal().map(|c| c.nominal),
@@ -630,6 +641,8 @@ pub fn json(sheet: &SheetFile, reports: &[LineReport]) -> String {
                 line: r.number,
                 name: &r.name,
                 errors: errs.iter().map(|e| e.to_string()).collect(),
+                flow_m3_s: None,
+                flow_from_load: false,
                 density_kg_m3: None,
                 viscosity_pa_s: None,
                 proposed_size: None,

@@ -32,11 +32,15 @@ pub enum Dimension {
     Temperature,
     /// Absolute roughness; SI m.
     Roughness,
+    /// A heat load (power); SI W.
+    Power,
+    /// A temperature difference; SI K.
+    TemperatureDifference,
 }
 
 impl Dimension {
     /// Every dimension, in the order of the sheet file's `units`.
-    pub const ALL: [Dimension; 7] = [
+    pub const ALL: [Dimension; 9] = [
         Dimension::Flow,
         Dimension::Pressure,
         Dimension::DropPerLength,
@@ -44,6 +48,8 @@ impl Dimension {
         Dimension::Velocity,
         Dimension::Temperature,
         Dimension::Roughness,
+        Dimension::Power,
+        Dimension::TemperatureDifference,
     ];
 
     /// Its key in the sheet file's `units` ("drop_per_length").
@@ -56,6 +62,8 @@ impl Dimension {
             Dimension::Velocity => "velocity",
             Dimension::Temperature => "temperature",
             Dimension::Roughness => "roughness",
+            Dimension::Power => "power",
+            Dimension::TemperatureDifference => "temperature_difference",
         }
     }
 
@@ -68,6 +76,8 @@ impl Dimension {
             Dimension::Velocity => "velocity",
             Dimension::Temperature => "temperature",
             Dimension::Roughness => "roughness",
+            Dimension::Power => "heat load",
+            Dimension::TemperatureDifference => "temperature difference",
         }
     }
 }
@@ -110,6 +120,9 @@ const LB: f64 = 0.453_592_37;
 const US_GAL: f64 = 3.785_411_784e-3;
 const UK_GAL: f64 = 4.546_09e-3;
 const PSI: f64 = 6_894.757_293_168;
+/// 1 Btu_IT/h in W: 1055.05585262 J / 3600 s (NIST SP 811, B.8, the
+/// International Table Btu).
+const BTU_H: f64 = 1_055.055_852_62 / 3_600.0;
 const G_N: f64 = crate::hydraulics::losses::G_N;
 /// Conventional water column: 1 m H₂O = g_n × 1000 kg/m³ = 9806.65 Pa
 /// (NIST SP 811, appendix B.8: "meter of water, conventional").
@@ -167,6 +180,15 @@ pub const UNITS: &[Unit] = &[
     unit!("°C", Temperature, Scale::Affine(273.15, 1.0), ["c", "degc"]),
     unit!("°F", Temperature, Scale::Affine(459.67, 5.0 / 9.0), ["f", "degf"]),
     unit!("K", Temperature, Scale::Affine(0.0, 1.0), ["k"]),
+    unit!("W", Power, Scale::Linear(1.0), []),
+    unit!("kW", Power, Scale::Linear(1e3), []),
+    unit!("MW", Power, Scale::Linear(1e6), []),
+    unit!("Btu/h", Power, Scale::Linear(BTU_H), ["btu/hr", "btuh"]),
+    unit!("MBH", Power, Scale::Linear(1e3 * BTU_H), ["mbtu/h", "kbtu/h"]),
+    // NIST SP 811, B.8: ton of refrigeration (12 000 Btu_IT/h).
+    unit!("ton", Power, Scale::Linear(12e3 * BTU_H), ["tons", "tr", "tonr"]),
+    unit!("K", TemperatureDifference, Scale::Linear(1.0), ["k", "°c", "c", "degc"]),
+    unit!("°F", TemperatureDifference, Scale::Linear(5.0 / 9.0), ["f", "degf", "°r"]),
     unit!("mm", Roughness, Scale::Linear(1e-3), []),
     unit!("µm", Roughness, Scale::Linear(1e-6), ["um", "micron"]),
     unit!("in", Roughness, Scale::Linear(IN), ["\"", "inch"]),

@@ -18,7 +18,9 @@ use crate::sheet::units::{self, Dimension};
 
 /// The fields whose errors the editor shows beside an input (each fitting
 /// row checks its own count); the others are listed at the top.
-pub const BESIDE_INPUTS: [Field; 24] = [
+pub const BESIDE_INPUTS: [Field; 26] = [
+    Field::LoadPower,
+    Field::LoadDeltaT,
     Field::VelocityBySize,
     Field::SmallestSize,
     Field::Components,
@@ -121,12 +123,32 @@ fn FlowAndFluid() -> impl IntoView {
     let line = expect_context::<Slot>();
     let file = line.file;
     let kind = move || file.with(|f| f.fluid_kind());
+    let from_load = move || file.with(|f| f.load.is_some());
     let is_glycol =
         move |g: Glycol| file.with(|f| matches!(&f.fluid, FluidFile::Glycol { glycol, .. } if *glycol == g));
     view! {
         <fieldset>
             <legend>"Flow and fluid"</legend>
-            <LineText field=Field::Flow label="Design flow" id="flow" unit=Dimension::Flow placeholder="e.g. 12.5 or 95 gpm"/>
+            <div class="field">
+                <label for="flow-from">"Flow from"</label>
+                <select id="flow-from" data-testid="flow-from"
+                    on:change=move |ev| { let v = event_target_value(&ev); file.update(|f| f.set_flow_from_load(v == "load")) }>
+                    <option value="flow" selected=move || !from_load()>"a flow"</option>
+                    <option value="load" selected=from_load>"a heat load and ΔT"</option>
+                </select>
+            </div>
+            {move || if from_load() {
+                view! {
+                    <LineText field=Field::LoadPower label="Heat load" id="load-power" unit=Dimension::Power placeholder="e.g. 45 kW"/>
+                    <LineText field=Field::LoadDeltaT label="Temperature difference" id="load-delta-t" unit=Dimension::TemperatureDifference placeholder="e.g. 6 K"/>
+                    <p class="derived" data-testid="derived-flow" aria-live="polite">{move || line.report.with(|r| match &r.outcome {
+                        Ok(o) => o.flow_text.clone().map(|q| format!("Flow = Φ / (ρ c_p ΔT) = {q}")).unwrap_or_default(),
+                        Err(_) => String::new(),
+                    })}</p>
+                }.into_any()
+            } else {
+                view! { <LineText field=Field::Flow label="Design flow" id="flow" unit=Dimension::Flow placeholder="e.g. 12.5 or 95 gpm"/> }.into_any()
+            }}
             <div class="field">
                 <label for="fluid-kind">"Fluid"</label>
                 <select id="fluid-kind" data-testid="fluid-kind" prop:value=move || kind().id()

@@ -60,7 +60,16 @@ fn PrintLine(line: Slot, number: usize, stamp: RwSignal<u32>) -> impl IntoView {
         let f = line.file.get_untracked();
         let r = line.report.get_untracked();
         let inputs = vec![
-            ("Flow", f.flow.clone()),
+            (
+                "Flow",
+                match (&f.load, r.outcome.as_ref().ok().and_then(|o| o.flow_text.clone())) {
+                    (Some(l), Some(q)) => {
+                        format!("from a heat load of {} at ΔT {}: Φ / (ρ c_p ΔT) = {q}", l.power, l.delta_t)
+                    }
+                    (Some(l), None) => format!("from a heat load of {} at ΔT {}", l.power, l.delta_t),
+                    (None, _) => f.flow.clone(),
+                },
+            ),
             ("Fluid", fluid_text(&f)),
             (
                 "Pipe",

@@ -142,6 +142,8 @@ for t_c in [0.5, 4, 10, 15, 20, 25, 30, 40, 50, 60, 70, 80, 90, 95]:
             "coolprop_mu": CP.PropsSI("V", "T", T, "P", p, "Water"),
             "if97_rho": w.rho,
             "iapws2008_mu": _Viscosity(w.rho, T),
+            "if97_cp": w.cp * 1e3,
+            "coolprop_cp": CP.PropsSI("C", "T", T, "P", p, "Water"),
         })
 dump("water.json", {"versions": versions, "points": water})
 
@@ -159,6 +161,7 @@ for code, name in [("MEG", "ethylene"), ("MPG", "propylene")]:
                 "glycol": name, "percent": pct, "t_c": t_c, "freeze_c": tf,
                 "rho": CP.PropsSI("D", "T", T, "P", 101325, fl),
                 "mu": CP.PropsSI("V", "T", T, "P", 101325, fl),
+                "cp": CP.PropsSI("C", "T", T, "P", 101325, fl),
             })
 freezing = []
 for code, name in [("MEG", "ethylene"), ("MPG", "propylene")]:
@@ -167,4 +170,18 @@ for code, name in [("MEG", "ethylene"), ("MPG", "propylene")]:
         freezing.append({"glycol": name, "percent": pct,
                          "freeze_c": CP.PropsSI("T_freeze", "T", 300, "P", 101325, fl) - 273.15})
 dump("glycol.json", {"versions": versions, "points": glycol, "freezing": freezing})
+# Heat loads to flows: Q = P / (rho cp dT) with CoolProp's rho and cp.
+loads = []
+for kind, pct, t_c, p_pa, power_w, dt in [
+    ("water", 0, 7.0, 300e3, 45e3, 6.0), ("water", 0, 80.0, 300e3, 120e3, 20.0),
+    ("water", 0, 45.0, 400e3, 8.5e3, 5.0), ("water", 0, 12.0, 250e3, 1.2e6, 5.5),
+    ("ethylene", 30, -5.0, 101325, 60e3, 4.0), ("propylene", 40, 10.0, 101325, 25e3, 5.0),
+]:
+    fl = "Water" if kind == "water" else "INCOMP::%s-%g%%" % ("MEG" if kind == "ethylene" else "MPG", pct)
+    T = t_c + 273.15
+    rho = CP.PropsSI("D", "T", T, "P", p_pa, fl)
+    cp = CP.PropsSI("C", "T", T, "P", p_pa, fl)
+    loads.append({"kind": kind, "percent": pct, "t_c": t_c, "p_pa": p_pa, "power_w": power_w, "dt_k": dt,
+                  "flow_m3_s": power_w / (rho * cp * dt)})
+dump("loads.json", {"versions": versions, "cases": loads})
 print("reference values written to %s (%s)" % (out, ", ".join("%s %s" % kv for kv in versions.items())))

@@ -1,4 +1,4 @@
-"""Writes src/hydraulics/fluid/glycol_table.rs: density and viscosity of ethylene
+"""Writes src/hydraulics/fluid/glycol_table.rs: density, viscosity and specific heat of ethylene
 and propylene glycol solutions on a grid, tabulated from CoolProp's
 incompressible mixtures INCOMP::MEG and INCOMP::MPG, which implement the
 fits of Melinder, Å. (2010), Properties of Secondary Working Fluids for
@@ -76,6 +76,10 @@ for code, label in [("MEG", "ETHYLENE"), ("MPG", "PROPYLENE")]:
         "/// %s glycol: ln of dynamic viscosity in Pa·s, [fraction][temperature]." % label.title(),
         "pub const %s_LN_MU: [[f32; NT]; %d] = [" % (label, len(FRACTIONS)),
         rows(code, "V", math.log),
+        "];",
+        "/// %s glycol: specific heat c_p, J/(kg·K), [fraction][temperature]." % label.title(),
+        "pub const %s_CP: [[f32; NT]; %d] = [" % (label, len(FRACTIONS)),
+        rows(code, "C", lambda v: v),
         "];",
     ]
 open("src/hydraulics/fluid/glycol_table.rs", "w").write("\n".join(lines) + "\n")

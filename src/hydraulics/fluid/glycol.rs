@@ -70,6 +70,35 @@ pub fn freezing_point_c(g: Glycol, fraction: f64) -> Result<f64, FluidError> {
     Ok(quadratic.max(chord))
 }
 
+/// The table cells around a state, after the range checks every property
+/// shares: row `i` and weight `wx` in strength, column `j` and weight `wt`
+/// in temperature.
+fn locate(g: Glycol, fraction: f64, t: ThermodynamicTemperature) -> Result<(usize, f64, usize, f64), FluidError> {
+    let t_c = t.get::<degree_celsius>();
+    let freeze_c = freezing_point_c(g, fraction)?;
+    if !t_c.is_finite() || t_c > T_MAX_C {
+        return Err(FluidError::TemperatureRange { t_c, min_c: freeze_c.max(table::T_MIN_C), max_c: T_MAX_C });
+    }
+    if t_c < freeze_c {
+        return Err(FluidError::Freezes { t_c, freeze_c });
+    }
+    if t_c < table::T_MIN_C {
+        return Err(FluidError::TemperatureRange { t_c, min_c: table::T_MIN_C, max_c: T_MAX_C });
+    }
+    let (i, wx) = bracket(fraction);
+    let pos = ((t_c - table::T_MIN_C) / table::T_STEP_C).clamp(0.0, (table::NT - 1) as f64);
+    let j = (pos.floor() as usize).min(table::NT - 2);
+    Ok((i, wx, j, pos - j as f64))
+}
+
+/// Bilinear interpolation in one table at a located state.
+fn bilinear(m: &[[f32; table::NT]; 11], (i, wx, j, wt): (usize, f64, usize, f64)) -> f64 {
+    let at = |r: usize, c: usize| f64::from(m[r][c]);
+    let a = at(i, j) * (1.0 - wt) + at(i, j + 1) * wt;
+    let b = at(i + 1, j) * (1.0 - wt) + at(i + 1, j + 1) * wt;
+    a * (1.0 - wx) + b * wx
+}
+
 /// Density and viscosity of a glycol solution.
 ///
 /// # Errors
@@ -87,32 +116,26 @@ pub fn freezing_point_c(g: Glycol, fraction: f64) -> Result<f64, FluidError> {
 /// assert!((p.viscosity_pa_s() * 1e3 - 2.166).abs() < 0.002);
 /// ```
 pub fn properties(g: Glycol, fraction: f64, t: ThermodynamicTemperature) -> Result<Properties, FluidError> {
-    let t_c = t.get::<degree_celsius>();
-    let freeze_c = freezing_point_c(g, fraction)?;
-    if !t_c.is_finite() || t_c > T_MAX_C {
-        return Err(FluidError::TemperatureRange { t_c, min_c: freeze_c.max(table::T_MIN_C), max_c: T_MAX_C });
-    }
-    if t_c < freeze_c {
-        return Err(FluidError::Freezes { t_c, freeze_c });
-    }
-    if t_c < table::T_MIN_C {
-        return Err(FluidError::TemperatureRange { t_c, min_c: table::T_MIN_C, max_c: T_MAX_C });
-    }
+    let at = locate(g, fraction, t)?;
     let (_, rho, ln_mu) = tables(g);
-    let (i, wx) = bracket(fraction);
-    let pos = ((t_c - table::T_MIN_C) / table::T_STEP_C).clamp(0.0, (table::NT - 1) as f64);
-    let j = (pos.floor() as usize).min(table::NT - 2);
-    let wt = pos - j as f64;
-    let bilinear = |m: &[[f32; table::NT]; 11]| {
-        let at = |r: usize, c: usize| f64::from(m[r][c]);
-        let a = at(i, j) * (1.0 - wt) + at(i, j + 1) * wt;
-        let b = at(i + 1, j) * (1.0 - wt) + at(i + 1, j + 1) * wt;
-        a * (1.0 - wx) + b * wx
-    };
     Ok(Properties {
-        density: MassDensity::new::<kilogram_per_cubic_meter>(bilinear(rho)),
-        viscosity: DynamicViscosity::new::<pascal_second>(bilinear(ln_mu).exp()),
+        density: MassDensity::new::<kilogram_per_cubic_meter>(bilinear(rho, at)),
+        viscosity: DynamicViscosity::new::<pascal_second>(bilinear(ln_mu, at).exp()),
     })
+}
+
+/// Specific heat c_p of a glycol solution, J/(kg·K), from the same
+/// Melinder (2010) fits via the same CoolProp table.
+///
+/// # Errors
+/// As [`properties`].
+pub fn specific_heat(g: Glycol, fraction: f64, t: ThermodynamicTemperature) -> Result<f64, FluidError> {
+    let at = locate(g, fraction, t)?;
+    let cp = match g {
+        Glycol::Ethylene => &table::ETHYLENE_CP,
+        Glycol::Propylene => &table::PROPYLENE_CP,
+    };
+    Ok(bilinear(cp, at))
 }
 
 #[cfg(test)]

@@ -80,6 +80,20 @@ impl Fluid {
         }
     }
 
+    /// Specific heat c_p, J/(kg·K): water by IAPWS-IF97 region 1, glycols
+    /// from their table; a fluid typed in has none.
+    ///
+    /// # Errors
+    /// As [`Fluid::properties`]; [`FluidError::NoSpecificHeat`] for a fluid
+    /// typed in.
+    pub fn specific_heat(&self, t: ThermodynamicTemperature, p: Pressure) -> Result<f64, FluidError> {
+        match *self {
+            Fluid::Water => water::specific_heat(t, p),
+            Fluid::GlycolMix(g, x) => glycol::specific_heat(g, x, t),
+            Fluid::Custom(_) => Err(FluidError::NoSpecificHeat),
+        }
+    }
+
     /// A glycol mixture's freezing point, °C (`None` for other fluids or a
     /// strength outside the table, which [`Fluid::properties`] reports).
     pub fn freezing_point_c(&self) -> Option<f64> {

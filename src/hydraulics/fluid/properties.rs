@@ -73,6 +73,8 @@ pub enum FluidError {
     },
     /// A custom property that is not a positive, finite number.
     Custom(&'static str),
+    /// A heat load on a fluid with no specific heat (one typed in).
+    NoSpecificHeat,
 }
 
 impl std::fmt::Display for FluidError {
@@ -104,6 +106,10 @@ impl std::fmt::Display for FluidError {
                 max * 100.0
             ),
             FluidError::Custom(what) => write!(f, "{what} must be a positive number"),
+            FluidError::NoSpecificHeat => write!(
+                f,
+                "a heat load needs the fluid's specific heat, which a fluid typed in does not have: enter a flow"
+            ),
         }
     }
 }

@@ -80,6 +80,29 @@ pub fn if97_region1_specific_volume(t_k: f64, p_pa: f64) -> f64 {
     R * t_k / p_pa * pi * gamma_pi
 }
 
+/// Specific isobaric heat capacity in region 1, J/(kg·K), from T in K and p
+/// in Pa (IF97 table 3: c_p = −R τ² γ_ττ).
+pub fn if97_region1_cp(t_k: f64, p_pa: f64) -> f64 {
+    let pi = p_pa / 16.53e6;
+    let tau = 1386.0 / t_k;
+    let gamma_tautau: f64 = REGION1
+        .iter()
+        .map(|&(i, j, n)| n * (7.1 - pi).powi(i) * f64::from(j * (j - 1)) * (tau - 1.222).powi(j - 2))
+        .sum();
+    -R * tau * tau * gamma_tautau
+}
+
+/// Specific heat c_p of liquid water, J/(kg·K), at a temperature and an
+/// absolute pressure (IAPWS-IF97 region 1), with the same range checks as
+/// [`properties`].
+///
+/// # Errors
+/// As [`properties`].
+pub fn specific_heat(t: ThermodynamicTemperature, p: Pressure) -> Result<f64, FluidError> {
+    properties(t, p)?;
+    Ok(if97_region1_cp(t.get::<kelvin>(), p.get::<pascal>()))
+}
+
 /// Saturation pressure in Pa at T in K (IF97 region 4, eq. 30, table 34).
 pub fn if97_saturation_pressure(t_k: f64) -> f64 {
     const N: [f64; 10] = [
@@ -192,6 +215,17 @@ mod tests {
         {
             let got = if97_region1_specific_volume(t, p_mpa * 1e6);
             assert!(close(got, v, 5e-9), "T {t} p {p_mpa}: {got} vs {v}");
+        }
+    }
+
+    #[test]
+    fn if97_table5_region1_specific_heat() {
+        // IAPWS-IF97 (2007 revision), table 5, c_p in kJ/(kg·K).
+        for (t, p_mpa, cp) in
+            [(300.0, 3.0, 0.417_301_218e1), (300.0, 80.0, 0.401_008_987e1), (500.0, 3.0, 0.465_580_682e1)]
+        {
+            let got = if97_region1_cp(t, p_mpa * 1e6) / 1e3;
+            assert!(close(got, cp, 5e-9), "T {t} p {p_mpa}: {got} vs {cp}");
         }
     }
 
