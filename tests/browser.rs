@@ -409,6 +409,69 @@ async fn a_flow_can_come_from_a_heat_load_and_the_typed_flow_is_kept() {
     assert!(all_text(&root, "load-delta-t-error").concat().contains("greater than zero"));
     choose(&root, "flow-from", "flow");
     leptos::task::tick().await;
+    leptos::task::tick().await;
+    let file = sheet.lines.with_untracked(|v| v[0].file.get_untracked());
     let input: HtmlInputElement = find(&root, "flow").unchecked_into();
-    assert_eq!(input.value(), "4");
+    assert_eq!((file.flow.as_str(), file.load.is_none(), input.value()), ("4", true, "4".to_owned()));
+}
+
+#[wasm_bindgen_test]
+async fn loads_add_up_a_three_level_tree_and_the_page_shows_the_pump_duty() {
+    // A main, a riser fed from it and two coil branches fed from the riser,
+    // set up as a person would from the editor: loads on the coils only.
+    let (root, sheet) = mount_sheet(|s| {
+        for name in ["Main", "Riser", "Coil 1", "Coil 2"] {
+            chilled(s, name, "1");
+        }
+    });
+    let ids: Vec<u32> = sheet.lines.with_untracked(|v| v.iter().map(|s| s.id).collect());
+    for (k, (fed, power)) in
+        [(None, ""), (Some("Main"), ""), (Some("Riser"), "40 kW"), (Some("Riser"), "25 kW")].into_iter().enumerate()
+    {
+        sheet.selected.set(Some(ids[k]));
+        leptos::task::tick().await;
+        if let Some(f) = fed {
+            choose(&root, "fed-from", f);
+        }
+        choose(&root, "flow-from", "load");
+        leptos::task::tick().await;
+        type_into(&root, "load-power", power);
+        type_into(&root, "load-delta-t", "6 K");
+        leptos::task::tick().await;
+    }
+    // Depths in the list, and the main carries 40 + 25 kW.
+    let depths: Vec<String> = {
+        let rows = root.query_selector_all("[data-testid=roster-row]").unwrap();
+        (0..rows.length())
+            .map(|i| rows.item(i).unwrap().unchecked_into::<web_sys::Element>().get_attribute("data-depth").unwrap())
+            .collect()
+    };
+    assert_eq!(depths, ["0", "1", "2", "2"]);
+    sheet.selected.set(Some(ids[0]));
+    leptos::task::tick().await;
+    assert!(
+        text(&root, "derived-flow").contains("for 65.0 kW (0 kW own + 65.0 kW from its branches)"),
+        "{}",
+        text(&root, "derived-flow")
+    );
+    let system = text(&root, "system");
+    assert!(system.contains("Index circuit: Main → Riser → Coil"), "{system}");
+    assert!(system.contains("pump duty"), "{system}");
+    // The page agrees with the sheet model for the same file.
+    let file = sheet.to_file();
+    let reports = headroom::sheet::report::evaluate(&file);
+    assert_eq!(system, format!("System{}", headroom::sheet::report::system_lines(&file, &reports).concat()));
+    // Changing a coil's load moves the main's flow.
+    sheet.selected.set(Some(ids[3]));
+    leptos::task::tick().await;
+    type_into(&root, "load-power", "35 kW");
+    leptos::task::tick().await;
+    sheet.selected.set(Some(ids[0]));
+    leptos::task::tick().await;
+    assert!(text(&root, "derived-flow").contains("for 75.0 kW"), "{}", text(&root, "derived-flow"));
+    // A line fed from itself is named beside "fed from"; nothing is lost.
+    sheet.lines.with_untracked(|v| v[1].file.update(|f| f.fed_from = Some("Riser".into())));
+    sheet.selected.set(Some(ids[1]));
+    leptos::task::tick().await;
+    assert!(text(&root, "fed-from-error").contains("cannot be fed from itself"), "{}", text(&root, "fed-from-error"));
 }

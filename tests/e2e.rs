@@ -18,6 +18,8 @@ fn typed_line() -> LineFile {
         name: "CHW main, plant room".into(),
         flow: "18.5".into(),
         load: None,
+        fed_from: None,
+        diversity: None,
         fluid: FluidFile::Water { temperature: "6".into(), pressure: Some("350".into()) },
         pipe: PipeFile::Series("steel-sch40".into()),
         roughness: None,

@@ -15,6 +15,10 @@ pub enum Field {
     Line,
     /// The line's name.
     Name,
+    /// The line it is fed from.
+    FedFrom,
+    /// Diversity on the loads its branches bring.
+    Diversity,
     /// Design flow.
     Flow,
     /// A heat load the flow is derived from.
@@ -99,9 +103,11 @@ pub enum Field {
 
 impl Field {
     /// Every field, in the order of the sheet file.
-    pub const ALL: [Field; 42] = [
+    pub const ALL: [Field; 44] = [
         Field::Line,
         Field::Name,
+        Field::FedFrom,
+        Field::Diversity,
         Field::Flow,
         Field::LoadPower,
         Field::LoadDeltaT,
@@ -149,6 +155,8 @@ impl Field {
         match self {
             Field::Line => "line",
             Field::Name => "name",
+            Field::FedFrom => "fed_from",
+            Field::Diversity => "diversity",
             Field::Flow => "flow",
             Field::LoadPower => "load.power",
             Field::LoadDeltaT => "load.delta_t",
@@ -197,6 +205,8 @@ impl Field {
         match self {
             Field::Line => "the line",
             Field::Name => "line name",
+            Field::FedFrom => "fed from",
+            Field::Diversity => "diversity",
             Field::Flow => "flow",
             Field::LoadPower => "heat load",
             Field::LoadDeltaT => "temperature difference",

@@ -71,6 +71,8 @@ impl LineFile {
         let opt = |o: &Option<String>| o.clone().unwrap_or_default();
         match (field, &self.fluid, &self.pipe) {
             (Field::Name, ..) => self.name.clone(),
+            (Field::FedFrom, ..) => opt(&self.fed_from),
+            (Field::Diversity, ..) => opt(&self.diversity),
             (Field::Flow, ..) => self.flow.clone(),
             (Field::LoadPower, ..) => self.load.as_ref().map(|l| l.power.clone()).unwrap_or_default(),
             (Field::LoadDeltaT, ..) => self.load.as_ref().map(|l| l.delta_t.clone()).unwrap_or_default(),
@@ -104,6 +106,8 @@ impl LineFile {
     pub fn set_text(&mut self, field: Field, text: String) {
         match (field, &mut self.fluid, &mut self.pipe) {
             (Field::Name, ..) => self.name = text,
+            (Field::FedFrom, ..) => self.fed_from = some(text),
+            (Field::Diversity, ..) => self.diversity = some(text),
             (Field::Flow, ..) => self.flow = text,
             (Field::LoadPower, ..) => {
                 if let Some(l) = &mut self.load {

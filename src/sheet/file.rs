@@ -12,7 +12,7 @@
 //! The format is documented field by field in `docs/sheet-format.md`; the
 //! text becomes the core's line in `reader`.
 
-use crate::hydraulics::line::Circuit;
+pub use crate::hydraulics::line::Circuit;
 use serde::{Deserialize, Serialize};
 
 use super::units::{self, Dimension, Unit};
@@ -29,8 +29,8 @@ pub const FORMAT: &str = "headroom-sheet";
 ///
 /// - 1: the first format.
 /// - 2: adds `basis`, `components`, `smallest_size`,
-///   `limits.velocity_by_size`, `load`, and the units `power` and
-///   `temperature_difference`.
+///   `limits.velocity_by_size`, `load`, `fed_from`, `diversity`,
+///   `basis.return_run`, and the units `power` and `temperature_difference`.
 pub const VERSION: u32 = 2;
 
 /// A whole worksheet.
@@ -72,6 +72,27 @@ pub struct Basis {
     /// Search every size, the rarely stocked ones too.
     #[serde(default, skip_serializing_if = "is_false")]
     pub every_size: bool,
+    /// Closed loop: whether the return run mirrors the flow run (the pump
+    /// head counts the index circuit twice) or is entered as lines.
+    #[serde(default, skip_serializing_if = "ReturnRun::is_mirrored")]
+    pub return_run: ReturnRun,
+}
+
+/// How a closed loop's return run is accounted for.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize, Default)]
+#[serde(rename_all = "lowercase")]
+pub enum ReturnRun {
+    /// The return mirrors the flow run: the same drop again.
+    #[default]
+    Mirrored,
+    /// The return is entered as lines of its own.
+    Entered,
+}
+
+impl ReturnRun {
+    fn is_mirrored(&self) -> bool {
+        *self == ReturnRun::Mirrored
+    }
 }
 
 /// Margin above a glycol mixture's freezing point when the sheet sets
@@ -289,6 +310,12 @@ pub struct LineFile {
     /// (version 2).
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub load: Option<LoadFile>,
+    /// The name of the line this one is fed from (version 2).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub fed_from: Option<String>,
+    /// Diversity applied to the loads its branches bring, 0–1 (version 2).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub diversity: Option<String>,
     /// The fluid.
     pub fluid: FluidFile,
     /// The pipe: a series id or a custom bore.
@@ -862,6 +889,8 @@ impl LineFile {
             ("hazen_williams_c", &self.hazen_williams_c),
             ("check_size", &self.check_size),
             ("smallest_size", &self.smallest_size),
+            ("fed_from", &self.fed_from),
+            ("diversity", &self.diversity),
             ("limits.max_drop_per_length", &self.limits.max_drop_per_length),
             ("limits.max_total_drop", &self.limits.max_total_drop),
             ("limits.max_velocity", &self.limits.max_velocity),

@@ -14,4 +14,5 @@ pub mod number;
 pub mod presets;
 pub mod reader;
 pub mod report;
+pub mod system;
 pub mod units;

@@ -84,6 +84,8 @@ impl Service {
             name: name.to_owned(),
             flow: String::new(),
             load: None,
+            fed_from: None,
+            diversity: None,
             fluid: FluidFile::Water {
                 temperature: format!("{} °C", self.temperature_c),
                 pressure: Some(format!("{} kPa", self.pressure_kpa)),

@@ -179,9 +179,15 @@ impl Reader<'_> {
 
     /// The flow a heat load needs: Q = Φ / (ρ c_p ΔT), with ρ and c_p of
     /// the line's fluid at its temperature and pressure.
-    fn load_flow(&mut self, load: &LoadFile, at: &FluidAt, rho: Option<f64>) -> Option<f64> {
+    fn load_flow(&mut self, load: &LoadFile, at: &FluidAt, rho: Option<f64>, carried_w: Option<f64>) -> Option<f64> {
         let u = self.units;
-        let power = self.measure(Field::LoadPower, &load.power, Dimension::Power, u.power, None);
+        // A line whose branches bring a load may leave its own blank.
+        let own_blank = load.power.trim().is_empty() && carried_w.is_some_and(|w| w > 0.0);
+        let own = if own_blank {
+            Some(0.0)
+        } else {
+            self.measure(Field::LoadPower, &load.power, Dimension::Power, u.power, None)
+        };
         let dt = self.measure(
             Field::LoadDeltaT,
             &load.delta_t,
@@ -189,10 +195,16 @@ impl Reader<'_> {
             u.temperature_difference,
             None,
         );
-        if let Some(p) = power.filter(|p| !(p.is_finite() && *p > 0.0)) {
-            self.fail(Field::LoadPower, format!("the heat load must be greater than zero, not {p} W"));
-            return None;
+        if !own_blank {
+            if let Some(p) = own.filter(|p| !(p.is_finite() && *p > 0.0)) {
+                self.fail(Field::LoadPower, format!("the heat load must be greater than zero, not {p} W"));
+                return None;
+            }
         }
+        let power = match (own, carried_w) {
+            (Some(_), Some(w)) => Some(w),
+            (own, _) => own,
+        };
         if dt.is_some_and(|d| !(d.is_finite() && d > 0.0)) {
             self.fail(Field::LoadDeltaT, "the temperature difference must be greater than zero");
             return None;
@@ -428,11 +440,28 @@ impl LineFile {
     /// Every [`FieldError`] found; then the core's own checks (positive
     /// flow, finite values …), each against the field it concerns.
     pub fn to_line(&self, units: &Units) -> Result<Valid, Vec<FieldError>> {
+        self.to_line_carrying(units, None)
+    }
+
+    /// As [`LineFile::to_line`], for a line in a system whose flow comes from
+    /// `carried_w`, the heat load it carries for its branches as well as its
+    /// own (`sheet::system::carried`).
+    ///
+    /// # Errors
+    /// As [`LineFile::to_line`].
+    pub fn to_line_carrying(&self, units: &Units, carried_w: Option<f64>) -> Result<Valid, Vec<FieldError>> {
         let mut r = Reader { errors: Vec::new(), units };
         let at = r.fluid(&self.fluid);
         let rho = r.properties(&at).map(|p| p.density_kg_m3());
+        if let Some(t) = self.diversity.as_deref().map(str::trim).filter(|t| !t.is_empty()) {
+            match parse_decimal(t) {
+                Ok(d) if d.is_finite() && d > 0.0 && d <= 1.0 => {}
+                Ok(_) => r.fail(Field::Diversity, "diversity must be more than 0 and at most 1"),
+                Err(e) => r.fail(Field::Diversity, e.to_string()),
+            }
+        }
         let flow = match &self.load {
-            Some(load) => r.load_flow(load, &at, rho),
+            Some(load) => r.load_flow(load, &at, rho, carried_w),
             None => r.flow(&self.flow, rho),
         };
         let (pipe, material) = r.pipe(&self.pipe);

@@ -4,6 +4,7 @@
 use serde::Serialize;
 
 use super::file::{FieldError, LineFile, SheetFile, Units};
+use super::system::Carried;
 use super::units::{format_number, from_si, show, Unit};
 use crate::hydraulics::field::Field;
 use crate::hydraulics::friction::Regime;
@@ -104,9 +105,17 @@ pub struct LineReport {
     pub outcome: Result<Outcome, Vec<FieldError>>,
 }
 
-/// Evaluates one stored line.
+/// Evaluates one stored line on its own.
 pub fn evaluate_line(number: usize, lf: &LineFile, units: &Units) -> LineReport {
-    let outcome = lf.to_line(units).and_then(|line| {
+    evaluate_line_in(number, lf, units, None)
+}
+
+/// Evaluates one stored line in its system: `carried` is the heat load it
+/// carries for its branches as well as its own (`sheet::system::carried`),
+/// when it has branches.
+pub fn evaluate_line_in(number: usize, lf: &LineFile, units: &Units, carried: Option<Carried>) -> LineReport {
+    let carried = carried.filter(|c| c.from_branches_w > 0.0 || c.typed_branches > 0);
+    let outcome = lf.to_line_carrying(units, carried.map(|c| c.load_w)).and_then(|line| {
         let sizing =
             sizing::size(&line).map_err(|e| vec![FieldError { field: Field::Line, message: e.to_string() }])?;
         let (shown, checked) = match lf.check_size.as_deref().map(str::trim).filter(|s| !s.is_empty()) {
@@ -125,16 +134,67 @@ pub fn evaluate_line(number: usize, lf: &LineFile, units: &Units) -> LineReport 
         let capacity = shown.and_then(|i| sizing::capacity(&line, sizing.candidates[i].point.bore).ok());
         let figures = shown.map(|i| Figures::of(&sizing.candidates[i], units, rho));
         let verdict = verdict_text(&line, &sizing, units);
-        let flow_text = lf.load.as_ref().map(|_| show(line.flow.value, units.flow, Some(rho), 4));
+        let flow_text = lf.load.as_ref().map(|_| {
+            let q = show(line.flow.value, units.flow, Some(rho), 4);
+            match carried {
+                Some(c) => {
+                    let w = |v: f64| show(v, units.power, None, 3);
+                    let d = super::system::diversity(lf);
+                    let mut t = format!(
+                        "{q} for {} ({} own + {}{} from its branches)",
+                        w(c.load_w),
+                        w(c.load_w - d * c.from_branches_w),
+                        if d < 1.0 { format!("{d} × ") } else { String::new() },
+                        w(c.from_branches_w)
+                    );
+                    if c.typed_branches > 0 {
+                        t.push_str(&format!(
+                            "; {} branch{} with a typed flow not included",
+                            c.typed_branches,
+                            if c.typed_branches == 1 { "" } else { "es" }
+                        ));
+                    }
+                    t
+                }
+                None => q,
+            }
+        });
         Ok(Outcome { line, sizing, shown, checked, capacity, figures, verdict, flow_text })
     });
     LineReport { number, name: lf.name.clone(), outcome }
 }
 
-/// Evaluates every line of a sheet.
+/// Evaluates every line of a sheet, in its system: loads carried up the
+/// tree, and each line's problems with what it is fed from reported with it.
 pub fn evaluate(sheet: &SheetFile) -> Vec<LineReport> {
     let units = sheet.units();
-    sheet.lines.iter().enumerate().map(|(i, lf)| evaluate_line(i + 1, lf, &units)).collect()
+    let tree = super::system::tree(&sheet.lines);
+    let carried = super::system::carried(&sheet.lines, &tree, &units);
+    sheet
+        .lines
+        .iter()
+        .enumerate()
+        .map(|(i, lf)| {
+            let mut r = evaluate_line_in(i + 1, lf, &units, carried[i]);
+            with_tree_problems(&mut r, &tree, i);
+            r
+        })
+        .collect()
+}
+
+/// Adds line `i`'s problems with what it is fed from to its report (the
+/// line still sizes on its own).
+pub fn with_tree_problems(r: &mut LineReport, tree: &super::system::Tree, i: usize) {
+    let problems: Vec<&String> = tree.problems.iter().filter(|(k, _)| *k == i).map(|(_, m)| m).collect();
+    if problems.is_empty() {
+        return;
+    }
+    match &mut r.outcome {
+        Ok(o) => o.sizing.warnings.extend(problems.into_iter().map(|m| format!("fed from: {m}"))),
+        Err(errs) => {
+            errs.extend(problems.into_iter().map(|m| FieldError { field: Field::FedFrom, message: m.clone() }))
+        }
+    }
 }
 
 fn conv(si: f64, unit: &'static Unit, rho: f64, sig: usize) -> String {
@@ -412,6 +472,62 @@ pub fn circuit_note(u: &Units) -> &'static str {
     }
 }
 
+/// The system in words, when lines are joined: the pump duty from the
+/// index circuit, and every path's drop, worst first. Empty when no line
+/// names the line it is fed from.
+pub fn system_lines(sheet: &SheetFile, reports: &[LineReport]) -> Vec<String> {
+    let u = sheet.units();
+    let tree = super::system::tree(&sheet.lines);
+    if !tree.is_system() {
+        return Vec::new();
+    }
+    let sum = super::system::summarise(&tree, reports, &u);
+    let water = super::units::find(super::units::Dimension::Pressure, "m H₂O").expect("m H₂O");
+    let name = |i: usize| {
+        let n = sheet.lines[i].name.trim();
+        if n.is_empty() {
+            format!("line {}", i + 1)
+        } else {
+            n.to_owned()
+        }
+    };
+    let route = |p: &super::system::Path| p.lines.iter().rev().map(|&i| name(i)).collect::<Vec<_>>().join(" → ");
+    let mut out = Vec::new();
+    match (sum.paths.first(), sum.head_pa, sum.flow_m3_s) {
+        (Some(p), Some(h), Some(q)) => {
+            let rho =
+                reports[*p.lines.last().unwrap()].outcome.as_ref().map(|o| o.sizing.properties.density_kg_m3()).ok();
+            out.push(format!(
+                "Index circuit: {} — pump duty {} at {} ({}){}",
+                route(p),
+                show(q, u.flow, rho, 4),
+                show(h, u.pressure, None, 3),
+                show(h, water, None, 3),
+                if sum.mirrored { ", flow and a mirrored return" } else { "" }
+            ));
+            if u.basis.circuit == super::file::Circuit::Closed {
+                out.push(format!(
+                    "  static along it {} (closed loop: not pump head)",
+                    show(p.static_pa, u.pressure, None, 3)
+                ));
+            }
+        }
+        (Some(p), _, _) => {
+            out.push(format!("Index circuit: {} — a line on it has no result, so no pump duty", route(p)))
+        }
+        _ => {}
+    }
+    for p in &sum.paths {
+        out.push(format!(
+            "  path {}: {}{}",
+            route(p),
+            show(p.drop_pa, u.pressure, None, 3),
+            if p.complete { "" } else { " (incomplete: a line has no result)" }
+        ));
+    }
+    out
+}
+
 /// A fixed-width table for a terminal.
 pub fn table(sheet: &SheetFile, reports: &[LineReport]) -> String {
     let u = sheet.units();
@@ -451,6 +567,11 @@ pub fn table(sheet: &SheetFile, reports: &[LineReport]) -> String {
     }
     for n in notes {
         out.push_str(&format!("\n{n}"));
+    }
+    let system = system_lines(sheet, reports);
+    if !system.is_empty() {
+        out.push_str("\n\nSystem\n");
+        out.push_str(&system.join("\n"));
     }
     out.push_str(&format!("\n\nCaution: {CAUTION}\n"));
     out
@@ -533,6 +654,9 @@ pub fn csv(sheet: &SheetFile, reports: &[LineReport]) -> String {
             }
         }
     }
+    for l in system_lines(sheet, reports) {
+        out.push_str(&format!("# {}\n", l.trim()));
+    }
     out.push_str(&format!("# {}\n# {CAUTION}\n", circuit_note(&u)));
     out
 }
@@ -586,6 +710,10 @@ struct JsonReport<'a> {
     caution: &'static str,
     circuit: &'static str,
     static_in_total: bool,
+    system: Vec<String>,
+    pump_head_pa: Option<f64>,
+    pump_flow_m3_s: Option<f64>,
+    index_circuit: Vec<usize>,
     lines: Vec<JsonLine<'a>>,
 }
 
@@ -656,6 +784,8 @@ pub fn json(sheet: &SheetFile, reports: &[LineReport]) -> String {
             },
         })
         .collect();
+    let tree = super::system::tree(&sheet.lines);
+    let summary = tree.is_system().then(|| super::system::summarise(&tree, reports, &sheet.units()));
     let report = JsonReport {
         format: "headroom-results",
         version: 1,
@@ -664,6 +794,14 @@ pub fn json(sheet: &SheetFile, reports: &[LineReport]) -> String {
         caution: CAUTION,
         circuit: sheet.basis.circuit.id(),
         static_in_total: sheet.basis.circuit == Circuit::Open,
+        system: system_lines(sheet, reports),
+        pump_head_pa: summary.as_ref().and_then(|s| s.head_pa),
+        pump_flow_m3_s: summary.as_ref().and_then(|s| s.flow_m3_s),
+        index_circuit: summary
+            .as_ref()
+            .and_then(|s| s.paths.first())
+            .map(|p| p.lines.iter().rev().map(|i| i + 1).collect())
+            .unwrap_or_default(),
         lines,
     };
     serde_json::to_string_pretty(&report).unwrap_or_default()

@@ -18,7 +18,9 @@ use crate::sheet::units::{self, Dimension};
 
 /// The fields whose errors the editor shows beside an input (each fitting
 /// row checks its own count); the others are listed at the top.
-pub const BESIDE_INPUTS: [Field; 26] = [
+pub const BESIDE_INPUTS: [Field; 28] = [
+    Field::FedFrom,
+    Field::Diversity,
     Field::LoadPower,
     Field::LoadDeltaT,
     Field::VelocityBySize,
@@ -124,11 +126,34 @@ fn FlowAndFluid() -> impl IntoView {
     let file = line.file;
     let kind = move || file.with(|f| f.fluid_kind());
     let from_load = move || file.with(|f| f.load.is_some());
+    let sheet = expect_context::<Sheet>();
     let is_glycol =
         move |g: Glycol| file.with(|f| matches!(&f.fluid, FluidFile::Glycol { glycol, .. } if *glycol == g));
     view! {
         <fieldset>
             <legend>"Flow and fluid"</legend>
+            <div class="field">
+                <label for="fed-from">"Fed from"</label>
+                <select id="fed-from" data-testid="fed-from"
+                    on:change=move |ev| { let v = event_target_value(&ev); file.update(|f| f.fed_from = (!v.is_empty()).then_some(v)) }>
+                    <option value="" selected=move || file.with(|f| f.fed_from.is_none())>"— a source (fed from no line)"</option>
+                    {move || {
+                        let own = file.with(|f| f.name.trim().to_owned());
+                        let current = file.with(|f| f.fed_from.clone());
+                        let mut names: Vec<String> = sheet.lines.with(|v| v.iter().map(|s| s.file.with(|f| f.name.trim().to_owned())).collect());
+                        names.retain(|n| !n.is_empty() && *n != own);
+                        names.dedup();
+                        if let Some(c) = current.as_ref().filter(|c| !names.contains(c)) {
+                            names.push(c.clone());
+                        }
+                        names.into_iter().map(|n| {
+                            let sel = current.as_deref() == Some(n.as_str());
+                            view! { <option value=n.clone() selected=sel>{n.clone()}</option> }
+                        }).collect_view()
+                    }}
+                </select>
+                <span class="field-error" data-testid="fed-from-error" aria-live="polite">{move || errors_for(line.report, Field::FedFrom).get()}{move || line.report.with(|r| r.outcome.as_ref().ok().map(|o| o.sizing.warnings.iter().filter_map(|w| w.strip_prefix("fed from: ")).collect::<Vec<_>>().join("; ")).unwrap_or_default())}</span>
+            </div>
             <div class="field">
                 <label for="flow-from">"Flow from"</label>
                 <select id="flow-from" data-testid="flow-from"
@@ -141,6 +166,7 @@ fn FlowAndFluid() -> impl IntoView {
                 view! {
                     <LineText field=Field::LoadPower label="Heat load" id="load-power" unit=Dimension::Power placeholder="e.g. 45 kW"/>
                     <LineText field=Field::LoadDeltaT label="Temperature difference" id="load-delta-t" unit=Dimension::TemperatureDifference placeholder="e.g. 6 K"/>
+                    <LineText field=Field::Diversity label="Diversity on branch loads" id="diversity" inputmode="decimal" placeholder="1 (none)"/>
                     <p class="derived" data-testid="derived-flow" aria-live="polite">{move || line.report.with(|r| match &r.outcome {
                         Ok(o) => o.flow_text.clone().map(|q| format!("Flow = Φ / (ρ c_p ΔT) = {q}")).unwrap_or_default(),
                         Err(_) => String::new(),

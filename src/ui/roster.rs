@@ -89,6 +89,7 @@ pub fn Roster() -> impl IntoView {
                 <For each=move || sheet.lines.get() key=|s| s.id children=move |slot| view! { <RosterRow line=slot/> }/>
             </ol>
             <p class="path-total" data-testid="path-total" aria-live="polite">{path_total}</p>
+            <SystemPanel/>
         </section>
     }
 }
@@ -126,8 +127,10 @@ fn RosterRow(line: Slot) -> impl IntoView {
             },
         })
     };
+    let depth = move || line.place.with(|p| p.depth.min(6));
     view! {
-        <li class="roster-row" class:selected=selected data-testid="roster-row">
+        <li class="roster-row" class:selected=selected data-testid="roster-row"
+            style=move || format!("margin-left: {}rem", depth() as f32 * 0.9) data-depth=move || depth().to_string()>
             <button type="button" class="pick" aria-current=move || if selected() { "true" } else { "false" }
                 on:click=move |_| sheet.selected.set(Some(id))>
                 <span class="row-name" data-testid="row-name">{name}</span>
@@ -146,5 +149,31 @@ fn RosterRow(line: Slot) -> impl IntoView {
                 <button type="button" class="quiet" aria-label="delete" data-testid="row-delete" on:click=move |_| sheet.delete(id)>"✕"</button>
             </div>
         </li>
+    }
+}
+
+/// The system, when lines name what they are fed from: the pump duty from
+/// the index circuit and every path's drop, worst first.
+#[component]
+fn SystemPanel() -> impl IntoView {
+    let sheet = expect_context::<Sheet>();
+    let text = move || {
+        if !sheet.joined.with(|j| j.tree.is_system()) {
+            return Vec::new();
+        }
+        let reports: Vec<_> = sheet.lines.with(|v| v.iter().map(|s| s.report.get()).collect());
+        sheet.resolved.track();
+        crate::sheet::report::system_lines(&sheet.to_file(), &reports)
+    };
+    view! {
+        {move || {
+            let lines = text();
+            (!lines.is_empty()).then(|| view! {
+                <div class="system" data-testid="system" aria-live="polite">
+                    <h3>"System"</h3>
+                    {lines.into_iter().map(|l| view! { <p>{l}</p> }).collect_view()}
+                </div>
+            })
+        }}
     }
 }

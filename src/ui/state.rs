@@ -14,7 +14,8 @@ use leptos::prelude::*;
 use crate::sheet::convert;
 use crate::sheet::file::{Basis, LineFile, SheetFile, System, UnitChoice, Units, FORMAT};
 use crate::sheet::presets::Service;
-use crate::sheet::report::{detail, evaluate_line, Detail, LineReport, Outcome};
+use crate::sheet::report::{detail, evaluate_line_in, with_tree_problems, Detail, LineReport, Outcome};
+use crate::sheet::system::{self, Carried, Tree};
 use crate::sheet::units::Dimension;
 
 /// How many line evaluations the page has run (for the "only changed
@@ -39,7 +40,34 @@ pub struct Slot {
     pub detail: Memo<Option<(Outcome, Detail)>>,
     /// Whether the line is on the path whose drops are summed.
     pub in_path: RwSignal<bool>,
+    /// Its place in the system: depth, the load it carries, problems with
+    /// what it is fed from. Changes only when those do.
+    pub place: Memo<Place>,
     owner: Owner,
+}
+
+/// A line's place in the system, as its result needs it.
+#[derive(Debug, Clone, PartialEq, Default)]
+pub struct Place {
+    /// Depth below its source (0 for a source or a line on its own).
+    pub depth: usize,
+    /// The load it carries for its branches and itself.
+    pub carried: Option<Carried>,
+    /// Problems with what it is fed from.
+    pub problems: Vec<String>,
+}
+
+/// The sheet's lines joined: computed from every line's name, `fed_from`
+/// and load, so a change to anything else leaves it (and every line's
+/// [`Place`]) as it was.
+#[derive(Debug, Clone, PartialEq, Default)]
+pub struct Joined {
+    /// Slot ids, in order.
+    pub ids: Vec<u32>,
+    /// The tree.
+    pub tree: Tree,
+    /// The load each line carries.
+    pub carried: Vec<Option<Carried>>,
 }
 
 /// The worksheet.
@@ -57,6 +85,8 @@ pub struct Sheet {
     pub resolved: Memo<Units>,
     /// The lines in order.
     pub lines: RwSignal<Vec<Slot>>,
+    /// The lines joined into a system.
+    pub joined: Memo<Joined>,
     /// The line being edited.
     pub selected: RwSignal<Option<u32>>,
     /// The last deleted line and where it was, for undo.
@@ -108,13 +138,23 @@ impl Sheet {
                 r.basis = basis.get();
                 r
             });
+            let lines: RwSignal<Vec<Slot>> = RwSignal::new(Vec::new());
+            let joined = Memo::new(move |_| {
+                lines.with(|v| {
+                    let files: Vec<LineFile> = v.iter().map(|s| s.file.get()).collect();
+                    let tree = system::tree(&files);
+                    let carried = system::carried(&files, &tree, &resolved.get());
+                    Joined { ids: v.iter().map(|s| s.id).collect(), tree, carried }
+                })
+            });
             Sheet {
                 project: RwSignal::new(String::new()),
                 date: RwSignal::new(String::new()),
                 units,
                 basis,
                 resolved,
-                lines: RwSignal::new(Vec::new()),
+                lines,
+                joined,
                 selected: RwSignal::new(None),
                 deleted: RwSignal::new(None),
                 next_id: StoredValue::new(1),
@@ -146,18 +186,36 @@ impl Sheet {
         self.next_id.set_value(id + 1);
         let owner = self.owner.get_value().child();
         let resolved = self.resolved;
+        let joined = self.joined;
         owner.with(|| {
             let file = RwSignal::new(file);
+            let place = Memo::new(move |_| {
+                joined.with(|j| match j.ids.iter().position(|&x| x == id) {
+                    Some(i) => Place {
+                        depth: j.tree.depth[i],
+                        carried: j.carried[i],
+                        problems: j.tree.problems.iter().filter(|(k, _)| *k == i).map(|(_, m)| m.clone()).collect(),
+                    },
+                    None => Place::default(),
+                })
+            });
             let report = Memo::new(move |_| {
                 EVALUATIONS.fetch_add(1, Ordering::Relaxed);
-                file.with(|f| evaluate_line(0, f, &resolved.get()))
+                let p = place.get();
+                let mut r = file.with(|f| evaluate_line_in(0, f, &resolved.get(), p.carried));
+                if !p.problems.is_empty() {
+                    let tree =
+                        Tree { problems: p.problems.iter().map(|m| (0, m.clone())).collect(), ..Tree::default() };
+                    with_tree_problems(&mut r, &tree, 0);
+                }
+                r
             });
             // One memo holds the result with its detail, so the results
             // panel needs no memo of its own (each memo type costs bytes).
             let detail = Memo::new(move |_| {
                 report.with(|r| r.outcome.as_ref().ok().map(|o| (o.clone(), detail(o, &resolved.get()))))
             });
-            Slot { id, file, report, detail, in_path: RwSignal::new(false), owner: owner.clone() }
+            Slot { id, file, report, detail, in_path: RwSignal::new(false), place, owner: owner.clone() }
         })
     }
 
