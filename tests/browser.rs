@@ -461,6 +461,12 @@ async fn loads_add_up_a_three_level_tree_and_the_page_shows_the_pump_duty() {
     let file = sheet.to_file();
     let reports = headroom::sheet::report::evaluate(&file);
     assert_eq!(system, format!("System{}", headroom::sheet::report::system_lines(&file, &reports).concat()));
+    // The print sheet shows the system too, once it follows (here: at once,
+    // as the browser is about to print).
+    web_sys::window().unwrap().dispatch_event(&web_sys::Event::new("beforeprint").unwrap()).unwrap();
+    leptos::task::tick().await;
+    leptos::task::tick().await;
+    assert!(text(&root, "print-system").contains("Index circuit: Main → Riser → Coil"));
     // Changing a coil's load moves the main's flow.
     sheet.selected.set(Some(ids[3]));
     leptos::task::tick().await;

@@ -256,6 +256,22 @@ pub fn PrintSheet() -> impl IntoView {
                 <p data-testid="print-circuit">{move || circuit_note(&sheet.resolved.get())}</p>
             </header>
             <For each=rows key=|(i, s)| (*i, s.id) children=move |(i, s)| view! { <PrintLine line=s number=i + 1 stamp=stamp/> }/>
+            {move || {
+                // Follows the stamp, like the lines: not on every keystroke.
+                stamp.track();
+                let lines = if sheet.joined.with_untracked(|j| j.tree.is_system()) {
+                    let reports: Vec<_> = sheet.lines.with_untracked(|v| v.iter().map(|s| s.report.get_untracked()).collect());
+                    crate::sheet::report::system_lines(&sheet.to_file(), &reports)
+                } else {
+                    Vec::new()
+                };
+                (!lines.is_empty()).then(|| view! {
+                    <section class="print-system" data-testid="print-system">
+                        <h2>"System"</h2>
+                        {lines.into_iter().map(|l| view! { <p>{l}</p> }).collect_view()}
+                    </section>
+                })
+            }}
             <footer>
                 <h2>"Sources"</h2>
                 <ul>{SOURCES.iter().map(|s| view! { <li>{*s}</li> }).collect_view()}</ul>
