@@ -18,7 +18,34 @@
 //!   mirrors it (common practice for a two-pipe system drawn flow-only);
 //!   the static part is left out. Open system: the drops include the rise.
 
-use super::file::{Circuit, LineFile, ReturnRun, Units};
+use super::file::{Circuit, LineFile, LoadFile, ReturnRun, Units};
+
+/// What joining lines reads of a line: its name, what it is fed from, its
+/// load and diversity. The page keeps one per line in a memo, so an edit
+/// to anything else does not re-join the sheet.
+#[derive(Debug, Clone, PartialEq, Default)]
+pub struct Joint {
+    /// The line's name.
+    pub name: String,
+    /// The name of the line it is fed from.
+    pub fed_from: Option<String>,
+    /// Its heat load, when its flow comes from one.
+    pub load: Option<LoadFile>,
+    /// Diversity on its branches' loads, as typed.
+    pub diversity: Option<String>,
+}
+
+impl Joint {
+    /// The joint of a stored line.
+    pub fn of(l: &LineFile) -> Joint {
+        Joint {
+            name: l.name.clone(),
+            fed_from: l.fed_from.clone(),
+            load: l.load.clone(),
+            diversity: l.diversity.clone(),
+        }
+    }
+}
 use super::number::parse_decimal;
 use super::report::LineReport;
 use super::units::{self, Dimension};
@@ -74,6 +101,11 @@ fn display(name: &str, i: usize) -> String {
 
 /// Joins the lines by their `fed_from` names.
 pub fn tree(lines: &[LineFile]) -> Tree {
+    tree_of(&lines.iter().map(Joint::of).collect::<Vec<_>>())
+}
+
+/// As [`tree`], from the lines' joints.
+pub fn tree_of(lines: &[Joint]) -> Tree {
     let n = lines.len();
     let mut parent = vec![None; n];
     let mut problems = Vec::new();
@@ -130,7 +162,7 @@ pub fn tree(lines: &[LineFile]) -> Tree {
 
 /// A line's own heat load in W (0 when left blank or wrong: the line's own
 /// evaluation reports a wrong one), or `None` for a line with a typed flow.
-fn own_load(l: &LineFile, u: &Units) -> Option<f64> {
+fn own_load(l: &Joint, u: &Units) -> Option<f64> {
     let load = l.load.as_ref()?;
     let t = load.power.trim();
     if t.is_empty() {
@@ -147,9 +179,11 @@ fn own_load(l: &LineFile, u: &Units) -> Option<f64> {
 
 /// A line's diversity factor, 1 when blank or out of (0, 1].
 pub fn diversity(l: &LineFile) -> f64 {
-    l.diversity
-        .as_deref()
-        .map(str::trim)
+    diversity_of(l.diversity.as_deref())
+}
+
+fn diversity_of(text: Option<&str>) -> f64 {
+    text.map(str::trim)
         .filter(|t| !t.is_empty())
         .and_then(|t| parse_decimal(t).ok())
         .filter(|d| d.is_finite() && *d > 0.0 && *d <= 1.0)
@@ -170,6 +204,11 @@ pub struct Carried {
 /// The heat load each load-driven line's flow comes from; `None` for lines
 /// with a typed flow. Lines with no branches carry their own load.
 pub fn carried(lines: &[LineFile], tree: &Tree, u: &Units) -> Vec<Option<Carried>> {
+    carried_of(&lines.iter().map(Joint::of).collect::<Vec<_>>(), tree, u)
+}
+
+/// As [`carried`], from the lines' joints.
+pub fn carried_of(lines: &[Joint], tree: &Tree, u: &Units) -> Vec<Option<Carried>> {
     let n = lines.len();
     let mut order: Vec<usize> = (0..n).collect();
     // Deepest first, so every branch is done before its parent.
@@ -184,7 +223,7 @@ pub fn carried(lines: &[LineFile], tree: &Tree, u: &Units) -> Vec<Option<Carried
         if let Some(c) = out[i].as_mut() {
             c.from_branches_w = branches_w[i];
             c.typed_branches = typed[i];
-            c.load_w += diversity(&lines[i]) * branches_w[i];
+            c.load_w += diversity_of(lines[i].diversity.as_deref()) * branches_w[i];
         }
         if let Some(p) = tree.parent[i] {
             match out[i] {

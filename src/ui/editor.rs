@@ -127,6 +127,13 @@ fn FlowAndFluid() -> impl IntoView {
     let kind = move || file.with(|f| f.fluid_kind());
     let from_load = move || file.with(|f| f.load.is_some());
     let sheet = expect_context::<Sheet>();
+    // Every line's name, as a memo: a keystroke that changes no name leaves
+    // the "fed from" list as it is (on a 200-line sheet, 200 options).
+    let all_names = Memo::new(move |_| {
+        sheet.lines.with(|v| v.iter().map(|s| s.joint.with(|j| j.name.trim().to_owned())).collect::<Vec<_>>())
+    });
+    let own_name = Memo::new(move |_| file.with(|f| f.name.trim().to_owned()));
+    let fed_from = Memo::new(move |_| file.with(|f| f.fed_from.clone()));
     let is_glycol =
         move |g: Glycol| file.with(|f| matches!(&f.fluid, FluidFile::Glycol { glycol, .. } if *glycol == g));
     view! {
@@ -136,11 +143,11 @@ fn FlowAndFluid() -> impl IntoView {
                 <label for="fed-from">"Fed from"</label>
                 <select id="fed-from" data-testid="fed-from"
                     on:change=move |ev| { let v = event_target_value(&ev); file.update(|f| f.fed_from = (!v.is_empty()).then_some(v)) }>
-                    <option value="" selected=move || file.with(|f| f.fed_from.is_none())>"— a source (fed from no line)"</option>
+                    <option value="" selected=move || fed_from.with(Option::is_none)>"— a source (fed from no line)"</option>
                     {move || {
-                        let own = file.with(|f| f.name.trim().to_owned());
-                        let current = file.with(|f| f.fed_from.clone());
-                        let mut names: Vec<String> = sheet.lines.with(|v| v.iter().map(|s| s.file.with(|f| f.name.trim().to_owned())).collect());
+                        let own = own_name.get();
+                        let current = fed_from.get();
+                        let mut names: Vec<String> = all_names.get();
                         names.retain(|n| !n.is_empty() && *n != own);
                         names.dedup();
                         if let Some(c) = current.as_ref().filter(|c| !names.contains(c)) {

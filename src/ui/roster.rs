@@ -129,8 +129,8 @@ fn RosterRow(line: Slot) -> impl IntoView {
     };
     let depth = move || line.place.with(|p| p.depth.min(6));
     view! {
-        <li class="roster-row" class:selected=selected data-testid="roster-row"
-            style=move || format!("margin-left: {}rem", depth() as f32 * 0.9) data-depth=move || depth().to_string()>
+        // Indented by a stylesheet rule per depth: the CSP allows no inline style.
+        <li class="roster-row" class:selected=selected data-testid="roster-row" data-depth=move || depth().to_string()>
             <button type="button" class="pick" aria-current=move || if selected() { "true" } else { "false" }
                 on:click=move |_| sheet.selected.set(Some(id))>
                 <span class="row-name" data-testid="row-name">{name}</span>

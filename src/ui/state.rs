@@ -15,7 +15,7 @@ use crate::sheet::convert;
 use crate::sheet::file::{Basis, LineFile, SheetFile, System, UnitChoice, Units, FORMAT};
 use crate::sheet::presets::Service;
 use crate::sheet::report::{detail, evaluate_line_in, with_tree_problems, Detail, LineReport, Outcome};
-use crate::sheet::system::{self, Carried, Tree};
+use crate::sheet::system::{self, Carried, Joint, Tree};
 use crate::sheet::units::Dimension;
 
 /// How many line evaluations the page has run (for the "only changed
@@ -40,6 +40,8 @@ pub struct Slot {
     pub detail: Memo<Option<(Outcome, Detail)>>,
     /// Whether the line is on the path whose drops are summed.
     pub in_path: RwSignal<bool>,
+    /// What joining the sheet reads of it (name, feed, load, diversity).
+    pub joint: Memo<Joint>,
     /// Its place in the system: depth, the load it carries, problems with
     /// what it is fed from. Changes only when those do.
     pub place: Memo<Place>,
@@ -139,12 +141,19 @@ impl Sheet {
                 r
             });
             let lines: RwSignal<Vec<Slot>> = RwSignal::new(Vec::new());
+            // Reads each line's joint memo, not its text: an edit that
+            // changes no name, feed or load does not re-run this at all.
             let joined = Memo::new(move |_| {
                 lines.with(|v| {
-                    let files: Vec<LineFile> = v.iter().map(|s| s.file.get()).collect();
-                    let tree = system::tree(&files);
-                    let carried = system::carried(&files, &tree, &resolved.get());
-                    Joined { ids: v.iter().map(|s| s.id).collect(), tree, carried }
+                    let ids: Vec<u32> = v.iter().map(|s| s.id).collect();
+                    let joints: Vec<Joint> = v.iter().map(|s| s.joint.get()).collect();
+                    let tree = system::tree_of(&joints);
+                    let carried = if tree.is_system() {
+                        system::carried_of(&joints, &tree, &resolved.get())
+                    } else {
+                        vec![None; joints.len()]
+                    };
+                    Joined { ids, tree, carried }
                 })
             });
             Sheet {
@@ -189,6 +198,7 @@ impl Sheet {
         let joined = self.joined;
         owner.with(|| {
             let file = RwSignal::new(file);
+            let joint = Memo::new(move |_| file.with(Joint::of));
             let place = Memo::new(move |_| {
                 joined.with(|j| match j.ids.iter().position(|&x| x == id) {
                     Some(i) => Place {
@@ -215,7 +225,7 @@ impl Sheet {
             let detail = Memo::new(move |_| {
                 report.with(|r| r.outcome.as_ref().ok().map(|o| (o.clone(), detail(o, &resolved.get()))))
             });
-            Slot { id, file, report, detail, in_path: RwSignal::new(false), place, owner: owner.clone() }
+            Slot { id, file, report, detail, in_path: RwSignal::new(false), joint, place, owner: owner.clone() }
         })
     }
 
