@@ -169,7 +169,7 @@ fn SystemPanel() -> impl IntoView {
         {move || {
             let lines = text();
             (!lines.is_empty()).then(|| view! {
-                <div class="system" data-testid="system" aria-live="polite">
+                <div class="system-panel" data-testid="system" aria-live="polite">
                     <h3>"System"</h3>
                     {lines.into_iter().map(|l| view! { <p>{l}</p> }).collect_view()}
                 </div>
