@@ -176,16 +176,16 @@ pub fn evaluate(sheet: &SheetFile) -> Vec<LineReport> {
         .enumerate()
         .map(|(i, lf)| {
             let mut r = evaluate_line_in(i + 1, lf, &units, carried[i]);
-            with_tree_problems(&mut r, &tree, i);
+            with_tree_problems(&mut r, tree.problems.iter().filter(|(k, _)| *k == i).map(|(_, m)| m));
             r
         })
         .collect()
 }
 
-/// Adds line `i`'s problems with what it is fed from to its report (the
+/// Adds a line's problems with what it is fed from to its report (the
 /// line still sizes on its own).
-pub fn with_tree_problems(r: &mut LineReport, tree: &super::system::Tree, i: usize) {
-    let problems: Vec<&String> = tree.problems.iter().filter(|(k, _)| *k == i).map(|(_, m)| m).collect();
+pub fn with_tree_problems<'a>(r: &mut LineReport, problems: impl IntoIterator<Item = &'a String>) {
+    let problems: Vec<&String> = problems.into_iter().collect();
     if problems.is_empty() {
         return;
     }

@@ -73,7 +73,7 @@ impl Tree {
         for p in self.parent.iter().flatten() {
             has_child[*p] = true;
         }
-        (0..self.parent.len()).filter(|&i| !has_child[i] && (self.parent[i].is_some() || self.depth[i] == 0)).collect()
+        (0..self.parent.len()).filter(|&i| !has_child[i]).collect()
     }
 
     /// The path from line `end` up to its source, end first.

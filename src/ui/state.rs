@@ -213,11 +213,7 @@ impl Sheet {
                 EVALUATIONS.fetch_add(1, Ordering::Relaxed);
                 let p = place.get();
                 let mut r = file.with(|f| evaluate_line_in(0, f, &resolved.get(), p.carried));
-                if !p.problems.is_empty() {
-                    let tree =
-                        Tree { problems: p.problems.iter().map(|m| (0, m.clone())).collect(), ..Tree::default() };
-                    with_tree_problems(&mut r, &tree, 0);
-                }
+                with_tree_problems(&mut r, &p.problems);
                 r
             });
             // One memo holds the result with its detail, so the results
