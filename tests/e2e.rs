@@ -20,6 +20,7 @@ fn typed_line() -> LineFile {
         load: None,
         fed_from: None,
         diversity: None,
+        fixtures: None,
         fluid: FluidFile::Water { temperature: "6".into(), pressure: Some("350".into()) },
         pipe: PipeFile::Series("steel-sch40".into()),
         roughness: None,

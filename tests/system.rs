@@ -50,7 +50,7 @@ fn loads_add_up_the_tree_and_the_worst_path_sets_the_pump() {
     // total drops from it to the main (closed loop: no static).
     let d = |i: usize| o[i].sizing.candidates[o[i].shown.unwrap()].point.total_drop.value;
     let tree = system::tree(&sheet.lines);
-    let sum = system::summarise(&tree, &reports, &sheet.units());
+    let sum = system::summarise(&tree, &reports, &sheet.units(), &sheet.system);
     let by_end = |end: usize| sum.paths.iter().find(|p| p.lines[0] == end).unwrap().drop_pa;
     assert!((by_end(2) - (d(2) + d(1) + d(0))).abs() < 1e-6);
     assert!((by_end(3) - (d(3) + d(1) + d(0))).abs() < 1e-6);
@@ -116,5 +116,107 @@ fn a_typed_flow_below_a_load_is_said_not_hidden() {
     let reports = evaluate(&sheet);
     let main = reports[0].outcome.as_ref().unwrap();
     let t = main.flow_text.as_deref().unwrap();
-    assert!(t.contains("for 58.5 kW") && t.contains("1 branch with a typed flow not included"), "{t}");
+    assert!(t.contains("for 58.5 kW") && t.contains("1 branch not included (flow typed, or from fixtures)"), "{t}");
+}
+
+/// The clinic's domestic cold water (our own scenario), sized by Hunter's
+/// method with flush tanks, in an open system fed at 350 kPa.
+const CLINIC_DCW: &str = r#"{"format":"headroom-sheet","version":3,
+ "system":{"source_pressure":"350 kPa","outlet_minimum":"55 kPa"},
+ "lines":[
+  {"name":"DCW main","fixtures":{"supply":"cold","continuous":"0.1 L/s"},
+   "fluid":{"kind":"water","temperature":"12 °C"},"pipe":{"series":"copper-l"},"length":"20 m",
+   "limits":{"max_drop_per_length":"600 Pa/m","max_velocity":"2 m/s"}},
+  {"name":"DCW ground floor","fed_from":"DCW main","fixtures":{"supply":"cold","items":[
+     {"kind":"lavatory-public","count":"4"},{"kind":"wc-public-tank","count":"3"}]},
+   "fluid":{"kind":"water","temperature":"12 °C"},"pipe":{"series":"copper-l"},"length":"15 m",
+   "limits":{"max_drop_per_length":"600 Pa/m","max_velocity":"2 m/s"}},
+  {"name":"DCW first floor","fed_from":"DCW main","fixtures":{"supply":"cold","items":[
+     {"kind":"lavatory-public","count":"2"},{"kind":"wc-public-tank","count":"2"},{"kind":"service-sink","count":"1"}]},
+   "fluid":{"kind":"water","temperature":"12 °C"},"pipe":{"series":"copper-l"},"length":"12 m","rise":"4 m",
+   "limits":{"max_drop_per_length":"600 Pa/m","max_velocity":"2 m/s"}}
+ ]}"#;
+
+#[test]
+fn fixture_units_add_up_the_tree_and_the_flow_comes_from_the_total() {
+    let sheet = SheetFile::from_json(CLINIC_DCW).unwrap();
+    let reports = evaluate(&sheet);
+    let o: Vec<_> = reports.iter().map(|r| r.outcome.as_ref().unwrap_or_else(|e| panic!("{e:?}"))).collect();
+    let gpm = 3.785_411_784e-3 / 60.0;
+    let q = |i: usize| o[i].line.flow.value / gpm;
+    // Step 1, units on the cold supply (IPC 2018 Table E103.3(2), cold
+    // column): ground floor 4 × 1.5 + 3 × 5 = 21 WSFU; first floor
+    // 2 × 1.5 + 2 × 5 + 1 × 2.25 = 15.25 WSFU; the main 36.25 WSFU.
+    // Step 2, flows from the flush-tank curve, straight between rows:
+    // 21 WSFU lies 1/5 of the way from 20 (14 gpm) to 25 (17 gpm): 14.6 gpm;
+    // 15.25 WSFU, 1/4 from 15 (11) to 16 (12): 11.25 gpm;
+    // 36.25 WSFU, 1.25/5 from 35 (22.5) to 40 (25): 23.125 gpm.
+    assert!((q(1) - 14.6).abs() < 1e-9, "{}", q(1));
+    assert!((q(2) - 11.25).abs() < 1e-9, "{}", q(2));
+    // Step 3, the main: 23.125 gpm of fixtures — not 14.6 + 11.25 = 25.85,
+    // the sum of its branches' flows — plus its 0.1 L/s continuous flow.
+    assert!((o[0].line.flow.value - (23.125 * gpm + 1e-4)).abs() < 1e-12, "{}", q(0));
+    assert!(q(0) < q(1) + q(2) + 1e-4 / gpm);
+    let t = o[0].flow_text.as_deref().unwrap();
+    assert!(t.contains("for 36.25 WSFU (0 own + 36.25 from its branches)") && t.contains("continuous"), "{t}");
+    // Step 4, open system: the pressure left at each end line is 350 kPa
+    // less the drops (friction, fittings and the 4 m rise) along its path.
+    let d = |i: usize| o[i].sizing.candidates[o[i].shown.unwrap()].point.total_drop.value;
+    let tree = system::tree(&sheet.lines);
+    let sum = system::summarise(&tree, &reports, &sheet.units(), &sheet.system);
+    assert_eq!(sum.source_pa, Some(350e3));
+    let left = |end: usize| sum.residuals.iter().find(|r| r.end == end).unwrap().pressure_pa;
+    assert!((left(1) - (350e3 - d(1) - d(0))).abs() < 1e-6);
+    assert!((left(2) - (350e3 - d(2) - d(0))).abs() < 1e-6);
+    // The 4 m rise alone takes ρ g h = 999.5 × 9.807 × 4 ≈ 39.2 kPa.
+    assert!(o[2].sizing.candidates[o[2].shown.unwrap()].point.static_drop.value > 39e3);
+    // Worst first: the first floor, up the rise.
+    assert_eq!(sum.residuals[0].end, 2);
+    let text = system_lines(&sheet, &reports).join("\n");
+    assert!(text.contains("Pressure left at each end line, worst first (source 350 kPa"), "{text}");
+}
+
+#[test]
+fn a_fixture_of_another_method_or_a_bad_count_is_named() {
+    let bad = CLINIC_DCW
+        .replace(r#""kind":"service-sink","count":"1""#, r#""kind":"bath-domestic","count":"1""#)
+        .replace(r#""kind":"wc-public-tank","count":"3""#, r#""kind":"wc-public-tank","count":"2.5""#);
+    let sheet = SheetFile::from_json(&bad).unwrap();
+    let reports = evaluate(&sheet);
+    let e1 = reports[1].outcome.as_ref().unwrap_err();
+    assert!(e1.iter().any(|e| e.field == Field::FixtureCount && e.message.contains("whole number")), "{e1:?}");
+    let e2 = reports[2].outcome.as_ref().unwrap_err();
+    assert!(e2.iter().any(|e| e.field == Field::Fixtures && e.message.contains("counted in LU")), "{e2:?}");
+}
+
+#[test]
+fn a_pump_curve_meets_the_system_curve_and_npsh_is_found() {
+    // The chilled-water sheet above with a pump of our own invention: its
+    // curve through 3 points, an open expansion tank 2 m above the inlet.
+    let mut sheet = SheetFile::from_json(CLINIC).unwrap();
+    let reports = evaluate(&sheet);
+    let tree = system::tree(&sheet.lines);
+    let duty = system::summarise(&tree, &reports, &sheet.units(), &sheet.system);
+    let (q, h) = (duty.flow_m3_s.unwrap(), duty.head_pa.unwrap());
+    sheet.system.pump = vec![
+        headroom::sheet::file::PumpPointFile { flow: "0 L/s".into(), head: format!("{} Pa", 1.6 * h) },
+        headroom::sheet::file::PumpPointFile { flow: format!("{} m³/s", q), head: format!("{} Pa", 1.2 * h) },
+        headroom::sheet::file::PumpPointFile { flow: format!("{} m³/s", 2.0 * q), head: format!("{} Pa", 0.2 * h) },
+    ];
+    sheet.system.suction.pressure = "101.325 kPa".into();
+    sheet.system.suction.height = "2 m".into();
+    let sum = system::summarise(&tree, &reports, &sheet.units(), &sheet.system);
+    assert!(sum.problems.is_empty(), "{:?}", sum.problems);
+    // Closed loop: system curve H = k·Q² through the duty point; the pump
+    // gives 1.2 h at the duty flow, so it runs beyond it, where both curves
+    // meet: k·Q² = pump(Q).
+    let (qo, ho) = sum.operating.unwrap();
+    let c = sum.curve.unwrap();
+    assert_eq!(c.static_pa, 0.0);
+    assert!(qo > q && (ho - c.head(qo)).abs() < 1e-6 * h && (sum.pump.unwrap().head(qo) - ho).abs() < 1e-6 * h);
+    // NPSH available: (101 325 − p_v(7 °C) = 1002 Pa, IAPWS-IF97) /
+    // (999.9 × 9.80665) + 2 m = 10.23 + 2 = 12.23 m.
+    let (n, pv) = sum.npsh.unwrap();
+    assert!((pv - 1002.0).abs() < 2.0, "{pv}");
+    assert!((n - 12.23).abs() < 0.01, "{n}");
 }

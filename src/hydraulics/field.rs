@@ -25,6 +25,12 @@ pub enum Field {
     LoadPower,
     /// The temperature difference across the load.
     LoadDeltaT,
+    /// The fixture rows (a kind not of the sheet's method).
+    Fixtures,
+    /// The count of a fixture row.
+    FixtureCount,
+    /// A continuous flow added to the fixtures' probable demand.
+    ContinuousFlow,
     /// The fluid as a whole (its properties could not be found).
     Fluid,
     /// Fluid temperature.
@@ -99,11 +105,23 @@ pub enum Field {
     UnitsPower,
     /// The sheet's temperature-difference unit.
     UnitsTemperatureDifference,
+    /// Open system: pressure available at the source.
+    SourcePressure,
+    /// Open system: least pressure an outlet needs.
+    OutletMinimum,
+    /// A point of the pump curve.
+    PumpPoint,
+    /// Absolute pressure on the pump's suction surface.
+    SuctionPressure,
+    /// Height of the suction surface above the pump inlet.
+    SuctionHeight,
+    /// Losses in the suction pipe.
+    SuctionLoss,
 }
 
 impl Field {
     /// Every field, in the order of the sheet file.
-    pub const ALL: [Field; 44] = [
+    pub const ALL: [Field; 53] = [
         Field::Line,
         Field::Name,
         Field::FedFrom,
@@ -111,6 +129,9 @@ impl Field {
         Field::Flow,
         Field::LoadPower,
         Field::LoadDeltaT,
+        Field::Fixtures,
+        Field::FixtureCount,
+        Field::ContinuousFlow,
         Field::Fluid,
         Field::FluidTemperature,
         Field::FluidPressure,
@@ -148,6 +169,12 @@ impl Field {
         Field::UnitsRoughness,
         Field::UnitsPower,
         Field::UnitsTemperatureDifference,
+        Field::SourcePressure,
+        Field::OutletMinimum,
+        Field::PumpPoint,
+        Field::SuctionPressure,
+        Field::SuctionHeight,
+        Field::SuctionLoss,
     ];
 
     /// Its place in the sheet file, e.g. "limits.max_velocity".
@@ -160,6 +187,15 @@ impl Field {
             Field::Flow => "flow",
             Field::LoadPower => "load.power",
             Field::LoadDeltaT => "load.delta_t",
+            Field::Fixtures => "fixtures.items",
+            Field::FixtureCount => "fixtures.items.count",
+            Field::ContinuousFlow => "fixtures.continuous",
+            Field::SourcePressure => "system.source_pressure",
+            Field::OutletMinimum => "system.outlet_minimum",
+            Field::PumpPoint => "system.pump",
+            Field::SuctionPressure => "system.suction.pressure",
+            Field::SuctionHeight => "system.suction.height",
+            Field::SuctionLoss => "system.suction.loss",
             Field::Fluid => "fluid",
             Field::FluidTemperature => "fluid.temperature",
             Field::FluidPressure => "fluid.pressure",
@@ -210,6 +246,15 @@ impl Field {
             Field::Flow => "flow",
             Field::LoadPower => "heat load",
             Field::LoadDeltaT => "temperature difference",
+            Field::Fixtures => "fixtures",
+            Field::FixtureCount => "fixture count",
+            Field::ContinuousFlow => "continuous flow",
+            Field::SourcePressure => "pressure at the source",
+            Field::OutletMinimum => "least outlet pressure",
+            Field::PumpPoint => "pump curve point",
+            Field::SuctionPressure => "suction surface pressure",
+            Field::SuctionHeight => "suction surface height",
+            Field::SuctionLoss => "suction pipe loss",
             Field::Fluid => "the fluid",
             Field::FluidTemperature => "temperature",
             Field::FluidPressure => "pressure",

@@ -136,9 +136,10 @@ pub struct Limits {
 
 impl Limits {
     /// The largest velocity allowed in a size of nominal diameter `dn_in`
-    /// inches: the lower of the line's maximum and its by-size table.
-    pub fn max_velocity_at(&self, dn_in: f64) -> Option<f64> {
-        let by_size = self.velocity_by_size.map(|r| r.max_at(dn_in));
+    /// inches carrying fluid at `t_c` °C: the lower of the line's maximum
+    /// and its by-size table.
+    pub fn max_velocity_at(&self, dn_in: f64, t_c: f64) -> Option<f64> {
+        let by_size = self.velocity_by_size.map(|r| r.max_at(dn_in, t_c));
         match (self.max_velocity.map(|v| v.value), by_size) {
             (Some(a), Some(b)) => Some(a.min(b)),
             (a, b) => a.or(b),

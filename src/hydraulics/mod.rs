@@ -4,6 +4,7 @@
 //! clock, and nothing here knows about units of display. Every formula names
 //! its source where it is defined.
 
+pub mod demand;
 pub mod field;
 pub mod fluid;
 pub mod friction;
@@ -11,5 +12,6 @@ pub mod geometry;
 pub mod line;
 pub mod losses;
 pub mod pipes;
+pub mod pump;
 pub mod sizing;
 pub mod velocity;

@@ -165,7 +165,7 @@ pub fn judge(line: &Line, p: &Point) -> (Vec<Check>, Option<Limit>) {
         checks.push(max(Limit::TotalDrop, p.total_drop.value, dp.value));
     }
     let v_max = if l.velocity_by_size.is_some() {
-        l.max_velocity_at(line.pipe.darby_diameter_in(p.bore))
+        l.max_velocity_at(line.pipe.darby_diameter_in(p.bore), line.temperature.value - 273.15)
     } else {
         l.max_velocity.map(|v| v.value)
     };
@@ -391,7 +391,7 @@ pub fn capacity(line: &Valid, bore: Length) -> Result<Capacity, LineError> {
     };
     let flow = |q: f64| VolumeRate::new::<cubic_meter_per_second>(q);
     let start = (area * Velocity::new::<uom::si::velocity::meter_per_second>(1.0)).value;
-    if let Some(v) = l.max_velocity_at(line.pipe.darby_diameter_in(bore)) {
+    if let Some(v) = l.max_velocity_at(line.pipe.darby_diameter_in(bore), line.temperature.value - 273.15) {
         consider(area.value * v, Limit::MaxVelocity);
     }
     if let Some(g) = l.max_drop_per_length {

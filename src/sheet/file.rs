@@ -31,7 +31,9 @@ pub const FORMAT: &str = "headroom-sheet";
 /// - 2: adds `basis`, `components`, `smallest_size`,
 ///   `limits.velocity_by_size`, `load`, `fed_from`, `diversity`,
 ///   `basis.return_run`, and the units `power` and `temperature_difference`.
-pub const VERSION: u32 = 2;
+/// - 3: adds `fixtures` on a line, `basis.demand` and the sheet's `system`
+///   (source and outlet pressures, pump curve, pump suction).
+pub const VERSION: u32 = 3;
 
 /// A whole worksheet.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
@@ -54,8 +56,74 @@ pub struct SheetFile {
     /// margin, preferred sizes only).
     #[serde(default, skip_serializing_if = "Basis::is_default")]
     pub basis: Basis,
+    /// Whole-system settings: pressures of an open system, the pump curve
+    /// and its suction (version 3).
+    #[serde(default, skip_serializing_if = "SystemFile::is_empty")]
+    pub system: SystemFile,
     /// The lines.
     pub lines: Vec<LineFile>,
+}
+
+/// Whole-system settings, as typed; every field may be blank.
+#[derive(Debug, Clone, PartialEq, Eq, Serialize, Deserialize, Default)]
+#[serde(deny_unknown_fields)]
+pub struct SystemFile {
+    /// Open system: the pressure available at the source (mains pressure
+    /// at the meter, or a booster set's discharge), gauge.
+    #[serde(default, skip_serializing_if = "String::is_empty")]
+    pub source_pressure: String,
+    /// Open system: the least pressure each outlet needs, flowing, gauge.
+    #[serde(default, skip_serializing_if = "String::is_empty")]
+    pub outlet_minimum: String,
+    /// Up to three points of the pump's curve, flow and head.
+    #[serde(default, skip_serializing_if = "Vec::is_empty")]
+    pub pump: Vec<PumpPointFile>,
+    /// The pump's suction, for the NPSH available.
+    #[serde(default, skip_serializing_if = "SuctionFile::is_empty")]
+    pub suction: SuctionFile,
+}
+
+impl SystemFile {
+    /// True when nothing is set.
+    pub fn is_empty(&self) -> bool {
+        *self == SystemFile::default()
+    }
+}
+
+/// One point of a pump curve, as typed.
+#[derive(Debug, Clone, PartialEq, Eq, Serialize, Deserialize, Default)]
+#[serde(deny_unknown_fields)]
+pub struct PumpPointFile {
+    /// Flow.
+    #[serde(default)]
+    pub flow: String,
+    /// Head (a pressure or a height of the fluid).
+    #[serde(default)]
+    pub head: String,
+}
+
+/// The pump's suction side, as typed.
+#[derive(Debug, Clone, PartialEq, Eq, Serialize, Deserialize, Default)]
+#[serde(deny_unknown_fields)]
+pub struct SuctionFile {
+    /// Absolute pressure on the liquid surface the pump draws from (the
+    /// atmosphere for an open tank; the fill pressure at the expansion
+    /// vessel of a closed loop).
+    #[serde(default, skip_serializing_if = "String::is_empty")]
+    pub pressure: String,
+    /// Height of that surface above the pump's inlet (negative below).
+    #[serde(default, skip_serializing_if = "String::is_empty")]
+    pub height: String,
+    /// Losses in the suction pipe at the duty flow.
+    #[serde(default, skip_serializing_if = "String::is_empty")]
+    pub loss: String,
+}
+
+impl SuctionFile {
+    /// True when nothing is set.
+    pub fn is_empty(&self) -> bool {
+        *self == SuctionFile::default()
+    }
 }
 
 /// Sheet-wide design settings, as stored.
@@ -76,6 +144,13 @@ pub struct Basis {
     /// head counts the index circuit twice) or is entered as lines.
     #[serde(default, skip_serializing_if = "ReturnRun::is_mirrored")]
     pub return_run: ReturnRun,
+    /// How fixtures become a probable flow (version 3).
+    #[serde(default, skip_serializing_if = "is_hunter_tanks")]
+    pub demand: crate::hydraulics::demand::Method,
+}
+
+fn is_hunter_tanks(m: &crate::hydraulics::demand::Method) -> bool {
+    *m == crate::hydraulics::demand::Method::HunterTanks
 }
 
 /// How a closed loop's return run is accounted for.
@@ -316,6 +391,10 @@ pub struct LineFile {
     /// Diversity applied to the loads its branches bring, 0–1 (version 2).
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub diversity: Option<String>,
+    /// The fixtures the flow is derived from (version 3); with `load`
+    /// absent.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub fixtures: Option<FixturesFile>,
     /// The fluid.
     pub fluid: FluidFile,
     /// The pipe: a series id or a custom bore.
@@ -372,6 +451,33 @@ pub struct LoadFile {
     /// The temperature difference.
     #[serde(default)]
     pub delta_t: String,
+}
+
+/// The fixtures a line serves, as stored.
+#[derive(Debug, Clone, PartialEq, Eq, Serialize, Deserialize, Default)]
+#[serde(deny_unknown_fields)]
+pub struct FixturesFile {
+    /// Which supply the line carries (cold, hot or both).
+    #[serde(default)]
+    pub supply: crate::hydraulics::demand::Supply,
+    /// Kinds and counts.
+    #[serde(default, skip_serializing_if = "Vec::is_empty")]
+    pub items: Vec<FixtureCountFile>,
+    /// A continuous flow added to the probable demand (hot-water
+    /// circulation, irrigation, process make-up).
+    #[serde(default, skip_serializing_if = "String::is_empty")]
+    pub continuous: String,
+}
+
+/// So many fixtures of a kind.
+#[derive(Debug, Clone, PartialEq, Eq, Serialize, Deserialize, Default)]
+#[serde(deny_unknown_fields)]
+pub struct FixtureCountFile {
+    /// A kind id of the sheet's method (`hydraulics::demand`).
+    pub kind: String,
+    /// How many.
+    #[serde(default)]
+    pub count: String,
 }
 
 /// A valve or piece of equipment, as stored. Which texts count depends on
@@ -805,12 +911,23 @@ impl SheetFile {
 
     /// The oldest format version that holds everything this sheet uses.
     pub fn required_version(&self) -> u32 {
+        let v3 = self.basis.demand != Basis::default().demand
+            || !self.system.is_empty()
+            || self.lines.iter().any(|l| l.fixtures.is_some());
         let v2 = !self.basis.is_default()
-            || self
-                .lines
-                .iter()
-                .any(|l| !l.components.is_empty() || l.smallest_size.is_some() || l.limits.velocity_by_size.is_some());
-        if v2 {
+            || self.units.power.is_some()
+            || self.units.temperature_difference.is_some()
+            || self.lines.iter().any(|l| {
+                !l.components.is_empty()
+                    || l.smallest_size.is_some()
+                    || l.limits.velocity_by_size.is_some()
+                    || l.load.is_some()
+                    || l.fed_from.is_some()
+                    || l.diversity.is_some()
+            });
+        if v3 {
+            3
+        } else if v2 {
             2
         } else {
             1

@@ -59,6 +59,16 @@ pub const SERVICES: &[Service] = &[
         velocity_by_size: Some("copper-cold"),
     },
     Service {
+        id: "domestic-hot",
+        label: "Domestic hot water",
+        temperature_c: "60",
+        pressure_kpa: "400",
+        series: "copper-l",
+        max_drop_pa_m: "600",
+        max_velocity_m_s: "1.5",
+        velocity_by_size: Some("copper-hot"),
+    },
+    Service {
         id: "process",
         label: "Process water",
         temperature_c: "20",
@@ -86,6 +96,7 @@ impl Service {
             load: None,
             fed_from: None,
             diversity: None,
+            fixtures: None,
             fluid: FluidFile::Water {
                 temperature: format!("{} °C", self.temperature_c),
                 pressure: Some(format!("{} kPa", self.pressure_kpa)),

@@ -17,9 +17,12 @@ use uom::si::thermodynamic_temperature::kelvin;
 use uom::si::velocity::meter_per_second;
 use uom::si::volume_rate::cubic_meter_per_second;
 
-use super::file::{ComponentKind, FieldError, FluidFile, LineFile, LoadFile, MethodName, PipeFile, Units};
+use super::file::{
+    ComponentKind, FieldError, FixturesFile, FluidFile, LineFile, LoadFile, MethodName, PipeFile, Units,
+};
 use super::number::{parse_count, parse_decimal};
 use super::units::{self, Dimension, Unit};
+use crate::hydraulics::demand;
 use crate::hydraulics::field::Field;
 use crate::hydraulics::fluid::{Fluid, Properties};
 use crate::hydraulics::line::{pa_per_m, Limits, Line, Method, Pipe, Valid};
@@ -215,6 +218,75 @@ impl Reader<'_> {
             Ok(cp) => Some(power / (rho * cp * dt)),
             Err(e) => {
                 self.fail(Field::LoadPower, e.to_string());
+                None
+            }
+        }
+    }
+
+    /// The probable flow of the fixtures a line serves (with its branches'
+    /// when it has any), plus its continuous flow.
+    fn fixture_flow(&mut self, fx: &FixturesFile, carried: Option<&super::system::Carried>) -> Option<f64> {
+        let method = self.units.basis.demand;
+        let kinds = method.kinds();
+        let mut counts = vec![0.0; kinds.len()];
+        for item in &fx.items {
+            let Some(k) = kinds.iter().position(|k| k.id == item.kind) else {
+                let other = demand::Method::ALL.into_iter().find(|m| demand::kind(*m, &item.kind).is_some());
+                self.fail(
+                    Field::Fixtures,
+                    match other {
+                        Some(m) => format!(
+                            "'{}' is counted in {} but the sheet's demand method counts {}: change the method or the \
+                             fixture",
+                            item.kind,
+                            m.unit(),
+                            method.unit()
+                        ),
+                        None => format!("'{}' is not a fixture kind Headroom knows", item.kind),
+                    },
+                );
+                continue;
+            };
+            match parse_decimal(item.count.trim()) {
+                Ok(c) if c.is_finite() && c >= 0.0 && c.fract() == 0.0 && c <= 100_000.0 => counts[k] += c,
+                Ok(c) => self.fail(Field::FixtureCount, format!("a fixture count is a whole number from 0, not {c}")),
+                Err(e) => self.fail(Field::FixtureCount, e.to_string()),
+            }
+        }
+        let own_q = match super::system::continuous_flow(fx, self.units) {
+            Some(q) => q,
+            None => {
+                let t = fx.continuous.trim();
+                match self.measure(Field::ContinuousFlow, t, Dimension::Flow, self.units.flow, None) {
+                    Some(q) if q < 0.0 => self.fail(Field::ContinuousFlow, "a continuous flow cannot be negative"),
+                    Some(_) => {
+                        self.fail(Field::ContinuousFlow, "give the continuous flow as a volume flow (L/s, gpm, m³/h)")
+                    }
+                    None => {}
+                }
+                return None;
+            }
+        };
+        let (units, largest, continuous) = match carried.filter(|c| c.has_branches()) {
+            Some(c) => (c.fixture_units, c.largest_unit, c.continuous_m3_s),
+            None => {
+                let (u, big) = super::system::units_of(&counts, method, fx.supply);
+                (u, big, own_q)
+            }
+        };
+        if units <= 0.0 && continuous <= 0.0 {
+            if self.errors.is_empty() {
+                self.fail(
+                    Field::Fixtures,
+                    "list the fixtures this line serves (or a continuous flow): it has none on this supply",
+                );
+            }
+            return None;
+        }
+        match demand::probable_flow(method, units, largest) {
+            Ok(q) => Some(q + continuous),
+            Err(e) => {
+                self.fail(Field::Fixtures, e.to_string());
                 None
             }
         }
@@ -449,7 +521,12 @@ impl LineFile {
     ///
     /// # Errors
     /// As [`LineFile::to_line`].
-    pub fn to_line_carrying(&self, units: &Units, carried_w: Option<f64>) -> Result<Valid, Vec<FieldError>> {
+    pub fn to_line_carrying(
+        &self,
+        units: &Units,
+        carried: Option<&super::system::Carried>,
+    ) -> Result<Valid, Vec<FieldError>> {
+        let carried_w = carried.map(|c| c.load_w);
         let mut r = Reader { errors: Vec::new(), units };
         let at = r.fluid(&self.fluid);
         let rho = r.properties(&at).map(|p| p.density_kg_m3());
@@ -460,9 +537,10 @@ impl LineFile {
                 Err(e) => r.fail(Field::Diversity, e.to_string()),
             }
         }
-        let flow = match &self.load {
-            Some(load) => r.load_flow(load, &at, rho, carried_w),
-            None => r.flow(&self.flow, rho),
+        let flow = match (&self.load, &self.fixtures) {
+            (Some(load), _) => r.load_flow(load, &at, rho, carried_w),
+            (None, Some(fx)) => r.fixture_flow(fx, carried),
+            (None, None) => r.flow(&self.flow, rho),
         };
         let (pipe, material) = r.pipe(&self.pipe);
         let roughness = r.roughness(self, material);

@@ -114,8 +114,8 @@ pub fn evaluate_line(number: usize, lf: &LineFile, units: &Units) -> LineReport 
 /// carries for its branches as well as its own (`sheet::system::carried`),
 /// when it has branches.
 pub fn evaluate_line_in(number: usize, lf: &LineFile, units: &Units, carried: Option<Carried>) -> LineReport {
-    let carried = carried.filter(|c| c.from_branches_w > 0.0 || c.typed_branches > 0);
-    let outcome = lf.to_line_carrying(units, carried.map(|c| c.load_w)).and_then(|line| {
+    let carried = carried.filter(Carried::has_branches);
+    let outcome = lf.to_line_carrying(units, carried.as_ref()).and_then(|line| {
         let sizing =
             sizing::size(&line).map_err(|e| vec![FieldError { field: Field::Line, message: e.to_string() }])?;
         let (shown, checked) = match lf.check_size.as_deref().map(str::trim).filter(|s| !s.is_empty()) {
@@ -149,7 +149,7 @@ pub fn evaluate_line_in(number: usize, lf: &LineFile, units: &Units, carried: Op
                     );
                     if c.typed_branches > 0 {
                         t.push_str(&format!(
-                            "; {} branch{} with a typed flow not included",
+                            "; {} branch{} not included (flow typed, or from fixtures)",
                             c.typed_branches,
                             if c.typed_branches == 1 { "" } else { "es" }
                         ));
@@ -158,6 +158,36 @@ pub fn evaluate_line_in(number: usize, lf: &LineFile, units: &Units, carried: Op
                 }
                 None => q,
             }
+        });
+        let flow_text = flow_text.or_else(|| {
+            let (total, from_branches, continuous) = super::system::fixture_totals(lf, units, carried.as_ref())?;
+            let method = units.basis.demand;
+            let n = |v: f64| format_number(v, 4);
+            let mut t = format!(
+                "{} probable for {} {}",
+                show(line.flow.value - continuous, units.flow, Some(rho), 4),
+                n(total),
+                method.unit()
+            );
+            if from_branches > 0.0 {
+                t.push_str(&format!(" ({} own + {} from its branches)", n(total - from_branches), n(from_branches)));
+            }
+            if continuous > 0.0 {
+                t.push_str(&format!(
+                    " + {} continuous = {}",
+                    show(continuous, units.flow, Some(rho), 3),
+                    show(line.flow.value, units.flow, Some(rho), 4)
+                ));
+            }
+            t.push_str(&format!(" — {}", method.label()));
+            if let Some(c) = carried.filter(|c| c.typed_branches > 0) {
+                t.push_str(&format!(
+                    "; {} branch{} not included (flow typed, or from a heat load)",
+                    c.typed_branches,
+                    if c.typed_branches == 1 { "" } else { "es" }
+                ));
+            }
+            Some(t)
         });
         Ok(Outcome { line, sizing, shown, checked, capacity, figures, verdict, flow_text })
     });
@@ -481,7 +511,7 @@ pub fn system_lines(sheet: &SheetFile, reports: &[LineReport]) -> Vec<String> {
     if !tree.is_system() {
         return Vec::new();
     }
-    let sum = super::system::summarise(&tree, reports, &u);
+    let sum = super::system::summarise(&tree, reports, &u, &sheet.system);
     let water = super::units::find(super::units::Dimension::Pressure, "m H₂O").expect("m H₂O");
     let name = |i: usize| {
         let n = sheet.lines[i].name.trim();
@@ -525,7 +555,110 @@ pub fn system_lines(sheet: &SheetFile, reports: &[LineReport]) -> Vec<String> {
             if p.complete { "" } else { " (incomplete: a line has no result)" }
         ));
     }
+    let rho = sum
+        .paths
+        .first()
+        .and_then(|p| p.lines.last())
+        .and_then(|&s| reports[s].outcome.as_ref().ok())
+        .map(|o| o.sizing.properties.density_kg_m3());
+    let pa = |v: f64| format!("{} ({})", show(v, u.pressure, None, 3), show(v, water, None, 3));
+    if u.basis.circuit == super::file::Circuit::Open {
+        match sum.source_pa {
+            Some(p0) => {
+                out.push(format!(
+                    "Pressure left at each end line, worst first (source {}{}):",
+                    pa(p0),
+                    sum.outlet_min_pa.map(|m| format!(", outlets need {}", pa(m))).unwrap_or_default()
+                ));
+                for r in &sum.residuals {
+                    let short = sum.outlet_min_pa.filter(|&m| r.pressure_pa < m);
+                    out.push(format!(
+                        "  {}: {}{}{}",
+                        name(r.end),
+                        pa(r.pressure_pa),
+                        match short {
+                            Some(m) => format!(" — SHORT by {}", show(m - r.pressure_pa, u.pressure, None, 3)),
+                            None if r.pressure_pa < 0.0 => " — SHORT: no pressure left".to_owned(),
+                            None => String::new(),
+                        },
+                        if r.complete { "" } else { " (incomplete: a line has no result)" }
+                    ));
+                }
+            }
+            None => {
+                if let (Some(p), Some(m)) = (sum.paths.first().filter(|p| p.complete), sum.outlet_min_pa) {
+                    out.push(format!(
+                        "Needed at the source: {} (worst path {} + outlet minimum {})",
+                        pa(p.drop_pa + m),
+                        show(p.drop_pa, u.pressure, None, 3),
+                        show(m, u.pressure, None, 3)
+                    ));
+                }
+            }
+        }
+    }
+    if let Some(c) = sum.curve {
+        out.push(format!(
+            "System curve: H = {} + {} × (Q / {})²",
+            show(c.static_pa, u.pressure, None, 3),
+            show(c.k * sum.flow_m3_s.map_or(0.0, |q| q * q), u.pressure, None, 3),
+            show(sum.flow_m3_s.unwrap_or(0.0), u.flow, rho, 4),
+        ));
+    }
+    if let (Some((q, h)), Some(duty_q)) = (sum.operating, sum.flow_m3_s) {
+        let pct = (q / duty_q - 1.0) * 100.0;
+        out.push(format!(
+            "Pump runs at {} and {} on the system curve: {} the duty flow{}",
+            show(q, u.flow, rho, 4),
+            pa(h),
+            if pct >= 0.0 { format!("{:.0} % above", pct) } else { format!("{:.0} % BELOW", -pct) },
+            if pct < 0.0 { " — this pump does not meet the duty" } else { "" }
+        ));
+    }
+    if let Some((n, pv)) = sum.npsh {
+        out.push(format!(
+            "NPSH available at the pump inlet: {} m (vapour pressure {}, water's, IAPWS-IF97) — the pump's NPSH \
+             required must stay below it with the margin its maker and your practice ask",
+            format_number(n, 3),
+            show(pv, u.pressure, None, 3)
+        ));
+    }
+    for (_, m) in &sum.problems {
+        out.push(format!("System setting: {m}"));
+    }
     out
+}
+
+/// The tree, one line per line, indented under what it is fed from, with
+/// the load or fixture units it carries and its derived flow.
+pub fn tree_lines(sheet: &SheetFile, reports: &[LineReport]) -> Vec<String> {
+    let tree = super::system::tree(&sheet.lines);
+    if !tree.is_system() {
+        return Vec::new();
+    }
+    let mut order: Vec<usize> = Vec::with_capacity(sheet.lines.len());
+    fn walk(i: usize, tree: &super::system::Tree, order: &mut Vec<usize>) {
+        order.push(i);
+        for c in (0..tree.parent.len()).filter(|&c| tree.parent[c] == Some(i)) {
+            walk(c, tree, order);
+        }
+    }
+    for root in (0..sheet.lines.len()).filter(|&i| tree.parent[i].is_none()) {
+        walk(root, &tree, &mut order);
+    }
+    order
+        .into_iter()
+        .map(|i| {
+            let name = sheet.lines[i].name.trim();
+            let what = match &reports[i].outcome {
+                Ok(o) => o.flow_text.clone().unwrap_or_else(|| {
+                    show(o.line.flow.value, sheet.units().flow, Some(o.sizing.properties.density_kg_m3()), 4)
+                }),
+                Err(_) => "no result (see the line)".to_owned(),
+            };
+            format!("{}{}: {}", "  ".repeat(tree.depth[i] + 1), if name.is_empty() { "(unnamed)" } else { name }, what)
+        })
+        .collect()
 }
 
 /// A fixed-width table for a terminal.
@@ -570,7 +703,9 @@ pub fn table(sheet: &SheetFile, reports: &[LineReport]) -> String {
     }
     let system = system_lines(sheet, reports);
     if !system.is_empty() {
-        out.push_str("\n\nSystem\n");
+        out.push_str("\n\nSystem\nTree:\n");
+        out.push_str(&tree_lines(sheet, reports).join("\n"));
+        out.push('\n');
         out.push_str(&system.join("\n"));
     }
     out.push_str(&format!("\n\nCaution: {CAUTION}\n"));
@@ -714,7 +849,21 @@ struct JsonReport<'a> {
     pump_head_pa: Option<f64>,
     pump_flow_m3_s: Option<f64>,
     index_circuit: Vec<usize>,
+    system_curve_static_pa: Option<f64>,
+    system_curve_k_pa_s2_m6: Option<f64>,
+    residual_pressures: Vec<JsonResidual>,
+    pump_operating_flow_m3_s: Option<f64>,
+    pump_operating_head_pa: Option<f64>,
+    npsh_available_m: Option<f64>,
     lines: Vec<JsonLine<'a>>,
+}
+
+#[derive(Serialize)]
+struct JsonResidual {
+    line: usize,
+    pressure_pa: f64,
+    below_outlet_minimum: bool,
+    complete: bool,
 }
 
 /// JSON: every candidate of every line, in SI units.
@@ -785,7 +934,7 @@ pub fn json(sheet: &SheetFile, reports: &[LineReport]) -> String {
         })
         .collect();
     let tree = super::system::tree(&sheet.lines);
-    let summary = tree.is_system().then(|| super::system::summarise(&tree, reports, &sheet.units()));
+    let summary = tree.is_system().then(|| super::system::summarise(&tree, reports, &sheet.units(), &sheet.system));
     let report = JsonReport {
         format: "headroom-results",
         version: 1,
@@ -802,6 +951,25 @@ pub fn json(sheet: &SheetFile, reports: &[LineReport]) -> String {
             .and_then(|s| s.paths.first())
             .map(|p| p.lines.iter().rev().map(|i| i + 1).collect())
             .unwrap_or_default(),
+        system_curve_static_pa: summary.as_ref().and_then(|s| s.curve).map(|c| c.static_pa),
+        system_curve_k_pa_s2_m6: summary.as_ref().and_then(|s| s.curve).map(|c| c.k),
+        residual_pressures: summary
+            .as_ref()
+            .map(|s| {
+                s.residuals
+                    .iter()
+                    .map(|r| JsonResidual {
+                        line: r.end + 1,
+                        pressure_pa: r.pressure_pa,
+                        below_outlet_minimum: r.short(s.outlet_min_pa),
+                        complete: r.complete,
+                    })
+                    .collect()
+            })
+            .unwrap_or_default(),
+        pump_operating_flow_m3_s: summary.as_ref().and_then(|s| s.operating).map(|o| o.0),
+        pump_operating_head_pa: summary.as_ref().and_then(|s| s.operating).map(|o| o.1),
+        npsh_available_m: summary.as_ref().and_then(|s| s.npsh).map(|n| n.0),
         lines,
     };
     serde_json::to_string_pretty(&report).unwrap_or_default()

@@ -12,13 +12,26 @@
 //!   user's choice, 1 when blank; it reduces what its branches bring, not its
 //!   own load). A line with a typed flow keeps that flow; its load-less
 //!   flow does not reach the lines above it, and they say so.
+//! - Fixtures accumulate the same way through lines whose flow comes from
+//!   fixtures: the counts of each kind add up, each line reads them in its
+//!   own supply's column (cold, hot or total) and takes its flow from its
+//!   total units by the sheet's demand method — never by adding the
+//!   branches' flows. No diversity applies: the method is already a
+//!   probability. Continuous flows (circulation, irrigation) add as flows.
+//!   A fixture is listed once in each tree it draws from; keep the hot
+//!   tree (fed from the heater) apart from the cold one.
 //! - Closed loop: the pump head is friction, fittings and components along
 //!   the index circuit, on the flow run and — unless the sheet says the
 //!   return is entered as lines of its own — once more for a return that
 //!   mirrors it (common practice for a two-pipe system drawn flow-only);
 //!   the static part is left out. Open system: the drops include the rise.
 
-use super::file::{Circuit, LineFile, LoadFile, ReturnRun, Units};
+use super::file::SystemFile;
+use super::file::{Circuit, FixturesFile, LineFile, LoadFile, ReturnRun, Units};
+use crate::hydraulics::demand::{self, Method};
+use crate::hydraulics::field::Field;
+use crate::hydraulics::fluid::{water, Fluid};
+use crate::hydraulics::pump::{self, PumpCurve, SystemCurve};
 
 /// What joining lines reads of a line: its name, what it is fed from, its
 /// load and diversity. The page keeps one per line in a memo, so an edit
@@ -33,6 +46,8 @@ pub struct Joint {
     pub load: Option<LoadFile>,
     /// Diversity on its branches' loads, as typed.
     pub diversity: Option<String>,
+    /// Its fixtures, when its flow comes from them.
+    pub fixtures: Option<FixturesFile>,
 }
 
 impl Joint {
@@ -43,6 +58,7 @@ impl Joint {
             fed_from: l.fed_from.clone(),
             load: l.load.clone(),
             diversity: l.diversity.clone(),
+            fixtures: l.fixtures.clone(),
         }
     }
 }
@@ -191,7 +207,7 @@ fn diversity_of(text: Option<&str>) -> f64 {
 }
 
 /// What a line carries for the lines below it.
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, Copy, PartialEq, Default)]
 pub struct Carried {
     /// Φ the line's flow is derived from, W (own + diversity × branches).
     pub load_w: f64,
@@ -199,6 +215,76 @@ pub struct Carried {
     pub from_branches_w: f64,
     /// Branches whose flow is typed (so not in the load above).
     pub typed_branches: usize,
+    /// Fixture units the flow is derived from (own + branches), in the
+    /// line's own supply column; 0 for a load-driven line.
+    pub fixture_units: f64,
+    /// How many of them its branches bring.
+    pub units_from_branches: f64,
+    /// The largest single fixture's units among them.
+    pub largest_unit: f64,
+    /// Continuous flow added to the probable demand, m³/s (own +
+    /// branches).
+    pub continuous_m3_s: f64,
+}
+
+impl Carried {
+    /// True when the line has branches that bring something.
+    pub fn has_branches(&self) -> bool {
+        self.from_branches_w > 0.0 || self.typed_branches > 0 || self.units_from_branches > 0.0
+    }
+}
+
+fn count_of(t: &str) -> f64 {
+    parse_decimal(t.trim()).ok().filter(|c| c.is_finite() && *c >= 0.0 && c.fract() == 0.0).unwrap_or(0.0)
+}
+
+/// Counts of each kind of the method a line lists (0 for a wrong count or
+/// kind: the line's own evaluation reports it), and its continuous flow.
+fn own_fixtures(l: &Joint, u: &Units) -> Option<(Vec<f64>, f64)> {
+    let fx = l.fixtures.as_ref()?;
+    let kinds = u.basis.demand.kinds();
+    let mut counts = vec![0.0; kinds.len()];
+    for item in &fx.items {
+        if let Some(k) = kinds.iter().position(|k| k.id == item.kind) {
+            counts[k] += count_of(&item.count);
+        }
+    }
+    let continuous = continuous_flow(fx, u).unwrap_or(0.0);
+    Some((counts, continuous))
+}
+
+/// A line's continuous flow, m³/s, when typed and right.
+pub fn continuous_flow(fx: &FixturesFile, u: &Units) -> Option<f64> {
+    let t = fx.continuous.trim();
+    if t.is_empty() {
+        return Some(0.0);
+    }
+    units::parse(Dimension::Flow, t, u.flow)
+        .ok()
+        .and_then(|m| m.to_si(None).ok())
+        .filter(|q| q.is_finite() && *q >= 0.0)
+}
+
+/// What a fixture line's flow comes from: its units (own and its
+/// branches'), how many its branches bring, and its continuous flow, m³/s.
+pub fn fixture_totals(l: &LineFile, u: &Units, carried: Option<&Carried>) -> Option<(f64, f64, f64)> {
+    let fx = l.fixtures.as_ref().filter(|_| l.load.is_none())?;
+    match carried.filter(|c| c.has_branches()) {
+        Some(c) => Some((c.fixture_units, c.units_from_branches, c.continuous_m3_s)),
+        None => {
+            let (counts, q) = own_fixtures(&Joint::of(l), u)?;
+            Some((units_of(&counts, u.basis.demand, fx.supply).0, 0.0, q))
+        }
+    }
+}
+
+/// Units and largest single unit of so many fixtures of each kind, read in
+/// a supply's column.
+pub fn units_of(counts: &[f64], method: Method, supply: demand::Supply) -> (f64, f64) {
+    method.kinds().iter().zip(counts).fold((0.0, 0.0), |(sum, big), (k, &n)| {
+        let each = k.units(supply);
+        (sum + n * each, if n > 0.0 { big.max(each) } else { big })
+    })
 }
 
 /// The heat load each load-driven line's flow comes from; `None` for lines
@@ -213,22 +299,55 @@ pub fn carried_of(lines: &[Joint], tree: &Tree, u: &Units) -> Vec<Option<Carried
     let mut order: Vec<usize> = (0..n).collect();
     // Deepest first, so every branch is done before its parent.
     order.sort_by_key(|&i| std::cmp::Reverse(tree.depth[i]));
+    let method = u.basis.demand;
+    let fixtures: Vec<Option<(Vec<f64>, f64)>> = lines.iter().map(|l| own_fixtures(l, u)).collect();
     let mut out: Vec<Option<Carried>> = lines
         .iter()
-        .map(|l| own_load(l, u).map(|w| Carried { load_w: w, from_branches_w: 0.0, typed_branches: 0 }))
+        .zip(&fixtures)
+        .map(|(l, f)| match (own_load(l, u), f) {
+            (Some(w), _) => Some(Carried { load_w: w, ..Carried::default() }),
+            (None, Some(_)) => Some(Carried::default()),
+            (None, None) => None,
+        })
         .collect();
+    let kinds = method.kinds().len();
     let mut branches_w = vec![0.0; n];
+    let mut branch_counts = vec![vec![0.0; kinds]; n];
+    let mut branch_continuous = vec![0.0; n];
     let mut typed = vec![0usize; n];
+    // What each fixture line passes up: its counts and continuous flow.
+    let mut passed: Vec<Option<(Vec<f64>, f64)>> = vec![None; n];
     for &i in &order {
+        let is_fixture = lines[i].load.is_none() && fixtures[i].is_some();
         if let Some(c) = out[i].as_mut() {
             c.from_branches_w = branches_w[i];
             c.typed_branches = typed[i];
             c.load_w += diversity_of(lines[i].diversity.as_deref()) * branches_w[i];
+            if let (true, Some((own, own_q))) = (is_fixture, &fixtures[i]) {
+                let supply = lines[i].fixtures.as_ref().map(|f| f.supply).unwrap_or_default();
+                let all: Vec<f64> = own.iter().zip(&branch_counts[i]).map(|(a, b)| a + b).collect();
+                let (total, largest) = units_of(&all, method, supply);
+                let (from_branches, _) = units_of(&branch_counts[i], method, supply);
+                c.fixture_units = total;
+                c.units_from_branches = from_branches;
+                c.largest_unit = largest;
+                c.continuous_m3_s = own_q + branch_continuous[i];
+                passed[i] = Some((all, c.continuous_m3_s));
+            }
         }
         if let Some(p) = tree.parent[i] {
-            match out[i] {
-                Some(c) => branches_w[p] += c.load_w,
-                None => typed[p] += 1,
+            // Loads go up to load lines, fixtures to fixture lines; any
+            // other branch is counted as not included.
+            let parent_fixture = lines[p].load.is_none() && fixtures[p].is_some();
+            match (&passed[i], out[i]) {
+                (Some((counts, q)), _) if parent_fixture => {
+                    for (a, b) in branch_counts[p].iter_mut().zip(counts) {
+                        *a += b;
+                    }
+                    branch_continuous[p] += q;
+                }
+                (None, Some(c)) if !parent_fixture && lines[i].load.is_some() => branches_w[p] += c.load_w,
+                _ => typed[p] += 1,
             }
         }
     }
@@ -262,11 +381,98 @@ pub struct Summary {
     pub flow_m3_s: Option<f64>,
     /// Whether the head counts a mirrored return run.
     pub mirrored: bool,
+    /// H = static + k·Q² through the duty point (static: the index
+    /// circuit's rise in an open system, nil in a closed loop).
+    pub curve: Option<SystemCurve>,
+    /// Open system with a source pressure: the pressure left at each end
+    /// line, worst first.
+    pub residuals: Vec<Residual>,
+    /// Open system: pressure at the source, Pa gauge.
+    pub source_pa: Option<f64>,
+    /// Open system: least pressure an outlet needs, Pa gauge.
+    pub outlet_min_pa: Option<f64>,
+    /// The pump curve, from three points.
+    pub pump: Option<PumpCurve>,
+    /// The points it was drawn through, (m³/s, Pa).
+    pub pump_points: Vec<(f64, f64)>,
+    /// Where the pump meets the system, (m³/s, Pa).
+    pub operating: Option<(f64, f64)>,
+    /// NPSH available at the pump inlet, m, and the vapour pressure used.
+    pub npsh: Option<(f64, f64)>,
+    /// What could not be read of the system settings, or does not add up.
+    pub problems: Vec<(Field, String)>,
+}
+
+/// The pressure left at an end line.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Residual {
+    /// The end line.
+    pub end: usize,
+    /// Source pressure less the drop along its path (rise included), Pa.
+    pub pressure_pa: f64,
+    /// False when a line on its path has no result.
+    pub complete: bool,
+}
+
+impl Residual {
+    /// True when it is below the least outlet pressure.
+    pub fn short(&self, minimum_pa: Option<f64>) -> bool {
+        self.pressure_pa < minimum_pa.unwrap_or(0.0)
+    }
+}
+
+/// A gauge pressure typed in a system setting, Pa: a unit marked gauge
+/// or absolute is turned to gauge; a plain one is read as typed.
+fn gauge(field: Field, text: &str, u: &Units, rho: Option<f64>, problems: &mut Vec<(Field, String)>) -> Option<f64> {
+    let t = text.trim();
+    if t.is_empty() {
+        return None;
+    }
+    let read = units::parse(Dimension::Pressure, t, u.pressure).and_then(|m| {
+        let si = m.to_si(rho)?;
+        Ok(if m.unit.reference().is_some() { si - units::ATMOSPHERE_PA } else { si })
+    });
+    match read {
+        Ok(v) if v.is_finite() => Some(v),
+        Ok(_) => {
+            problems.push((field, format!("{}: not a finite pressure", field.label())));
+            None
+        }
+        Err(e) => {
+            problems.push((field, format!("{}: {e}", field.label())));
+            None
+        }
+    }
+}
+
+fn measure(
+    field: Field,
+    dim: Dimension,
+    text: &str,
+    unit: &'static units::Unit,
+    rho: Option<f64>,
+    problems: &mut Vec<(Field, String)>,
+) -> Option<f64> {
+    let t = text.trim();
+    if t.is_empty() {
+        return None;
+    }
+    match units::parse(dim, t, unit).and_then(|m| m.to_si(rho)) {
+        Ok(v) if v.is_finite() => Some(v),
+        Ok(_) => {
+            problems.push((field, format!("{}: not a finite number", field.label())));
+            None
+        }
+        Err(e) => {
+            problems.push((field, format!("{}: {e}", field.label())));
+            None
+        }
+    }
 }
 
 /// The paths from every end line to its source, worst first, and the pump
 /// duty from the worst one (the index circuit).
-pub fn summarise(tree: &Tree, reports: &[LineReport], u: &Units) -> Summary {
+pub fn summarise(tree: &Tree, reports: &[LineReport], u: &Units, sys: &SystemFile) -> Summary {
     let shown = |i: usize| {
         reports[i]
             .outcome
@@ -298,7 +504,137 @@ pub fn summarise(tree: &Tree, reports: &[LineReport], u: &Units) -> Summary {
     let index = paths.first().filter(|p| p.complete);
     let head_pa = index.map(|p| if mirrored { 2.0 * p.drop_pa } else { p.drop_pa });
     let flow_m3_s = index.and_then(|p| p.lines.last().and_then(|&s| shown(s)).map(|(_, q)| q));
-    Summary { paths, head_pa, flow_m3_s, mirrored }
+    let open = u.basis.circuit == Circuit::Open;
+    let mut problems = Vec::new();
+    // The fluid at the source of the index circuit (or of any tree).
+    let source = paths.first().and_then(|p| p.lines.last().copied());
+    let at_source = source.and_then(|s| reports[s].outcome.as_ref().ok());
+    let rho = at_source.map(|o| o.sizing.properties.density_kg_m3());
+    let static_pa = if open { index.map_or(0.0, |p| p.static_pa) } else { 0.0 };
+    let curve = match (flow_m3_s, head_pa) {
+        (Some(q), Some(h)) => SystemCurve::through(static_pa, q, h),
+        _ => None,
+    };
+    let (source_pa, outlet_min_pa) = if open {
+        (
+            gauge(Field::SourcePressure, &sys.source_pressure, u, rho, &mut problems),
+            gauge(Field::OutletMinimum, &sys.outlet_minimum, u, rho, &mut problems),
+        )
+    } else {
+        (None, None)
+    };
+    let mut residuals: Vec<Residual> = match source_pa {
+        Some(p0) => paths
+            .iter()
+            .map(|p| Residual { end: p.lines[0], pressure_pa: p0 - p.drop_pa, complete: p.complete })
+            .collect(),
+        None => Vec::new(),
+    };
+    residuals.sort_by(|a, b| a.pressure_pa.total_cmp(&b.pressure_pa));
+    let mut pump_points = Vec::new();
+    for (i, pt) in sys.pump.iter().enumerate() {
+        let q = measure(Field::PumpPoint, Dimension::Flow, &pt.flow, u.flow, rho, &mut problems);
+        let h = measure(Field::PumpPoint, Dimension::Pressure, &pt.head, u.pressure, rho, &mut problems);
+        match (q, h) {
+            (Some(q), Some(h)) if q >= 0.0 && h > 0.0 => pump_points.push((q, h)),
+            (Some(_), Some(_)) => problems
+                .push((Field::PumpPoint, format!("pump curve point {}: flow from 0 and head above 0, please", i + 1))),
+            _ => {}
+        }
+    }
+    let pump = match pump_points.as_slice() {
+        [a, b, c] => match PumpCurve::through([*a, *b, *c]) {
+            Ok(c) => Some(c),
+            Err(e) => {
+                problems.push((Field::PumpPoint, e.to_string()));
+                None
+            }
+        },
+        [] => None,
+        _ if sys.pump.iter().all(|p| !p.flow.trim().is_empty() && !p.head.trim().is_empty()) => {
+            problems.push((Field::PumpPoint, "give three points of the pump curve to find where it runs".into()));
+            None
+        }
+        _ => None,
+    };
+    let operating = match (pump, curve) {
+        (Some(p), Some(c)) => {
+            let q_max = 1.5 * pump_points.iter().map(|x| x.0).fold(0.0, f64::max);
+            let found = pump::operating_point(&p, &c, q_max);
+            if found.is_none() {
+                problems.push((
+                    Field::PumpPoint,
+                    "the pump curve does not meet the system curve within its points: this pump cannot give the \
+                     duty"
+                        .into(),
+                ));
+            }
+            found
+        }
+        _ => None,
+    };
+    let npsh = npsh_of(sys, u, at_source, &mut problems);
+    Summary {
+        paths,
+        head_pa,
+        flow_m3_s,
+        mirrored,
+        curve,
+        residuals,
+        source_pa,
+        outlet_min_pa,
+        pump,
+        pump_points,
+        operating,
+        npsh,
+        problems,
+    }
+}
+
+/// NPSH available at the pump inlet, m, with the vapour pressure used:
+/// water's saturation pressure at the source line's temperature
+/// (IAPWS-IF97), also for glycol mixtures, whose vapour pressure is lower
+/// (so the figure errs low, the safe side).
+fn npsh_of(
+    sys: &SystemFile,
+    u: &Units,
+    at_source: Option<&super::report::Outcome>,
+    problems: &mut Vec<(Field, String)>,
+) -> Option<(f64, f64)> {
+    let s = &sys.suction;
+    if s.pressure.trim().is_empty() {
+        return None;
+    }
+    let o = at_source?;
+    let rho = o.sizing.properties.density_kg_m3();
+    let t = s.pressure.trim();
+    let surface = match units::parse(Dimension::Pressure, t, u.pressure).and_then(|m| {
+        let si = m.to_si(Some(rho))?;
+        // A plain unit is read as absolute here: the surface pressure is.
+        Ok(si)
+    }) {
+        Ok(v) if v.is_finite() && v > 0.0 => v,
+        Ok(_) => {
+            problems.push((Field::SuctionPressure, "the suction surface pressure is absolute: above 0".into()));
+            return None;
+        }
+        Err(e) => {
+            problems.push((Field::SuctionPressure, format!("{}: {e}", Field::SuctionPressure.label())));
+            return None;
+        }
+    };
+    let height = measure(Field::SuctionHeight, Dimension::Length, &s.height, u.length, None, problems).unwrap_or(0.0);
+    let loss =
+        measure(Field::SuctionLoss, Dimension::Pressure, &s.loss, u.pressure, Some(rho), problems).unwrap_or(0.0);
+    if matches!(o.line.fluid, Fluid::Custom(_)) {
+        problems.push((
+            Field::SuctionPressure,
+            "NPSH needs the fluid's vapour pressure: not known for a custom fluid".into(),
+        ));
+        return None;
+    }
+    let pv = water::if97_saturation_pressure(o.line.temperature.value);
+    Some((pump::npsh_available_m(surface, pv, rho, height, loss), pv))
 }
 
 #[cfg(test)]
