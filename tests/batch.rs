@@ -33,11 +33,16 @@ fn the_demo_sheet_sizes_every_line_in_all_three_forms() {
     assert!(table.contains("Caution: Design guidance only"), "{table}");
     let (code, csv, _) = batch(&["examples/clinic-chilled-water.json", "--format", "csv"]);
     assert_eq!(code, 0);
-    assert_eq!(csv.lines().filter(|l| l.contains(",proposed,")).count(), 4, "{csv}");
+    assert_eq!(csv.lines().filter(|l| l.contains(",proposed,")).count(), 6, "{csv}");
     let (code, json, _) = batch(&["examples/clinic-chilled-water.json", "--format", "json"]);
     assert_eq!(code, 0);
     let v: serde_json::Value = serde_json::from_str(&json).unwrap();
-    assert_eq!(v["lines"].as_array().unwrap().len(), 4);
+    assert_eq!(v["lines"].as_array().unwrap().len(), 6);
+    // The demo is a system: the tree, the index circuit and the pump.
+    assert!(table.contains("Tree:") && table.contains("Index circuit:") && table.contains("Pump runs at"), "{table}");
+    assert_eq!(v["index_circuit"], serde_json::json!([1, 2, 3]));
+    assert!(v["pump_operating_flow_m3_s"].as_f64().unwrap() > v["pump_flow_m3_s"].as_f64().unwrap());
+    assert!(v["npsh_available_m"].as_f64().unwrap() > 10.0);
     assert!(v["caution"].as_str().unwrap().contains("licensed professional"));
     // The JSON and table agree on the proposal of line 2.
     let size = v["lines"][1]["proposed_size"].as_str().unwrap();
@@ -108,7 +113,8 @@ fn a_reader_that_stops_early_ends_the_output_quietly() {
         std::fs::read_to_string(Path::new(env!("CARGO_MANIFEST_DIR")).join("examples/clinic-chilled-water.json"))
             .unwrap();
     let mut sheet: serde_json::Value = serde_json::from_str(&demo).unwrap();
-    let line = sheet["lines"][0].clone();
+    // The last line has a typed flow and feeds nothing.
+    let line = sheet["lines"][5].clone();
     sheet["lines"] = serde_json::Value::Array(vec![line; 1500]);
     let path = temp_file("many-lines.json", &sheet.to_string());
     let mut child = Command::new(env!("CARGO_BIN_EXE_headroom-batch"))

@@ -454,13 +454,18 @@ async fn loads_add_up_a_three_level_tree_and_the_page_shows_the_pump_duty() {
         "{}",
         text(&root, "derived-flow")
     );
-    let system = text(&root, "system");
+    let system = text(&root, "system-lines");
     assert!(system.contains("Index circuit: Main → Riser → Coil"), "{system}");
     assert!(system.contains("pump duty"), "{system}");
     // The page agrees with the sheet model for the same file.
     let file = sheet.to_file();
     let reports = headroom::sheet::report::evaluate(&file);
-    assert_eq!(system, format!("System{}", headroom::sheet::report::system_lines(&file, &reports).concat()));
+    assert_eq!(system, headroom::sheet::report::system_lines(&file, &reports).concat());
+    // The pump-and-system plot is drawn with the duty point.
+    assert_eq!(
+        root.query_selector_all("[data-testid=system] [data-testid=duty-plot] .duty-point").unwrap().length(),
+        1
+    );
     // The print sheet shows the system too, once it follows (here: at once,
     // as the browser is about to print).
     web_sys::window().unwrap().dispatch_event(&web_sys::Event::new("beforeprint").unwrap()).unwrap();
@@ -480,4 +485,81 @@ async fn loads_add_up_a_three_level_tree_and_the_page_shows_the_pump_duty() {
     sheet.selected.set(Some(ids[1]));
     leptos::task::tick().await;
     assert!(text(&root, "fed-from-error").contains("cannot be fed from itself"), "{}", text(&root, "fed-from-error"));
+}
+
+/// The roster rows' classes and hidden flags, in order.
+fn rows(root: &HtmlElement) -> Vec<(bool, bool)> {
+    let rows = root.query_selector_all("[data-testid=roster-row]").unwrap();
+    (0..rows.length())
+        .map(|i| {
+            let e: HtmlElement = rows.item(i).unwrap().unchecked_into();
+            (e.class_list().contains("on-path"), e.hidden())
+        })
+        .collect()
+}
+
+#[wasm_bindgen_test]
+async fn a_fixture_branch_gets_the_probable_flow_not_the_sum_of_its_fixtures() {
+    // The clinic's cold water, built from the editor as a person would: a
+    // main on the cold supply and two floors listing their fixtures.
+    let (root, sheet) = mount_sheet(|s| {
+        for name in ["DCW main", "Ground floor", "First floor"] {
+            s.add(&SERVICES[2]);
+            let slot = s.lines.with_untracked(|v| v.last().cloned()).unwrap();
+            slot.file.update(|f| {
+                f.name = name.into();
+                f.length = "15".into();
+            });
+        }
+    });
+    let ids: Vec<u32> = sheet.lines.with_untracked(|v| v.iter().map(|s| s.id).collect());
+    let fixtures: [&[(&str, &str)]; 3] = [
+        &[],
+        &[("lavatory-public", "4"), ("wc-public-tank", "3")],
+        &[("lavatory-public", "2"), ("wc-public-tank", "2"), ("service-sink", "1")],
+    ];
+    for (k, list) in fixtures.into_iter().enumerate() {
+        sheet.selected.set(Some(ids[k]));
+        leptos::task::tick().await;
+        if k > 0 {
+            choose(&root, "fed-from", "DCW main");
+        }
+        choose(&root, "flow-from", "fixtures");
+        leptos::task::tick().await;
+        choose(&root, "fixture-supply", "cold");
+        for (i, (kind, count)) in list.iter().enumerate() {
+            click(&root, "add-fixture");
+            leptos::task::tick().await;
+            choose(&root, &format!("fixture-{i}"), kind);
+            leptos::task::tick().await;
+            type_into(&root, &format!("fixture-{i}-count"), count);
+            leptos::task::tick().await;
+        }
+    }
+    // IPC 2018 Table E103.3(2), cold column: 4 × 1.5 + 3 × 5 = 21 WSFU and
+    // 2 × 1.5 + 2 × 5 + 2.25 = 15.25 WSFU; the main carries 36.25 WSFU.
+    // Hunter's flush-tank curve: 14.6, 11.25 and 23.125 gpm — the main's is
+    // read from its total, not 14.6 + 11.25 = 25.85 gpm.
+    let file = sheet.to_file();
+    let reports = headroom::sheet::report::evaluate(&file);
+    let gpm = |i: usize| reports[i].outcome.as_ref().unwrap().line.flow.value / (3.785_411_784e-3 / 60.0);
+    assert!((gpm(1) - 14.6).abs() < 1e-9 && (gpm(2) - 11.25).abs() < 1e-9, "{} {}", gpm(1), gpm(2));
+    assert!((gpm(0) - 23.125).abs() < 1e-9, "{}", gpm(0));
+    sheet.selected.set(Some(ids[0]));
+    leptos::task::tick().await;
+    let derived = text(&root, "derived-flow");
+    assert!(derived.contains("for 36.25 WSFU (0 own + 36.25 from its branches)"), "{derived}");
+    assert!(all_text(&root, "row-carried")[0].starts_with("36.25 WSFU"), "{:?}", all_text(&root, "row-carried"));
+    assert!(text(&root, "system-lines").contains("Fixtures to flow: Hunter's method"));
+    // Selecting an end line lights its path; folding the main hides its
+    // branches, and unfolding shows them again.
+    sheet.selected.set(Some(ids[2]));
+    leptos::task::tick().await;
+    assert_eq!(rows(&root), [(true, false), (false, false), (true, false)]);
+    click(&root, "row-fold");
+    leptos::task::tick().await;
+    assert_eq!(rows(&root).iter().map(|r| r.1).collect::<Vec<_>>(), [false, true, true]);
+    click(&root, "row-fold");
+    leptos::task::tick().await;
+    assert_eq!(rows(&root).iter().map(|r| r.1).collect::<Vec<_>>(), [false, false, false]);
 }

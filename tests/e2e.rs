@@ -127,11 +127,17 @@ async fn edit_to_results_time_on_a_200_line_sheet() {
     h.open("/", "open-demo").await;
     h.click("open-demo").await;
     h.wait_for("proposed-size").await;
+    // The demo's last line has a typed flow (the others come from loads):
+    // edit that one.
+    let picks = h.client.find_all(Locator::Css("[data-testid=roster-row] .pick")).await.unwrap();
+    picks[picks.len() - 1].click().await.unwrap();
+    h.wait_for("flow").await;
     let small = time_edits(&h).await;
     let n = h.client.find_all(Locator::Css("[data-testid=roster-row]")).await.unwrap().len();
     for _ in n..200 {
-        // Duplicate the selected (first) line: every line is sized.
-        h.client.execute("document.querySelector('[data-testid=row-duplicate]').click()", vec![]).await.unwrap();
+        // Duplicate the dry-cooler line (the sixth; copies go below it, and
+        // the copy is selected): every line is sized.
+        h.client.execute("document.querySelectorAll('[data-testid=row-duplicate]')[5].click()", vec![]).await.unwrap();
     }
     let rows = h.client.find_all(Locator::Css("[data-testid=roster-row]")).await.unwrap();
     assert_eq!(rows.len(), 200);
@@ -658,5 +664,83 @@ async fn switching_worksheets_of_other_unit_systems_in_every_way_keeps_the_page_
         h.client.set_window_size(w, hgt).await.unwrap();
         h.screenshot(name).await;
     }
+    h.finish().await;
+}
+
+#[tokio::test(flavor = "multi_thread")]
+#[ignore = "needs dist/ and chromedriver: scripts/test runs it"]
+async fn a_user_builds_a_three_level_tree_and_a_fixture_branch_in_the_served_page() {
+    let mut h = Harness::start(1024, 768).await;
+    h.open("/", "empty").await;
+    // Chilled water from loads: a main, a riser fed from it, two coils fed
+    // from the riser (loads on the coils only), typed as a person would.
+    for (name, fed, power) in [
+        ("Main", None, ""),
+        ("Riser", Some("Main"), ""),
+        ("Coil 1", Some("Riser"), "40 kW"),
+        ("Coil 2", Some("Riser"), "25 kW"),
+    ] {
+        h.click("add-line").await;
+        h.type_into("line-name", name).await;
+        h.type_into("length", "30").await;
+        if let Some(f) = fed {
+            h.select("fed-from", f).await;
+        }
+        h.select("flow-from", "load").await;
+        h.type_into("load-power", power).await;
+        h.type_into("load-delta-t", "6").await;
+    }
+    let system = h.text("system-lines").await;
+    assert!(system.contains("Index circuit: Main → Riser → Coil"), "{system}");
+    assert!(system.contains("pump duty"), "{system}");
+    let carried = h.client.find_all(Locator::Css("[data-testid=row-carried]")).await.unwrap();
+    assert!(carried[0].text().await.unwrap().starts_with("65.0 kW →"), "the main carries 40 + 25 kW");
+    assert_eq!(
+        h.client
+            .find_all(Locator::Css("[data-testid=system] [data-testid=duty-plot] .duty-point"))
+            .await
+            .unwrap()
+            .len(),
+        1
+    );
+
+    // Domestic cold water from fixtures: a main and two floors.
+    h.select("add-service", "domestic-cold").await;
+    for (name, fed, list) in [
+        ("DCW main", None, &[][..]),
+        ("DCW ground", Some("DCW main"), &[("lavatory-public", "4"), ("wc-public-tank", "3")][..]),
+        (
+            "DCW first",
+            Some("DCW main"),
+            &[("lavatory-public", "2"), ("wc-public-tank", "2"), ("service-sink", "1")][..],
+        ),
+    ] {
+        h.click("add-line").await;
+        h.type_into("line-name", name).await;
+        h.type_into("length", "15").await;
+        if let Some(f) = fed {
+            h.select("fed-from", f).await;
+        }
+        h.select("flow-from", "fixtures").await;
+        h.select("fixture-supply", "cold").await;
+        for (i, (kind, count)) in list.iter().enumerate() {
+            h.click("add-fixture").await;
+            h.select(&format!("fixture-{i}"), kind).await;
+            h.type_into(&format!("fixture-{i}-count"), count).await;
+        }
+    }
+    // 21 + 15.25 WSFU on the cold column (IPC 2018 Table E103.3(2)); the
+    // main's flow is Hunter's 23.125 gpm for 36.25 WSFU, not the 25.85 gpm
+    // its two floors draw between them.
+    let picks = h.client.find_all(Locator::Css("[data-testid=roster-row] .pick")).await.unwrap();
+    picks[4].click().await.unwrap();
+    let derived = h.text("derived-flow").await;
+    assert!(derived.contains("for 36.25 WSFU (0 own + 36.25 from its branches)"), "{derived}");
+    let si = Units::defaults(System::Si);
+    let q = 23.125 * 3.785_411_784e-3 / 60.0;
+    assert!(derived.starts_with(&format!("Flow = {}", units::show(q, si.flow, None, 4))), "{derived}");
+    h.screenshot("system-tree.png").await;
+    h.client.execute("document.querySelector('[data-testid=system]').scrollIntoView()", vec![]).await.unwrap();
+    h.screenshot("system-panel.png").await;
     h.finish().await;
 }

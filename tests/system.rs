@@ -220,3 +220,29 @@ fn a_pump_curve_meets_the_system_curve_and_npsh_is_found() {
     assert!((pv - 1002.0).abs() < 2.0, "{pv}");
     assert!((n - 12.23).abs() < 0.01, "{n}");
 }
+
+#[test]
+fn the_combined_supply_counts_a_fixture_once_though_both_supplies_list_it() {
+    // A main on the combined supply feeds a cold branch and the heater's
+    // hot branch; the four public basins are listed in both.
+    let json = r#"{"format":"headroom-sheet","version":3,"lines":[
+      {"name":"main","fixtures":{"supply":"total"},"fluid":{"kind":"water","temperature":"12 °C"},
+       "pipe":{"series":"copper-l"},"length":"10 m","limits":{"max_velocity":"2 m/s"}},
+      {"name":"cold","fed_from":"main","fixtures":{"supply":"cold","items":[
+         {"kind":"lavatory-public","count":"4"},{"kind":"wc-public-tank","count":"3"}]},
+       "fluid":{"kind":"water","temperature":"12 °C"},"pipe":{"series":"copper-l"},"length":"10 m","limits":{"max_velocity":"2 m/s"}},
+      {"name":"hot","fed_from":"main","fixtures":{"supply":"hot","items":[{"kind":"lavatory-public","count":"4"}]},
+       "fluid":{"kind":"water","temperature":"60 °C"},"pipe":{"series":"copper-l"},"length":"10 m","limits":{"max_velocity":"1.5 m/s"}}
+    ]}"#;
+    let sheet = SheetFile::from_json(json).unwrap();
+    let tree = system::tree(&sheet.lines);
+    let c = system::carried(&sheet.lines, &tree, &sheet.units());
+    // IPC 2018 Table E103.3(2): public lavatory 1.5 cold, 1.5 hot, 2.0
+    // total; public flush-tank WC 5 cold, 5 total.
+    // Cold: 4 × 1.5 + 3 × 5 = 21; hot: 4 × 1.5 = 6; the main, each basin
+    // once on the total column: 4 × 2.0 + 3 × 5.0 = 23 (not 21 + 6 = 27).
+    assert_eq!(c[1].unwrap().fixture_units, 21.0);
+    assert_eq!(c[2].unwrap().fixture_units, 6.0);
+    assert_eq!(c[0].unwrap().fixture_units, 23.0);
+    assert_eq!(c[0].unwrap().largest_unit, 5.0);
+}

@@ -8,12 +8,52 @@
 //!   the material) and fills the rest with defaults marked below.
 
 use super::file::{
-    ComponentFile, ComponentKind, FittingCount, FluidFile, GlycolName, LineFile, LoadFile, MethodName, PipeFile,
+    ComponentFile, ComponentKind, FittingCount, FixtureCountFile, FixturesFile, FluidFile, GlycolName, LineFile,
+    LoadFile, MethodName, PipeFile,
 };
 use super::presets::Service;
 use crate::hydraulics::field::Field;
 use crate::hydraulics::losses::Fitting;
 use crate::hydraulics::pipes::{self, Material};
+
+/// Where a line's flow comes from.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum FlowFrom {
+    /// A flow typed in.
+    Flow,
+    /// A heat load and ΔT.
+    Load,
+    /// The fixtures it serves.
+    Fixtures,
+}
+
+impl FlowFrom {
+    /// Every source, in picker order.
+    pub const ALL: [FlowFrom; 3] = [FlowFrom::Flow, FlowFrom::Load, FlowFrom::Fixtures];
+
+    /// Stable id for the picker.
+    pub fn id(self) -> &'static str {
+        match self {
+            FlowFrom::Flow => "flow",
+            FlowFrom::Load => "load",
+            FlowFrom::Fixtures => "fixtures",
+        }
+    }
+
+    /// Words for the picker.
+    pub fn label(self) -> &'static str {
+        match self {
+            FlowFrom::Flow => "a flow",
+            FlowFrom::Load => "a heat load and ΔT",
+            FlowFrom::Fixtures => "fixtures (probable demand)",
+        }
+    }
+
+    /// Finds a source by id.
+    pub fn from_id(id: &str) -> Option<FlowFrom> {
+        FlowFrom::ALL.into_iter().find(|f| f.id() == id)
+    }
+}
 
 /// Which kind of fluid a line carries.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -76,6 +116,7 @@ impl LineFile {
             (Field::Flow, ..) => self.flow.clone(),
             (Field::LoadPower, ..) => self.load.as_ref().map(|l| l.power.clone()).unwrap_or_default(),
             (Field::LoadDeltaT, ..) => self.load.as_ref().map(|l| l.delta_t.clone()).unwrap_or_default(),
+            (Field::ContinuousFlow, ..) => self.fixtures.as_ref().map(|x| x.continuous.clone()).unwrap_or_default(),
             (
                 Field::FluidTemperature,
                 FluidFile::Water { temperature, .. } | FluidFile::Glycol { temperature, .. },
@@ -117,6 +158,11 @@ impl LineFile {
             (Field::LoadDeltaT, ..) => {
                 if let Some(l) = &mut self.load {
                     l.delta_t = text;
+                }
+            }
+            (Field::ContinuousFlow, ..) => {
+                if let Some(x) = &mut self.fixtures {
+                    x.continuous = text;
                 }
             }
             (
@@ -258,10 +304,60 @@ impl LineFile {
     /// typed is lost: the flow text stays while a load is used, and a load
     /// put aside is kept until the line is saved without it.
     pub fn set_flow_from_load(&mut self, load: bool) {
-        match (load, &self.load) {
-            (true, None) => self.load = Some(LoadFile::default()),
-            (false, Some(_)) => self.load = None,
-            _ => {}
+        self.set_flow_from(if load { FlowFrom::Load } else { FlowFrom::Flow });
+    }
+
+    /// Where the line's flow comes from.
+    pub fn flow_from(&self) -> FlowFrom {
+        match (&self.load, &self.fixtures) {
+            (Some(_), _) => FlowFrom::Load,
+            (None, Some(_)) => FlowFrom::Fixtures,
+            (None, None) => FlowFrom::Flow,
+        }
+    }
+
+    /// Changes where the flow comes from. The typed flow is kept whatever
+    /// is chosen; a load's or the fixtures' texts are dropped when another
+    /// source is chosen.
+    pub fn set_flow_from(&mut self, from: FlowFrom) {
+        if self.flow_from() == from {
+            return;
+        }
+        self.load = (from == FlowFrom::Load).then(LoadFile::default);
+        self.fixtures = (from == FlowFrom::Fixtures).then(FixturesFile::default);
+    }
+
+    /// Adds a fixture row of a kind, one of it.
+    pub fn add_fixture(&mut self, kind: &str) {
+        let fx = self.fixtures.get_or_insert_with(FixturesFile::default);
+        fx.items.push(FixtureCountFile { kind: kind.to_owned(), count: "1".to_owned() });
+    }
+
+    /// Sets a fixture row's count, as typed.
+    pub fn set_fixture_count(&mut self, row: usize, count: String) {
+        if let Some(r) = self.fixtures.as_mut().and_then(|x| x.items.get_mut(row)) {
+            r.count = count;
+        }
+    }
+
+    /// Sets a fixture row's kind.
+    pub fn set_fixture_kind(&mut self, row: usize, kind: String) {
+        if let Some(r) = self.fixtures.as_mut().and_then(|x| x.items.get_mut(row)) {
+            r.kind = kind;
+        }
+    }
+
+    /// Removes a fixture row.
+    pub fn remove_fixture(&mut self, row: usize) {
+        if let Some(x) = self.fixtures.as_mut().filter(|x| row < x.items.len()) {
+            x.items.remove(row);
+        }
+    }
+
+    /// Sets which supply the fixtures are read on.
+    pub fn set_supply(&mut self, supply: crate::hydraulics::demand::Supply) {
+        if let Some(x) = &mut self.fixtures {
+            x.supply = supply;
         }
     }
 
@@ -439,5 +535,33 @@ mod tests {
         assert!(l.can_age());
         l.aged = true;
         assert_eq!(l.default_roughness_mm().unwrap().0, Material::CarbonSteel.roughness().aged_mm.unwrap());
+    }
+
+    #[test]
+    fn the_flow_source_switches_without_losing_the_typed_flow() {
+        let mut l = line();
+        l.set_flow_from(FlowFrom::Flow);
+        l.flow = "18.5 L/s".into();
+        let flow = l.flow.clone();
+        assert_eq!(l.flow_from(), FlowFrom::Flow);
+        l.set_flow_from(FlowFrom::Fixtures);
+        l.add_fixture("lavatory-public");
+        l.add_fixture("wc-public-tank");
+        l.set_fixture_count(1, "3".into());
+        l.set_fixture_kind(0, "shower-public".into());
+        l.set_text(Field::ContinuousFlow, "0.1 L/s".into());
+        let fx = l.fixtures.clone().unwrap();
+        assert_eq!(fx.items[0].kind, "shower-public");
+        assert_eq!(fx.items[1].count, "3");
+        assert_eq!(l.text(Field::ContinuousFlow), "0.1 L/s");
+        l.remove_fixture(0);
+        assert_eq!(l.fixtures.as_ref().unwrap().items.len(), 1);
+        l.set_flow_from(FlowFrom::Load);
+        assert!(l.fixtures.is_none() && l.load.is_some());
+        l.set_flow_from(FlowFrom::Flow);
+        assert_eq!((l.flow_from(), l.flow.clone()), (FlowFrom::Flow, flow));
+        for f in FlowFrom::ALL {
+            assert_eq!(FlowFrom::from_id(f.id()), Some(f));
+        }
     }
 }

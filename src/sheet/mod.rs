@@ -6,6 +6,7 @@
 
 pub mod chart;
 pub mod convert;
+pub mod duty_plot;
 pub mod edit;
 pub mod file;
 pub mod library;

@@ -37,6 +37,8 @@ pub struct Outcome {
     /// The flow derived from a heat load, in the sheet's unit (`None` when
     /// the flow was typed).
     pub flow_text: Option<String>,
+    /// True when the flow comes from fixtures (not a heat load).
+    pub from_fixtures: bool,
 }
 
 /// What the open results panel shows beyond the [`Outcome`]: the sizes
@@ -179,7 +181,6 @@ pub fn evaluate_line_in(number: usize, lf: &LineFile, units: &Units, carried: Op
                     show(line.flow.value, units.flow, Some(rho), 4)
                 ));
             }
-            t.push_str(&format!(" — {}", method.label()));
             if let Some(c) = carried.filter(|c| c.typed_branches > 0) {
                 t.push_str(&format!(
                     "; {} branch{} not included (flow typed, or from a heat load)",
@@ -189,7 +190,8 @@ pub fn evaluate_line_in(number: usize, lf: &LineFile, units: &Units, carried: Op
             }
             Some(t)
         });
-        Ok(Outcome { line, sizing, shown, checked, capacity, figures, verdict, flow_text })
+        let from_fixtures = lf.load.is_none() && lf.fixtures.is_some();
+        Ok(Outcome { line, sizing, shown, checked, capacity, figures, verdict, flow_text, from_fixtures })
     });
     LineReport { number, name: lf.name.clone(), outcome }
 }
@@ -446,7 +448,11 @@ fn table_row(r: &LineReport, u: &Units, notes: &mut Vec<String>) -> [String; COL
         Ok(o) => o,
     };
     if let Some(q) = &o.flow_text {
-        notes.push(format!("line {}: flow from its heat load, Φ / (ρ c_p ΔT) = {q}", r.number));
+        if !o.from_fixtures {
+            notes.push(format!("line {}: flow from its heat load, Φ / (ρ c_p ΔT) = {q}", r.number));
+        } else {
+            notes.push(format!("line {}: flow from its fixtures, {q}", r.number));
+        }
     }
     notes.push(format!("line {}: {}", r.number, o.verdict));
     let row = match o.shown {
@@ -527,14 +533,26 @@ pub fn system_lines(sheet: &SheetFile, reports: &[LineReport]) -> Vec<String> {
         (Some(p), Some(h), Some(q)) => {
             let rho =
                 reports[*p.lines.last().unwrap()].outcome.as_ref().map(|o| o.sizing.properties.density_kg_m3()).ok();
-            out.push(format!(
-                "Index circuit: {} — pump duty {} at {} ({}){}",
-                route(p),
-                show(q, u.flow, rho, 4),
-                show(h, u.pressure, None, 3),
-                show(h, water, None, 3),
-                if sum.mirrored { ", flow and a mirrored return" } else { "" }
-            ));
+            let supplied =
+                u.basis.circuit == super::file::Circuit::Open && !sheet.system.source_pressure.trim().is_empty();
+            out.push(if supplied {
+                format!(
+                    "Index circuit: {} — {} ({}) from the source to its end, {} at the source",
+                    route(p),
+                    show(h, u.pressure, None, 3),
+                    show(h, water, None, 3),
+                    show(q, u.flow, rho, 4),
+                )
+            } else {
+                format!(
+                    "Index circuit: {} — pump duty {} at {} ({}){}",
+                    route(p),
+                    show(q, u.flow, rho, 4),
+                    show(h, u.pressure, None, 3),
+                    show(h, water, None, 3),
+                    if sum.mirrored { ", flow and a mirrored return" } else { "" }
+                )
+            });
             if u.basis.circuit == super::file::Circuit::Closed {
                 out.push(format!(
                     "  static along it {} (closed loop: not pump head)",
@@ -622,6 +640,9 @@ pub fn system_lines(sheet: &SheetFile, reports: &[LineReport]) -> Vec<String> {
             format_number(n, 3),
             show(pv, u.pressure, None, 3)
         ));
+    }
+    if sheet.lines.iter().any(|l| l.load.is_none() && l.fixtures.is_some()) {
+        out.push(format!("Fixtures to flow: {}", u.basis.demand.label()));
     }
     for (_, m) in &sum.problems {
         out.push(format!("System setting: {m}"));

@@ -17,9 +17,15 @@
 //!   own supply's column (cold, hot or total) and takes its flow from its
 //!   total units by the sheet's demand method — never by adding the
 //!   branches' flows. No diversity applies: the method is already a
-//!   probability. Continuous flows (circulation, irrigation) add as flows.
-//!   A fixture is listed once in each tree it draws from; keep the hot
-//!   tree (fed from the heater) apart from the cold one.
+//!   probability. A continuous flow (circulation, irrigation) adds to its
+//!   own line only: each line is given the continuous flow that passes
+//!   through it (a circulation flow returns to the heater, so it must not
+//!   be carried up the cold tree).
+//!   A fixture is listed once on each supply it draws from: a basin in the
+//!   cold branch and again in the hot one. A line on the combined supply
+//!   (the main before the heater is fed) counts it once, the more of its
+//!   cold and hot listings; a cold line counts only the cold listings, a
+//!   hot line (the heater's feed, the hot tree) only the hot ones.
 //! - Closed loop: the pump head is friction, fittings and components along
 //!   the index circuit, on the flow run and — unless the sheet says the
 //!   return is entered as lines of its own — once more for a return that
@@ -222,8 +228,8 @@ pub struct Carried {
     pub units_from_branches: f64,
     /// The largest single fixture's units among them.
     pub largest_unit: f64,
-    /// Continuous flow added to the probable demand, m³/s (own +
-    /// branches).
+    /// Continuous flow added to the probable demand, m³/s (the line's own:
+    /// continuous flows are not carried up the tree).
     pub continuous_m3_s: f64,
 }
 
@@ -278,6 +284,32 @@ pub fn fixture_totals(l: &LineFile, u: &Units, carried: Option<&Carried>) -> Opt
     }
 }
 
+/// Fixture counts by kind, kept apart by the supply of the line that
+/// lists them: combined, cold, hot.
+pub type Listed = [Vec<f64>; 3];
+
+fn slot(s: demand::Supply) -> usize {
+    match s {
+        demand::Supply::Total => 0,
+        demand::Supply::Cold => 1,
+        demand::Supply::Hot => 2,
+    }
+}
+
+/// The counts a line on `supply` carries. On the combined supply each
+/// fixture counts once — the more of its cold and its hot listings (a
+/// basin listed in the cold tree and again in the hot one is one basin) —
+/// plus those listed on the combined supply; on one supply, its own
+/// listings plus the combined ones.
+pub fn effective(listed: &Listed, supply: demand::Supply) -> Vec<f64> {
+    let [total, cold, hot] = listed;
+    match supply {
+        demand::Supply::Total => total.iter().zip(cold.iter().zip(hot)).map(|(t, (c, h))| t + c.max(*h)).collect(),
+        demand::Supply::Cold => total.iter().zip(cold).map(|(t, c)| t + c).collect(),
+        demand::Supply::Hot => total.iter().zip(hot).map(|(t, h)| t + h).collect(),
+    }
+}
+
 /// Units and largest single unit of so many fixtures of each kind, read in
 /// a supply's column.
 pub fn units_of(counts: &[f64], method: Method, supply: demand::Supply) -> (f64, f64) {
@@ -312,11 +344,13 @@ pub fn carried_of(lines: &[Joint], tree: &Tree, u: &Units) -> Vec<Option<Carried
         .collect();
     let kinds = method.kinds().len();
     let mut branches_w = vec![0.0; n];
-    let mut branch_counts = vec![vec![0.0; kinds]; n];
-    let mut branch_continuous = vec![0.0; n];
+    let mut branch_counts: Vec<Listed> = vec![Default::default(); n];
+    for b in &mut branch_counts {
+        *b = [vec![0.0; kinds], vec![0.0; kinds], vec![0.0; kinds]];
+    }
     let mut typed = vec![0usize; n];
     // What each fixture line passes up: its counts and continuous flow.
-    let mut passed: Vec<Option<(Vec<f64>, f64)>> = vec![None; n];
+    let mut passed: Vec<Option<(Listed, f64)>> = vec![None; n];
     for &i in &order {
         let is_fixture = lines[i].load.is_none() && fixtures[i].is_some();
         if let Some(c) = out[i].as_mut() {
@@ -325,13 +359,16 @@ pub fn carried_of(lines: &[Joint], tree: &Tree, u: &Units) -> Vec<Option<Carried
             c.load_w += diversity_of(lines[i].diversity.as_deref()) * branches_w[i];
             if let (true, Some((own, own_q))) = (is_fixture, &fixtures[i]) {
                 let supply = lines[i].fixtures.as_ref().map(|f| f.supply).unwrap_or_default();
-                let all: Vec<f64> = own.iter().zip(&branch_counts[i]).map(|(a, b)| a + b).collect();
-                let (total, largest) = units_of(&all, method, supply);
-                let (from_branches, _) = units_of(&branch_counts[i], method, supply);
+                let mut all = branch_counts[i].clone();
+                for (a, b) in all[slot(supply)].iter_mut().zip(own) {
+                    *a += b;
+                }
+                let (total, largest) = units_of(&effective(&all, supply), method, supply);
+                let (from_branches, _) = units_of(&effective(&branch_counts[i], supply), method, supply);
                 c.fixture_units = total;
                 c.units_from_branches = from_branches;
                 c.largest_unit = largest;
-                c.continuous_m3_s = own_q + branch_continuous[i];
+                c.continuous_m3_s = *own_q;
                 passed[i] = Some((all, c.continuous_m3_s));
             }
         }
@@ -340,11 +377,12 @@ pub fn carried_of(lines: &[Joint], tree: &Tree, u: &Units) -> Vec<Option<Carried
             // other branch is counted as not included.
             let parent_fixture = lines[p].load.is_none() && fixtures[p].is_some();
             match (&passed[i], out[i]) {
-                (Some((counts, q)), _) if parent_fixture => {
-                    for (a, b) in branch_counts[p].iter_mut().zip(counts) {
-                        *a += b;
+                (Some((counts, _)), _) if parent_fixture => {
+                    for (to, from) in branch_counts[p].iter_mut().zip(counts) {
+                        for (a, b) in to.iter_mut().zip(from) {
+                            *a += b;
+                        }
                     }
-                    branch_continuous[p] += q;
                 }
                 (None, Some(c)) if !parent_fixture && lines[i].load.is_some() => branches_w[p] += c.load_w,
                 _ => typed[p] += 1,

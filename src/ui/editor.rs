@@ -6,11 +6,12 @@ use leptos::prelude::*;
 
 use super::fields::{errors_except, errors_for, TextField};
 use super::state::{Sheet, Slot};
+use crate::hydraulics::demand::{self, Supply};
 use crate::hydraulics::field::Field;
 use crate::hydraulics::fluid::Glycol;
 use crate::hydraulics::losses::Fitting;
 use crate::hydraulics::pipes::{Material, SERIES};
-use crate::sheet::edit::{FluidKind, CUSTOM_BORE};
+use crate::sheet::edit::{FlowFrom, FluidKind, CUSTOM_BORE};
 use crate::sheet::file::{FluidFile, MethodName};
 use crate::sheet::number::parse_count;
 use crate::sheet::presets::{Service, SERVICES};
@@ -18,8 +19,11 @@ use crate::sheet::units::{self, Dimension};
 
 /// The fields whose errors the editor shows beside an input (each fitting
 /// row checks its own count); the others are listed at the top.
-pub const BESIDE_INPUTS: [Field; 28] = [
+pub const BESIDE_INPUTS: [Field; 31] = [
     Field::FedFrom,
+    Field::Fixtures,
+    Field::FixtureCount,
+    Field::ContinuousFlow,
     Field::Diversity,
     Field::LoadPower,
     Field::LoadDeltaT,
@@ -125,7 +129,7 @@ fn FlowAndFluid() -> impl IntoView {
     let line = expect_context::<Slot>();
     let file = line.file;
     let kind = move || file.with(|f| f.fluid_kind());
-    let from_load = move || file.with(|f| f.load.is_some());
+    let from = Memo::new(move |_| file.with(|f| f.flow_from()));
     let sheet = expect_context::<Sheet>();
     // Every line's name, as a memo: a keystroke that changes no name leaves
     // the "fed from" list as it is (on a 200-line sheet, 200 options).
@@ -164,13 +168,12 @@ fn FlowAndFluid() -> impl IntoView {
             <div class="field">
                 <label for="flow-from">"Flow from"</label>
                 <select id="flow-from" data-testid="flow-from"
-                    on:change=move |ev| { let v = event_target_value(&ev); file.update(|f| f.set_flow_from_load(v == "load")) }>
-                    <option value="flow" selected=move || !from_load()>"a flow"</option>
-                    <option value="load" selected=from_load>"a heat load and ΔT"</option>
+                    on:change=move |ev| { if let Some(v) = FlowFrom::from_id(&event_target_value(&ev)) { file.update(|f| f.set_flow_from(v)) } }>
+                    {FlowFrom::ALL.map(|k| view! { <option value=k.id() selected=move || from.get() == k>{k.label()}</option> }).collect_view()}
                 </select>
             </div>
-            {move || if from_load() {
-                view! {
+            {move || match from.get() {
+                FlowFrom::Load => view! {
                     <LineText field=Field::LoadPower label="Heat load" id="load-power" unit=Dimension::Power placeholder="e.g. 45 kW"/>
                     <LineText field=Field::LoadDeltaT label="Temperature difference" id="load-delta-t" unit=Dimension::TemperatureDifference placeholder="e.g. 6 K"/>
                     <LineText field=Field::Diversity label="Diversity on branch loads" id="diversity" inputmode="decimal" placeholder="1 (none)"/>
@@ -178,9 +181,9 @@ fn FlowAndFluid() -> impl IntoView {
                         Ok(o) => o.flow_text.clone().map(|q| format!("Flow = Φ / (ρ c_p ΔT) = {q}")).unwrap_or_default(),
                         Err(_) => String::new(),
                     })}</p>
-                }.into_any()
-            } else {
-                view! { <LineText field=Field::Flow label="Design flow" id="flow" unit=Dimension::Flow placeholder="e.g. 12.5 or 95 gpm"/> }.into_any()
+                }.into_any(),
+                FlowFrom::Fixtures => view! { <FixtureFields/> }.into_any(),
+                FlowFrom::Flow => view! { <LineText field=Field::Flow label="Design flow" id="flow" unit=Dimension::Flow placeholder="e.g. 12.5 or 95 gpm"/> }.into_any(),
             }}
             <div class="field">
                 <label for="fluid-kind">"Fluid"</label>
@@ -420,6 +423,79 @@ fn ComponentList() -> impl IntoView {
                 "+ Add a valve or equipment"
             </button>
         </div>
+    }
+}
+
+/// The fixtures a line serves, counted in the sheet's demand method, the
+/// supply they are read on, and a continuous flow.
+#[component]
+fn FixtureFields() -> impl IntoView {
+    let sheet = expect_context::<Sheet>();
+    let line = expect_context::<Slot>();
+    let file = line.file;
+    let method = Memo::new(move |_| sheet.basis.with(|b| b.demand));
+    let supply = move || file.with(|f| f.fixtures.as_ref().map(|x| x.supply).unwrap_or_default());
+    let rows = move || {
+        file.with(|f| {
+            let items = f.fixtures.as_ref().map(|x| x.items.clone()).unwrap_or_default();
+            let n = items.len();
+            items.into_iter().enumerate().map(|(i, r)| (n, i, r)).collect::<Vec<_>>()
+        })
+    };
+    view! {
+        <div class="field">
+            <label for="fixture-supply">"Supply"</label>
+            <select id="fixture-supply" data-testid="fixture-supply"
+                on:change=move |ev| { let v = event_target_value(&ev); file.update(|f| f.set_supply(match v.as_str() { "cold" => Supply::Cold, "hot" => Supply::Hot, _ => Supply::Total })) }>
+                <option value="total" selected=move || supply() == Supply::Total>"cold and hot together"</option>
+                <option value="cold" selected=move || supply() == Supply::Cold>"cold only"</option>
+                <option value="hot" selected=move || supply() == Supply::Hot>"hot only"</option>
+            </select>
+            <span class="hint">{move || format!("Method (set under Basis): {}", method.get().label())}</span>
+        </div>
+        <div class="fittings" data-testid="fixtures">
+            <span class="label">{move || format!("Fixtures served ({} each)", method.get().unit())}</span>
+            <For each=rows key=|(n, i, r)| (*n, *i, r.kind.clone()) children=move |(_, i, r)| {
+                let current = r.kind.clone();
+                view! {
+                    <div class="fitting-row">
+                        <select aria-label="fixture" data-testid=format!("fixture-{i}")
+                            on:change=move |ev| { let v = event_target_value(&ev); file.update(|f| f.set_fixture_kind(i, v)) }>
+                            {
+                                let current = current.clone();
+                                move || {
+                                    let m = method.get();
+                                    let s = supply();
+                                    let mut opts: Vec<_> = m.kinds().iter().map(|k| {
+                                        let sel = k.id == current;
+                                        view! { <option value=k.id selected=sel>{format!("{} — {} {}", k.label, k.units(s), m.unit())}</option> }.into_any()
+                                    }).collect();
+                                    if demand::kind(m, &current).is_none() {
+                                        opts.push(view! { <option value=current.clone() selected=true>{format!("{current} (not a {} fixture)", m.unit())}</option> }.into_any());
+                                    }
+                                    opts
+                                }
+                            }
+                        </select>
+                        <input type="text" inputmode="numeric" aria-label="how many" class="count"
+                            data-testid=format!("fixture-{i}-count") prop:value=r.count.clone()
+                            on:input=move |ev| { let n = event_target_value(&ev); file.update(|f| f.set_fixture_count(i, n)) }/>
+                        <button type="button" class="quiet" aria-label="remove this fixture"
+                            on:click=move |_| file.update(|f| f.remove_fixture(i))>"✕"</button>
+                    </div>
+                }
+            }/>
+            <button type="button" class="quiet" data-testid="add-fixture"
+                on:click=move |_| { let k = method.get_untracked().kinds()[0].id; file.update(|f| f.add_fixture(k)) }>
+                "+ Add a fixture"
+            </button>
+            <span class="field-error" data-testid="fixtures-error" aria-live="polite">{move || errors_for(line.report, Field::Fixtures).get()}{move || errors_for(line.report, Field::FixtureCount).get()}</span>
+        </div>
+        <LineText field=Field::ContinuousFlow label="Continuous flow added (circulation, irrigation)" id="fixture-continuous" unit=Dimension::Flow placeholder="none"/>
+        <p class="derived" data-testid="derived-flow" aria-live="polite">{move || line.report.with(|r| match &r.outcome {
+            Ok(o) => o.flow_text.clone().map(|q| format!("Flow = {q}")).unwrap_or_default(),
+            Err(_) => String::new(),
+        })}</p>
     }
 }
 

@@ -159,6 +159,7 @@ pub fn blank() -> SheetFile {
         date: String::new(),
         units: Default::default(),
         basis: Default::default(),
+        system: Default::default(),
         lines: Vec::new(),
     }
 }
@@ -264,6 +265,7 @@ impl Keeper {
             sheet.date.track();
             sheet.units.track();
             sheet.basis.track();
+            sheet.system.track();
             sheet.lines.with(|v| v.iter().for_each(|s| s.file.track()));
             if seen.get_value() != Some(sheet) {
                 // A worksheet just opened: what it shows is what is stored.

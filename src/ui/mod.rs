@@ -13,6 +13,7 @@ pub mod roster;
 pub mod share;
 pub mod shelf;
 pub mod state;
+pub mod system;
 
 use leptos::prelude::*;
 
@@ -56,8 +57,8 @@ pub fn Desk(
     let stored = keeper.is_some();
     // The demo opens as a worksheet of its own when storage is in use, so
     // it never replaces anyone's work.
-    let open_demo = move |_| {
-        if let Ok(demo) = SheetFile::from_json(state::DEMO) {
+    let open_demo = move |text: &'static str| {
+        if let Ok(demo) = SheetFile::from_json(text) {
             match &keeper {
                 Some(k) => {
                     let _ = k.create(demo);
@@ -88,7 +89,8 @@ pub fn Desk(
                         on:click=move |_| sheet.set_system(System::Us)>"US"</button>
                 </div>
                 <DesignBasis/>
-                <button type="button" class="demo" data-testid="open-demo" on:click=open_demo>"Open the demo sheet"</button>
+                <button type="button" class="demo" data-testid="open-demo" on:click={let o = open_demo.clone(); move |_| o(state::DEMO)}>"Open the demo sheet"</button>
+                <button type="button" class="demo" data-testid="open-demo-domestic" on:click=move |_| open_demo(state::DEMO_DOMESTIC)>"Domestic water demo"</button>
                 {stored.then(|| view! {
                     <button type="button" data-testid="show-shelf" aria-pressed=pressed("shelf") on:click=toggle("shelf")>"Worksheets"</button>
                 })}
@@ -138,8 +140,9 @@ pub fn Desk(
 /// searched.
 #[component]
 fn DesignBasis() -> impl IntoView {
+    use crate::hydraulics::demand::Method;
     use crate::hydraulics::line::Circuit;
-    use crate::sheet::file::{DEFAULT_FREEZE_MARGIN_K, MAX_FREEZE_MARGIN_K};
+    use crate::sheet::file::{ReturnRun, DEFAULT_FREEZE_MARGIN_K, MAX_FREEZE_MARGIN_K};
     let sheet = expect_context::<Sheet>();
     let basis = sheet.basis;
     let summary = move || match basis.get().circuit {
@@ -155,6 +158,22 @@ fn DesignBasis() -> impl IntoView {
                     basis.update(|b| b.circuit = if v == "closed" { Circuit::Closed } else { Circuit::Open });
                 }>
                     {Circuit::ALL.map(|c| view! { <option value=c.id() selected=move || basis.get().circuit == c>{c.label()}</option> }).collect_view()}
+                </select>
+            </label>
+            <label>"Closed loop return run"
+                <select data-testid="basis-return" on:change=move |ev| {
+                    let v = event_target_value(&ev);
+                    basis.update(|b| b.return_run = if v == "entered" { ReturnRun::Entered } else { ReturnRun::Mirrored });
+                }>
+                    <option value="mirrored" selected=move || basis.get().return_run == ReturnRun::Mirrored>"mirrors the flow run (pump head counts the index circuit twice)"</option>
+                    <option value="entered" selected=move || basis.get().return_run == ReturnRun::Entered>"entered as lines of its own"</option>
+                </select>
+            </label>
+            <label>"Fixtures to flow"
+                <select data-testid="basis-demand" on:change=move |ev| {
+                    if let Some(m) = Method::by_id(&event_target_value(&ev)) { basis.update(|b| b.demand = m) }
+                }>
+                    {Method::ALL.map(|m| view! { <option value=m.id() selected=move || basis.get().demand == m>{m.label()}</option> }).collect_view()}
                 </select>
             </label>
             <label>"Glycol: keep above freezing by"

@@ -259,16 +259,26 @@ pub fn PrintSheet() -> impl IntoView {
             {move || {
                 // Follows the stamp, like the lines: not on every keystroke.
                 stamp.track();
-                let lines = if sheet.joined.with_untracked(|j| j.tree.is_system()) {
+                let (tree, lines, plot) = if sheet.joined.with_untracked(|j| j.tree.is_system()) {
                     let reports: Vec<_> = sheet.lines.with_untracked(|v| v.iter().map(|s| s.report.get_untracked()).collect());
-                    crate::sheet::report::system_lines(&sheet.to_file(), &reports)
+                    let file = sheet.to_file();
+                    let u = file.units();
+                    let sum = sheet.joined.with_untracked(|j| crate::sheet::system::summarise(&j.tree, &reports, &u, &file.system));
+                    let rho = sum.paths.first().and_then(|p| p.lines.last()).and_then(|&s| reports[s].outcome.as_ref().ok()).map(|o| o.sizing.properties.density_kg_m3());
+                    (
+                        crate::sheet::report::tree_lines(&file, &reports),
+                        crate::sheet::report::system_lines(&file, &reports),
+                        crate::sheet::duty_plot::plot(&sum, &u, rho),
+                    )
                 } else {
-                    Vec::new()
+                    (Vec::new(), Vec::new(), None)
                 };
                 (!lines.is_empty()).then(|| view! {
                     <section class="print-system" data-testid="print-system">
                         <h2>"System"</h2>
+                        <pre class="print-tree" data-testid="print-tree">{tree.join("\n")}</pre>
                         {lines.into_iter().map(|l| view! { <p>{l}</p> }).collect_view()}
+                        {plot.map(|p| view! { <super::system::DutyPlot plot=p/> })}
                     </section>
                 })
             }}

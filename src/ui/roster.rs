@@ -15,6 +15,7 @@ use crate::sheet::units;
 pub fn Roster() -> impl IntoView {
     let sheet = expect_context::<Sheet>();
     let add_service = RwSignal::new(SERVICES[0].id);
+    provide_context(Fold::new(sheet));
     let path_total = move || {
         let u = sheet.resolved.get();
         let (mut sum, mut rise, mut n, mut bad) = (0.0, 0.0, 0, 0);
@@ -89,16 +90,93 @@ pub fn Roster() -> impl IntoView {
                 <For each=move || sheet.lines.get() key=|s| s.id children=move |slot| view! { <RosterRow line=slot/> }/>
             </ol>
             <p class="path-total" data-testid="path-total" aria-live="polite">{path_total}</p>
-            <SystemPanel/>
+            <super::system::SystemPanel/>
         </section>
+    }
+}
+
+/// The tree in the list: which lines are folded away under a collapsed
+/// line, which have branches, and which lie on the selected line's path to
+/// its source.
+#[derive(Clone, Copy)]
+struct Fold {
+    collapsed: RwSignal<Vec<u32>>,
+    parents: Memo<Vec<u32>>,
+    hidden: Memo<Vec<u32>>,
+    on_path: Memo<Vec<u32>>,
+}
+
+impl Fold {
+    fn new(sheet: Sheet) -> Fold {
+        let collapsed = RwSignal::new(Vec::<u32>::new());
+        let parents = Memo::new(move |_| {
+            sheet.joined.with(|j| {
+                let mut p: Vec<u32> = j.tree.parent.iter().flatten().map(|&p| j.ids[p]).collect();
+                p.sort_unstable();
+                p.dedup();
+                p
+            })
+        });
+        let hidden = Memo::new(move |_| {
+            let c = collapsed.get();
+            if c.is_empty() {
+                return Vec::new();
+            }
+            sheet.joined.with(|j| {
+                (0..j.ids.len())
+                    .filter(|&i| {
+                        let (mut at, mut steps) = (i, 0);
+                        while let Some(p) = j.tree.parent[at] {
+                            if c.contains(&j.ids[p]) {
+                                return true;
+                            }
+                            at = p;
+                            steps += 1;
+                            if steps > j.ids.len() {
+                                break;
+                            }
+                        }
+                        false
+                    })
+                    .map(|i| j.ids[i])
+                    .collect()
+            })
+        });
+        let on_path = Memo::new(move |_| {
+            let Some(sel) = sheet.selected.get() else { return Vec::new() };
+            sheet.joined.with(|j| match j.ids.iter().position(|&x| x == sel) {
+                Some(i) if j.tree.is_system() => j.tree.path(i).into_iter().map(|k| j.ids[k]).collect(),
+                _ => Vec::new(),
+            })
+        });
+        Fold { collapsed, parents, hidden, on_path }
     }
 }
 
 #[component]
 fn RosterRow(line: Slot) -> impl IntoView {
     let sheet = expect_context::<Sheet>();
+    let fold = expect_context::<Fold>();
     let id = line.id;
     let file = line.file;
+    let is_parent = move || fold.parents.with(|p| p.binary_search(&id).is_ok());
+    let is_collapsed = move || fold.collapsed.with(|c| c.contains(&id));
+    let carried = move || {
+        let u = sheet.resolved.get();
+        let method = u.basis.demand;
+        line.report.with(|r| {
+            let o = r.outcome.as_ref().ok()?;
+            let q = units::show(o.line.flow.value, u.flow, Some(o.sizing.properties.density_kg_m3()), 3);
+            line.place.with(|p| {
+                let c = p.carried?;
+                Some(if file.with(|f| f.fixtures.is_some() && f.load.is_none()) {
+                    format!("{} {} → {q}", units::format_number(c.fixture_units, 4), method.unit())
+                } else {
+                    format!("{} → {q}", units::show(c.load_w, u.power, None, 3))
+                })
+            })
+        })
+    };
     let report = line.report;
     let selected = move || sheet.selected.get() == Some(id);
     let name =
@@ -130,14 +208,23 @@ fn RosterRow(line: Slot) -> impl IntoView {
     let depth = move || line.place.with(|p| p.depth.min(6));
     view! {
         // Indented by a stylesheet rule per depth: the CSP allows no inline style.
-        <li class="roster-row" class:selected=selected data-testid="roster-row" data-depth=move || depth().to_string()>
+        <li class="roster-row" class:selected=selected data-testid="roster-row" data-depth=move || depth().to_string()
+            class:on-path=move || fold.on_path.with(|p| p.len() > 1 && p.contains(&id)) hidden=move || fold.hidden.with(|h| h.contains(&id))>
             <button type="button" class="pick" aria-current=move || if selected() { "true" } else { "false" }
                 on:click=move |_| sheet.selected.set(Some(id))>
                 <span class="row-name" data-testid="row-name">{name}</span>
                 <span class=move || format!("row-size state-{}", answer().2) data-testid="row-size">{move || answer().0}</span>
                 <span class="row-detail">{move || answer().1}</span>
+                <span class="row-carried" data-testid="row-carried">{carried}</span>
             </button>
             <div class="row-tools">
+                {move || is_parent().then(|| view! {
+                    <button type="button" class="quiet fold" data-testid="row-fold" aria-expanded=move || (!is_collapsed()).to_string()
+                        aria-label=move || if is_collapsed() { "show the lines fed from this one" } else { "hide the lines fed from this one" }
+                        on:click=move |_| fold.collapsed.update(|c| if let Some(k) = c.iter().position(|x| *x == id) { c.remove(k); } else { c.push(id); })>
+                        {move || if is_collapsed() { "▸" } else { "▾" }}
+                    </button>
+                })}
                 <label class="check" title="include in the path total">
                     <input type="checkbox" data-testid="row-path" prop:checked=move || line.in_path.get()
                         on:change=move |ev| line.in_path.set(event_target_checked(&ev))/>
@@ -149,31 +236,5 @@ fn RosterRow(line: Slot) -> impl IntoView {
                 <button type="button" class="quiet" aria-label="delete" data-testid="row-delete" on:click=move |_| sheet.delete(id)>"✕"</button>
             </div>
         </li>
-    }
-}
-
-/// The system, when lines name what they are fed from: the pump duty from
-/// the index circuit and every path's drop, worst first.
-#[component]
-fn SystemPanel() -> impl IntoView {
-    let sheet = expect_context::<Sheet>();
-    let text = move || {
-        if !sheet.joined.with(|j| j.tree.is_system()) {
-            return Vec::new();
-        }
-        let reports: Vec<_> = sheet.lines.with(|v| v.iter().map(|s| s.report.get()).collect());
-        sheet.resolved.track();
-        crate::sheet::report::system_lines(&sheet.to_file(), &reports)
-    };
-    view! {
-        {move || {
-            let lines = text();
-            (!lines.is_empty()).then(|| view! {
-                <div class="system-panel" data-testid="system" aria-live="polite">
-                    <h3>"System"</h3>
-                    {lines.into_iter().map(|l| view! { <p>{l}</p> }).collect_view()}
-                </div>
-            })
-        }}
     }
 }

@@ -56,6 +56,7 @@ pub fn SharePanel() -> impl IntoView {
         sheet.date.track();
         sheet.units.track();
         sheet.basis.track();
+        sheet.system.track();
         sheet.lines.with(|v| v.iter().for_each(|s| s.file.track()));
         share_url(&sheet)
     });

@@ -12,7 +12,7 @@ use std::sync::atomic::{AtomicUsize, Ordering};
 use leptos::prelude::*;
 
 use crate::sheet::convert;
-use crate::sheet::file::{Basis, LineFile, SheetFile, System, UnitChoice, Units, FORMAT};
+use crate::sheet::file::{Basis, LineFile, SheetFile, System, SystemFile, UnitChoice, Units, FORMAT};
 use crate::sheet::presets::Service;
 use crate::sheet::report::{detail, evaluate_line_in, with_tree_problems, Detail, LineReport, Outcome};
 use crate::sheet::system::{self, Carried, Joint, Tree};
@@ -24,6 +24,8 @@ pub static EVALUATIONS: AtomicUsize = AtomicUsize::new(0);
 
 /// The demo worksheet: an invented clinic's chilled-water plant.
 pub const DEMO: &str = include_str!("../../examples/clinic-chilled-water.json");
+/// The domestic-water demo: the same clinic's cold and hot water, from fixtures.
+pub const DEMO_DOMESTIC: &str = include_str!("../../examples/clinic-domestic-water.json");
 
 /// One line of the worksheet.
 #[derive(Clone)]
@@ -83,6 +85,8 @@ pub struct Sheet {
     pub units: RwSignal<UnitChoice>,
     /// Sheet-wide design basis (circuit, freezing margin, sizes searched).
     pub basis: RwSignal<Basis>,
+    /// Whole-system settings: source and outlet pressures, pump, suction.
+    pub system: RwSignal<SystemFile>,
     /// Unit choices resolved, with the design basis.
     pub resolved: Memo<Units>,
     /// The lines in order.
@@ -161,6 +165,7 @@ impl Sheet {
                 date: RwSignal::new(String::new()),
                 units,
                 basis,
+                system: RwSignal::new(SystemFile::default()),
                 resolved,
                 lines,
                 joined,
@@ -311,6 +316,7 @@ impl Sheet {
         self.date.set(sheet.date);
         self.units.set(sheet.units);
         self.basis.set(sheet.basis);
+        self.system.set(sheet.system);
         let slots: Vec<Slot> = sheet.lines.into_iter().map(|l| self.make_slot(l)).collect();
         self.selected.set(slots.first().map(|s| s.id));
         self.lines.set(slots);
@@ -325,6 +331,7 @@ impl Sheet {
             date: self.date.get_untracked(),
             units: self.units.get_untracked(),
             basis: self.basis.get_untracked(),
+            system: self.system.get_untracked(),
             lines: self.lines.with_untracked(|v| v.iter().map(|s| s.file.get_untracked()).collect()),
         }
         .with_required_version()

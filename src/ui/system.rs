@@ -1,0 +1,135 @@
+//! The system box under the list: the settings of the whole system (source
+//! and outlet pressures of an open system, three points of the pump curve,
+//! the pump's suction), the index circuit and the pump duty in words, and
+//! the pump-and-system plot.
+
+use leptos::prelude::*;
+
+use super::fields::TextField;
+use super::state::Sheet;
+use crate::hydraulics::line::Circuit;
+use crate::sheet::duty_plot::{self, Plot};
+use crate::sheet::file::SystemFile;
+use crate::sheet::units::Dimension;
+
+/// One text of the system settings: how to read and write it.
+fn setting(
+    sheet: Sheet,
+    get: fn(&SystemFile) -> String,
+    set: fn(&mut SystemFile, String),
+) -> (Signal<String>, Callback<String>) {
+    let system = sheet.system;
+    (Signal::derive(move || system.with(|s| get(s))), Callback::new(move |v| system.update(|s| set(s, v))))
+}
+
+fn pump_text(s: &SystemFile, i: usize, head: bool) -> String {
+    s.pump.get(i).map(|p| if head { p.head.clone() } else { p.flow.clone() }).unwrap_or_default()
+}
+
+fn set_pump(s: &mut SystemFile, i: usize, head: bool, v: String) {
+    while s.pump.len() <= i {
+        s.pump.push(Default::default());
+    }
+    if head {
+        s.pump[i].head = v;
+    } else {
+        s.pump[i].flow = v;
+    }
+    while s.pump.last().is_some_and(|p| p.flow.trim().is_empty() && p.head.trim().is_empty()) {
+        s.pump.pop();
+    }
+}
+
+/// The flow and head of one pump-curve point.
+fn pump_point(sheet: Sheet, i: usize) -> impl IntoView {
+    let system = sheet.system;
+    let fv = Signal::derive(move || system.with(|s| pump_text(s, i, false)));
+    let hv = Signal::derive(move || system.with(|s| pump_text(s, i, true)));
+    let fs = Callback::new(move |v| system.update(|s| set_pump(s, i, false, v)));
+    let hs = Callback::new(move |v| system.update(|s| set_pump(s, i, true, v)));
+    let (fid, hid) = [("pump-q1", "pump-h1"), ("pump-q2", "pump-h2"), ("pump-q3", "pump-h3")][i];
+    let (fl, hl) =
+        [("Point 1 flow", "Point 1 head"), ("Point 2 flow", "Point 2 head"), ("Point 3 flow", "Point 3 head")][i];
+    view! {
+        <div class="pump-point">
+            <TextField label=fl id=fid value=fv on_input=fs error=Signal::derive(String::new) unit=Some(Dimension::Flow) suffix=None/>
+            <TextField label=hl id=hid value=hv on_input=hs error=Signal::derive(String::new) unit=Some(Dimension::Pressure) suffix=None/>
+        </div>
+    }
+}
+
+/// The system, when lines name what they are fed from.
+#[component]
+pub fn SystemPanel() -> impl IntoView {
+    let sheet = expect_context::<Sheet>();
+    let is_system = Memo::new(move |_| sheet.joined.with(|j| j.tree.is_system()));
+    let answer = Memo::new(move |_| {
+        if !is_system.get() {
+            return (Vec::new(), None);
+        }
+        sheet.system.track();
+        sheet.resolved.track();
+        let reports: Vec<_> = sheet.lines.with(|v| v.iter().map(|s| s.report.get()).collect());
+        let file = sheet.to_file();
+        let u = file.units();
+        let sum = sheet.joined.with(|j| crate::sheet::system::summarise(&j.tree, &reports, &u, &file.system));
+        let rho = sum
+            .paths
+            .first()
+            .and_then(|p| p.lines.last())
+            .and_then(|&s| reports[s].outcome.as_ref().ok())
+            .map(|o| o.sizing.properties.density_kg_m3());
+        (crate::sheet::report::system_lines(&file, &reports), duty_plot::plot(&sum, &u, rho))
+    });
+    let open = move || sheet.basis.with(|b| b.circuit == Circuit::Open);
+    let (src_v, src_s) = setting(sheet, |s| s.source_pressure.clone(), |s, v| s.source_pressure = v);
+    let (min_v, min_s) = setting(sheet, |s| s.outlet_minimum.clone(), |s, v| s.outlet_minimum = v);
+    let (sp_v, sp_s) = setting(sheet, |s| s.suction.pressure.clone(), |s, v| s.suction.pressure = v);
+    let (sh_v, sh_s) = setting(sheet, |s| s.suction.height.clone(), |s, v| s.suction.height = v);
+    let (sl_v, sl_s) = setting(sheet, |s| s.suction.loss.clone(), |s, v| s.suction.loss = v);
+    view! {
+        <Show when=move || is_system.get()>
+            <div class="system-panel" data-testid="system" aria-live="polite">
+                <h3>"System"</h3>
+                <div data-testid="system-lines">
+                    {move || answer.with(|(lines, _)| lines.iter().map(|l| view! { <p>{l.clone()}</p> }).collect_view())}
+                </div>
+                {move || answer.with(|(_, plot)| plot.clone().map(|p| view! { <DutyPlot plot=p/> }))}
+                <details class="system-settings" data-testid="system-settings">
+                    <summary>"Source, outlets and pump"</summary>
+                    <Show when=open>
+                        <TextField label="Pressure at the source (gauge)" id="sys-source" value=src_v on_input=src_s error=Signal::derive(String::new) unit=Some(Dimension::Pressure) suffix=None placeholder="e.g. 350 kPa mains"/>
+                        <TextField label="Least pressure at each outlet, flowing (gauge)" id="sys-outlet-min" value=min_v on_input=min_s error=Signal::derive(String::new) unit=Some(Dimension::Pressure) suffix=None placeholder="e.g. 55 kPa (8 psi)"/>
+                    </Show>
+                    <p class="hint">"Pump curve: three points read off the maker's curve (head as a pressure or m head)."</p>
+                    {(0..3).map(|i| pump_point(sheet, i)).collect_view()}
+                    <p class="hint">"Pump suction, for the NPSH available: absolute pressure on the surface it draws from, that surface's height above the pump inlet (negative below), and the suction pipe's loss."</p>
+                    <TextField label="Suction surface pressure (absolute)" id="sys-suction-p" value=sp_v on_input=sp_s error=Signal::derive(String::new) unit=Some(Dimension::Pressure) suffix=None placeholder="e.g. 101.325 kPa, an open tank"/>
+                    <TextField label="Surface above the pump inlet" id="sys-suction-z" value=sh_v on_input=sh_s error=Signal::derive(String::new) unit=Some(Dimension::Length) suffix=None placeholder="e.g. 2 m"/>
+                    <TextField label="Suction pipe loss" id="sys-suction-loss" value=sl_v on_input=sl_s error=Signal::derive(String::new) unit=Some(Dimension::Pressure) suffix=None placeholder="0 if blank"/>
+                </details>
+            </div>
+        </Show>
+    }
+}
+
+/// The pump-and-system plot.
+#[component]
+pub fn DutyPlot(plot: Plot) -> impl IntoView {
+    let (l, t, r, b) = duty_plot::frame();
+    let frame = format!("{l},{t} {l},{b} {r},{b}");
+    view! {
+        <figure class="duty-plot" data-testid="duty-plot">
+            <svg viewBox=format!("0 0 {} {}", duty_plot::WIDTH, duty_plot::HEIGHT) role="img" aria-label=plot.description.clone()>
+                <polyline class="axis" points=frame/>
+                {plot.x_ticks.iter().map(|(x, s)| view! { <text class="tick" x=format!("{x:.1}") y=format!("{:.1}", b + 14.0) text-anchor="middle">{s.clone()}</text> }).collect_view()}
+                {plot.y_ticks.iter().map(|(y, s)| view! { <text class="tick" x=format!("{:.1}", l - 4.0) y=format!("{:.1}", y + 3.0) text-anchor="end">{s.clone()}</text> }).collect_view()}
+                <polyline class="system-curve" points=plot.system.clone()/>
+                {plot.pump.clone().map(|p| view! { <polyline class="pump-curve" points=p/> })}
+                <circle class="duty-point" cx=format!("{:.1}", plot.duty.0) cy=format!("{:.1}", plot.duty.1) r="4"/>
+                {plot.operating.map(|(x, y)| view! { <circle class="operating-point" cx=format!("{x:.1}") cy=format!("{y:.1}") r="5"/> })}
+            </svg>
+            <figcaption>"Head against flow: system curve (solid), pump curve (dashed), duty point (dot), where the pump runs (ring)."</figcaption>
+        </figure>
+    }
+}
