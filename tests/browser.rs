@@ -551,6 +551,16 @@ async fn a_fixture_branch_gets_the_probable_flow_not_the_sum_of_its_fixtures() {
     assert!(derived.contains("for 36.25 WSFU (0 own + 36.25 from its branches)"), "{derived}");
     assert!(all_text(&root, "row-carried")[0].starts_with("36.25 WSFU"), "{:?}", all_text(&root, "row-carried"));
     assert!(text(&root, "system-lines").contains("Fixtures to flow: Hunter's method"));
+    // The source pressure, typed in the system box, gives the pressure left
+    // at each end line; switching to US units keeps its meaning.
+    type_into(&root, "sys-source", "350");
+    type_into(&root, "sys-outlet-min", "55");
+    leptos::task::tick().await;
+    let lines = text(&root, "system-lines");
+    assert!(lines.contains("Pressure left at each end line, worst first (source 350 kPa"), "{lines}");
+    click(&root, "units-us");
+    leptos::task::tick().await;
+    assert_eq!(sheet.system.get_untracked().source_pressure, "50.7632", "350 kPa is 50.7632 psi");
     // Selecting an end line lights its path; folding the main hides its
     // branches, and unfolding shows them again.
     sheet.selected.set(Some(ids[2]));

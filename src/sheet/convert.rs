@@ -2,7 +2,7 @@
 //! typed in the old unit are rewritten in the new one; text that names its
 //! own unit is left exactly as typed.
 
-use super::file::{FluidFile, LineFile, Units};
+use super::file::{FluidFile, LineFile, SystemFile, Units};
 use super::units::{self, format_number, from_si, Dimension, Unit};
 
 /// Rewrites one field's text from `old` to `new`, if it is a bare number.
@@ -55,6 +55,9 @@ pub fn line(l: &mut LineFile, old: &Units, new: &Units, density: Option<f64>) {
             None,
         );
     }
+    if let Some(fx) = &mut l.fixtures {
+        field(&mut fx.continuous, Dimension::Flow, old.flow, new.flow, density);
+    }
     match &mut l.fluid {
         FluidFile::Water { temperature, pressure } => {
             field(temperature, Dimension::Temperature, old.temperature, new.temperature, None);
@@ -82,6 +85,21 @@ pub fn line(l: &mut LineFile, old: &Units, new: &Units, density: Option<f64>) {
         field(&mut c.drop, Dimension::Pressure, old.pressure, new.pressure, density);
         field(&mut c.at_flow, Dimension::Flow, old.flow, new.flow, density);
     }
+}
+
+/// Rewrites every bare number of the sheet's system settings. No density
+/// is known here: a unit that needs one (a mass flow, a head of the fluid)
+/// is written into the text instead, so the meaning is kept.
+pub fn system(s: &mut SystemFile, old: &Units, new: &Units) {
+    field(&mut s.source_pressure, Dimension::Pressure, old.pressure, new.pressure, None);
+    field(&mut s.outlet_minimum, Dimension::Pressure, old.pressure, new.pressure, None);
+    for p in &mut s.pump {
+        field(&mut p.flow, Dimension::Flow, old.flow, new.flow, None);
+        field(&mut p.head, Dimension::Pressure, old.pressure, new.pressure, None);
+    }
+    field(&mut s.suction.pressure, Dimension::Pressure, old.pressure, new.pressure, None);
+    field(&mut s.suction.height, Dimension::Length, old.length, new.length, None);
+    field(&mut s.suction.loss, Dimension::Pressure, old.pressure, new.pressure, None);
 }
 
 #[cfg(test)]
@@ -113,6 +131,17 @@ mod tests {
         // SP 811, Btu_IT), a 5 K difference is 9 °F.
         let load = l.load.unwrap();
         assert_eq!((load.power.as_str(), load.delta_t.as_str()), ("1000", "9"));
+        // The system settings' bare numbers keep their meaning: 6.894757 kPa
+        // is 1 psi, 6.30902 L/s is 100 gpm; "2 m" names its unit and stays.
+        let mut sys = SystemFile {
+            source_pressure: "6.894757".into(),
+            pump: vec![crate::sheet::file::PumpPointFile { flow: "6.30902".into(), head: "3 m head".into() }],
+            ..SystemFile::default()
+        };
+        sys.suction.height = "2 m".into();
+        system(&mut sys, &si, &us);
+        assert_eq!((sys.source_pressure.as_str(), sys.pump[0].flow.as_str()), ("1", "100"));
+        assert_eq!((sys.pump[0].head.as_str(), sys.suction.height.as_str()), ("3 m head", "2 m"));
         // Text that is not a number is left alone: nothing typed is lost.
         assert_eq!(rewrite("lots", Dimension::Flow, si.flow, us.flow, None), "lots");
     }

@@ -12,7 +12,7 @@ pub const WIDTH: f64 = 360.0;
 /// Drawing height in SVG user units.
 pub const HEIGHT: f64 = 220.0;
 const LEFT: f64 = 58.0;
-const RIGHT: f64 = 12.0;
+const RIGHT: f64 = 26.0;
 const TOP: f64 = 10.0;
 const BOTTOM: f64 = 34.0;
 

@@ -89,7 +89,7 @@ pub fn Desk(
                         on:click=move |_| sheet.set_system(System::Us)>"US"</button>
                 </div>
                 <DesignBasis/>
-                <button type="button" class="demo" data-testid="open-demo" on:click={let o = open_demo.clone(); move |_| o(state::DEMO)}>"Open the demo sheet"</button>
+                <button type="button" class="demo" data-testid="open-demo" on:click=move |_| open_demo(state::DEMO)>"Open the demo sheet"</button>
                 <button type="button" class="demo" data-testid="open-demo-domestic" on:click=move |_| open_demo(state::DEMO_DOMESTIC)>"Domestic water demo"</button>
                 {stored.then(|| view! {
                     <button type="button" data-testid="show-shelf" aria-pressed=pressed("shelf") on:click=toggle("shelf")>"Worksheets"</button>

@@ -359,6 +359,7 @@ impl Sheet {
                 s.file.update(|f| convert::line(f, &old, &new, rho));
             }
         });
+        self.system.update(|s| convert::system(s, &old, &new));
         self.units.set(choice);
     }
 }

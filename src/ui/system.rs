@@ -19,7 +19,7 @@ fn setting(
     set: fn(&mut SystemFile, String),
 ) -> (Signal<String>, Callback<String>) {
     let system = sheet.system;
-    (Signal::derive(move || system.with(|s| get(s))), Callback::new(move |v| system.update(|s| set(s, v))))
+    (Signal::derive(move || system.with(get)), Callback::new(move |v| system.update(|s| set(s, v))))
 }
 
 fn pump_text(s: &SystemFile, i: usize, head: bool) -> String {
