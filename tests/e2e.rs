@@ -127,17 +127,18 @@ async fn edit_to_results_time_on_a_200_line_sheet() {
     h.open("/", "open-demo").await;
     h.click("open-demo").await;
     h.wait_for("proposed-size").await;
-    // The demo's last line has a typed flow (the others come from loads):
-    // edit that one.
-    let picks = h.client.find_all(Locator::Css("[data-testid=roster-row] .pick")).await.unwrap();
-    picks[picks.len() - 1].click().await.unwrap();
-    h.wait_for("flow").await;
+    // The demo's lines mostly take their flow from loads: add a chilled-water
+    // line with a typed flow (steel Sch 40, water, as the demo's main was
+    // before it took its flow from loads) and edit that one.
+    h.click("add-line").await;
+    h.type_into("flow", "18.5").await;
+    h.type_into("length", "42").await;
     let small = time_edits(&h).await;
     let n = h.client.find_all(Locator::Css("[data-testid=roster-row]")).await.unwrap().len();
     for _ in n..200 {
-        // Duplicate the dry-cooler line (the sixth; copies go below it, and
-        // the copy is selected): every line is sized.
-        h.client.execute("document.querySelectorAll('[data-testid=row-duplicate]')[5].click()", vec![]).await.unwrap();
+        // Duplicate that line (the seventh; copies go below it, and the
+        // copy is selected): every line is sized.
+        h.client.execute("document.querySelectorAll('[data-testid=row-duplicate]')[6].click()", vec![]).await.unwrap();
     }
     let rows = h.client.find_all(Locator::Css("[data-testid=roster-row]")).await.unwrap();
     assert_eq!(rows.len(), 200);

@@ -181,7 +181,7 @@ fn heating_branch_from_a_heat_load() {
     near(o.line.flow.value, 1.4713e-3, 0.003);
     // Shown to four figures in the sheet's unit (IF97 and IAPWS 2008 give
     // 1.4716e-3 m³/s, 0.02 % from the CRC hand value).
-    assert_eq!(o.flow_text.as_deref(), Some("1.472 L/s"));
+    assert_eq!(o.flow_text.as_deref(), Some("1.472 L/s for 120 kW"));
     // US units and the trade's rule of thumb (common practice): gpm =
     // Btu/h / (500 ΔT°F), 500 = 8.33 lb/gal × 60 min/h × 1 Btu/(lb·°F), which
     // holds for water near 60 °F: 300 MBH at 20 °F is 30 gpm.

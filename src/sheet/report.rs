@@ -107,6 +107,12 @@ pub struct LineReport {
     pub outcome: Result<Outcome, Vec<FieldError>>,
 }
 
+impl AsRef<LineReport> for LineReport {
+    fn as_ref(&self) -> &LineReport {
+        self
+    }
+}
+
 /// Evaluates one stored line on its own.
 pub fn evaluate_line(number: usize, lf: &LineFile, units: &Units) -> LineReport {
     evaluate_line_in(number, lf, units, None)
@@ -158,7 +164,18 @@ pub fn evaluate_line_in(number: usize, lf: &LineFile, units: &Units, carried: Op
                     }
                     t
                 }
-                None => q,
+                None => {
+                    // A load on its own: say which, as the branches' lines do.
+                    let own = lf.load.as_ref().and_then(|l| {
+                        super::units::parse(super::units::Dimension::Power, l.power.trim(), units.power)
+                            .ok()
+                            .and_then(|m| m.to_si(None).ok())
+                    });
+                    match own {
+                        Some(w) => format!("{q} for {}", show(w, units.power, None, 3)),
+                        None => q,
+                    }
+                }
             }
         });
         let flow_text = flow_text.or_else(|| {
@@ -511,7 +528,7 @@ pub fn circuit_note(u: &Units) -> &'static str {
 /// The system in words, when lines are joined: the pump duty from the
 /// index circuit, and every path's drop, worst first. Empty when no line
 /// names the line it is fed from.
-pub fn system_lines(sheet: &SheetFile, reports: &[LineReport]) -> Vec<String> {
+pub fn system_lines(sheet: &SheetFile, reports: &[impl AsRef<LineReport>]) -> Vec<String> {
     let u = sheet.units();
     let tree = super::system::tree(&sheet.lines);
     if !tree.is_system() {
@@ -531,8 +548,12 @@ pub fn system_lines(sheet: &SheetFile, reports: &[LineReport]) -> Vec<String> {
     let mut out = Vec::new();
     match (sum.paths.first(), sum.head_pa, sum.flow_m3_s) {
         (Some(p), Some(h), Some(q)) => {
-            let rho =
-                reports[*p.lines.last().unwrap()].outcome.as_ref().map(|o| o.sizing.properties.density_kg_m3()).ok();
+            let rho = reports[*p.lines.last().unwrap()]
+                .as_ref()
+                .outcome
+                .as_ref()
+                .map(|o| o.sizing.properties.density_kg_m3())
+                .ok();
             let supplied =
                 u.basis.circuit == super::file::Circuit::Open && !sheet.system.source_pressure.trim().is_empty();
             out.push(if supplied {
@@ -577,7 +598,7 @@ pub fn system_lines(sheet: &SheetFile, reports: &[LineReport]) -> Vec<String> {
         .paths
         .first()
         .and_then(|p| p.lines.last())
-        .and_then(|&s| reports[s].outcome.as_ref().ok())
+        .and_then(|&s| reports[s].as_ref().outcome.as_ref().ok())
         .map(|o| o.sizing.properties.density_kg_m3());
     let pa = |v: f64| format!("{} ({})", show(v, u.pressure, None, 3), show(v, water, None, 3));
     if u.basis.circuit == super::file::Circuit::Open {
@@ -652,7 +673,7 @@ pub fn system_lines(sheet: &SheetFile, reports: &[LineReport]) -> Vec<String> {
 
 /// The tree, one line per line, indented under what it is fed from, with
 /// the load or fixture units it carries and its derived flow.
-pub fn tree_lines(sheet: &SheetFile, reports: &[LineReport]) -> Vec<String> {
+pub fn tree_lines(sheet: &SheetFile, reports: &[impl AsRef<LineReport>]) -> Vec<String> {
     let tree = super::system::tree(&sheet.lines);
     if !tree.is_system() {
         return Vec::new();
@@ -671,7 +692,7 @@ pub fn tree_lines(sheet: &SheetFile, reports: &[LineReport]) -> Vec<String> {
         .into_iter()
         .map(|i| {
             let name = sheet.lines[i].name.trim();
-            let what = match &reports[i].outcome {
+            let what = match &reports[i].as_ref().outcome {
                 Ok(o) => o.flow_text.clone().unwrap_or_else(|| {
                     show(o.line.flow.value, sheet.units().flow, Some(o.sizing.properties.density_kg_m3()), 4)
                 }),

@@ -510,9 +510,10 @@ fn measure(
 
 /// The paths from every end line to its source, worst first, and the pump
 /// duty from the worst one (the index circuit).
-pub fn summarise(tree: &Tree, reports: &[LineReport], u: &Units, sys: &SystemFile) -> Summary {
+pub fn summarise(tree: &Tree, reports: &[impl AsRef<LineReport>], u: &Units, sys: &SystemFile) -> Summary {
     let shown = |i: usize| {
         reports[i]
+            .as_ref()
             .outcome
             .as_ref()
             .ok()
@@ -546,7 +547,7 @@ pub fn summarise(tree: &Tree, reports: &[LineReport], u: &Units, sys: &SystemFil
     let mut problems = Vec::new();
     // The fluid at the source of the index circuit (or of any tree).
     let source = paths.first().and_then(|p| p.lines.last().copied());
-    let at_source = source.and_then(|s| reports[s].outcome.as_ref().ok());
+    let at_source = source.and_then(|s| reports[s].as_ref().outcome.as_ref().ok());
     let rho = at_source.map(|o| o.sizing.properties.density_kg_m3());
     let static_pa = if open { index.map_or(0.0, |p| p.static_pa) } else { 0.0 };
     let curve = match (flow_m3_s, head_pa) {

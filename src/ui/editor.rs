@@ -434,7 +434,9 @@ fn FixtureFields() -> impl IntoView {
     let line = expect_context::<Slot>();
     let file = line.file;
     let method = Memo::new(move |_| sheet.basis.with(|b| b.demand));
-    let supply = move || file.with(|f| f.fixtures.as_ref().map(|x| x.supply).unwrap_or_default());
+    // Memos, so a keystroke in a count does not redraw every row's options.
+    let supply = Memo::new(move |_| file.with(|f| f.fixtures.as_ref().map(|x| x.supply).unwrap_or_default()));
+    let supply = move || supply.get();
     let rows = move || {
         file.with(|f| {
             let items = f.fixtures.as_ref().map(|x| x.items.clone()).unwrap_or_default();

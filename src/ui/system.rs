@@ -10,6 +10,7 @@ use super::state::Sheet;
 use crate::hydraulics::line::Circuit;
 use crate::sheet::duty_plot::{self, Plot};
 use crate::sheet::file::SystemFile;
+use crate::sheet::report::LineReport;
 use crate::sheet::units::Dimension;
 
 /// One text of the system settings: how to read and write it.
@@ -69,17 +70,22 @@ pub fn SystemPanel() -> impl IntoView {
         }
         sheet.system.track();
         sheet.resolved.track();
-        let reports: Vec<_> = sheet.lines.with(|v| v.iter().map(|s| s.report.get()).collect());
         let file = sheet.to_file();
         let u = file.units();
-        let sum = sheet.joined.with(|j| crate::sheet::system::summarise(&j.tree, &reports, &u, &file.system));
-        let rho = sum
-            .paths
-            .first()
-            .and_then(|p| p.lines.last())
-            .and_then(|&s| reports[s].outcome.as_ref().ok())
-            .map(|o| o.sizing.properties.density_kg_m3());
-        (crate::sheet::report::system_lines(&file, &reports), duty_plot::plot(&sum, &u, rho))
+        // Read in place: cloning every line's report on each edit cost
+        // milliseconds on a long sheet.
+        sheet.lines.with(|v| {
+            let guards: Vec<_> = v.iter().map(|s| s.report.read()).collect();
+            let reports: Vec<&LineReport> = guards.iter().map(|g| &**g).collect();
+            let sum = sheet.joined.with(|j| crate::sheet::system::summarise(&j.tree, &reports, &u, &file.system));
+            let rho = sum
+                .paths
+                .first()
+                .and_then(|p| p.lines.last())
+                .and_then(|&s| reports[s].outcome.as_ref().ok())
+                .map(|o| o.sizing.properties.density_kg_m3());
+            (crate::sheet::report::system_lines(&file, &reports), duty_plot::plot(&sum, &u, rho))
+        })
     });
     let open = move || sheet.basis.with(|b| b.circuit == Circuit::Open);
     let (src_v, src_s) = setting(sheet, |s| s.source_pressure.clone(), |s, v| s.source_pressure = v);
