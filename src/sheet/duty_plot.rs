@@ -36,7 +36,8 @@ pub struct Plot {
 }
 
 /// The plot of a system with a duty point; `None` without one.
-pub fn plot(sum: &Summary, u: &Units, rho: Option<f64>) -> Option<Plot> {
+pub fn plot(sum: &Summary, u: &Units) -> Option<Plot> {
+    let rho = sum.source_density;
     let (curve, q_duty, h_duty) = (sum.curve?, sum.flow_m3_s?, sum.head_pa?);
     let q_pump = sum.pump_points.iter().map(|p| p.0).fold(0.0, f64::max);
     let q_max = (1.4 * q_duty).max(q_pump).max(sum.operating.map_or(0.0, |o| 1.1 * o.0));
@@ -112,8 +113,9 @@ mod tests {
             operating: Some((0.0105, 108e3)),
             npsh: None,
             problems: Vec::new(),
+            source_density: Some(1000.0),
         };
-        let p = plot(&sum, &u, Some(1000.0)).unwrap();
+        let p = plot(&sum, &u).unwrap();
         let (l, t, r, b) = frame();
         assert!(p.duty.0 > l && p.duty.0 < r && p.duty.1 > t && p.duty.1 < b, "{:?}", p.duty);
         // Flows drawn to 0.015 m³/s (the last pump point); the system needs

@@ -300,13 +300,6 @@ impl LineFile {
         self.fittings.push(FittingCount::new(Fitting::Elbow90Welded.id(), 1));
     }
 
-    /// Gives the flow as a heat load and ΔT (`true`) or as a flow. Nothing
-    /// typed is lost: the flow text stays while a load is used, and a load
-    /// put aside is kept until the line is saved without it.
-    pub fn set_flow_from_load(&mut self, load: bool) {
-        self.set_flow_from(if load { FlowFrom::Load } else { FlowFrom::Flow });
-    }
-
     /// Where the line's flow comes from.
     pub fn flow_from(&self) -> FlowFrom {
         match (&self.load, &self.fixtures) {

@@ -529,12 +529,17 @@ pub fn circuit_note(u: &Units) -> &'static str {
 /// index circuit, and every path's drop, worst first. Empty when no line
 /// names the line it is fed from.
 pub fn system_lines(sheet: &SheetFile, reports: &[impl AsRef<LineReport>]) -> Vec<String> {
-    let u = sheet.units();
     let tree = super::system::tree(&sheet.lines);
     if !tree.is_system() {
         return Vec::new();
     }
-    let sum = super::system::summarise(&tree, reports, &u, &sheet.system);
+    let sum = super::system::summarise(&tree, reports, &sheet.units(), &sheet.system);
+    system_lines_of(sheet, &sum)
+}
+
+/// As [`system_lines`], from a summary the caller already has.
+pub fn system_lines_of(sheet: &SheetFile, sum: &super::system::Summary) -> Vec<String> {
+    let u = sheet.units();
     let water = super::units::find(super::units::Dimension::Pressure, "m H₂O").expect("m H₂O");
     let name = |i: usize| {
         let n = sheet.lines[i].name.trim();
@@ -548,12 +553,7 @@ pub fn system_lines(sheet: &SheetFile, reports: &[impl AsRef<LineReport>]) -> Ve
     let mut out = Vec::new();
     match (sum.paths.first(), sum.head_pa, sum.flow_m3_s) {
         (Some(p), Some(h), Some(q)) => {
-            let rho = reports[*p.lines.last().unwrap()]
-                .as_ref()
-                .outcome
-                .as_ref()
-                .map(|o| o.sizing.properties.density_kg_m3())
-                .ok();
+            let rho = sum.source_density;
             let supplied =
                 u.basis.circuit == super::file::Circuit::Open && !sheet.system.source_pressure.trim().is_empty();
             out.push(if supplied {
@@ -594,12 +594,7 @@ pub fn system_lines(sheet: &SheetFile, reports: &[impl AsRef<LineReport>]) -> Ve
             if p.complete { "" } else { " (incomplete: a line has no result)" }
         ));
     }
-    let rho = sum
-        .paths
-        .first()
-        .and_then(|p| p.lines.last())
-        .and_then(|&s| reports[s].as_ref().outcome.as_ref().ok())
-        .map(|o| o.sizing.properties.density_kg_m3());
+    let rho = sum.source_density;
     let pa = |v: f64| format!("{} ({})", show(v, u.pressure, None, 3), show(v, water, None, 3));
     if u.basis.circuit == super::file::Circuit::Open {
         match sum.source_pa {

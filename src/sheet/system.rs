@@ -439,6 +439,9 @@ pub struct Summary {
     pub npsh: Option<(f64, f64)>,
     /// What could not be read of the system settings, or does not add up.
     pub problems: Vec<(Field, String)>,
+    /// Density of the fluid at the index circuit's source, kg/m³ (to show
+    /// its flows in mass units).
+    pub source_density: Option<f64>,
 }
 
 /// The pressure left at an end line.
@@ -459,43 +462,35 @@ impl Residual {
     }
 }
 
-/// A gauge pressure typed in a system setting, Pa: a unit marked gauge
-/// or absolute is turned to gauge; a plain one is read as typed.
-fn gauge(field: Field, text: &str, u: &Units, rho: Option<f64>, problems: &mut Vec<(Field, String)>) -> Option<f64> {
-    let t = text.trim();
-    if t.is_empty() {
-        return None;
-    }
-    let read = units::parse(Dimension::Pressure, t, u.pressure).and_then(|m| {
-        let si = m.to_si(rho)?;
-        Ok(if m.unit.reference().is_some() { si - units::ATMOSPHERE_PA } else { si })
-    });
-    match read {
-        Ok(v) if v.is_finite() => Some(v),
-        Ok(_) => {
-            problems.push((field, format!("{}: not a finite pressure", field.label())));
-            None
-        }
-        Err(e) => {
-            problems.push((field, format!("{}: {e}", field.label())));
-            None
-        }
-    }
+/// How a pressure typed in a system setting is read.
+#[derive(Clone, Copy, PartialEq)]
+enum Reading {
+    /// As typed (a length, a flow, a drop, a head).
+    AsTyped,
+    /// Gauge: a unit marked gauge or absolute is turned to gauge.
+    Gauge,
 }
 
+/// A system setting in SI, `None` when blank; a wrong one is added to
+/// `problems`.
 fn measure(
     field: Field,
     dim: Dimension,
     text: &str,
     unit: &'static units::Unit,
     rho: Option<f64>,
+    reading: Reading,
     problems: &mut Vec<(Field, String)>,
 ) -> Option<f64> {
     let t = text.trim();
     if t.is_empty() {
         return None;
     }
-    match units::parse(dim, t, unit).and_then(|m| m.to_si(rho)) {
+    let read = units::parse(dim, t, unit).and_then(|m| {
+        let si = m.to_si(rho)?;
+        Ok(if reading == Reading::Gauge && m.unit.reference().is_some() { si - units::ATMOSPHERE_PA } else { si })
+    });
+    match read {
         Ok(v) if v.is_finite() => Some(v),
         Ok(_) => {
             problems.push((field, format!("{}: not a finite number", field.label())));
@@ -556,8 +551,24 @@ pub fn summarise(tree: &Tree, reports: &[impl AsRef<LineReport>], u: &Units, sys
     };
     let (source_pa, outlet_min_pa) = if open {
         (
-            gauge(Field::SourcePressure, &sys.source_pressure, u, rho, &mut problems),
-            gauge(Field::OutletMinimum, &sys.outlet_minimum, u, rho, &mut problems),
+            measure(
+                Field::SourcePressure,
+                Dimension::Pressure,
+                &sys.source_pressure,
+                u.pressure,
+                rho,
+                Reading::Gauge,
+                &mut problems,
+            ),
+            measure(
+                Field::OutletMinimum,
+                Dimension::Pressure,
+                &sys.outlet_minimum,
+                u.pressure,
+                rho,
+                Reading::Gauge,
+                &mut problems,
+            ),
         )
     } else {
         (None, None)
@@ -572,8 +583,9 @@ pub fn summarise(tree: &Tree, reports: &[impl AsRef<LineReport>], u: &Units, sys
     residuals.sort_by(|a, b| a.pressure_pa.total_cmp(&b.pressure_pa));
     let mut pump_points = Vec::new();
     for (i, pt) in sys.pump.iter().enumerate() {
-        let q = measure(Field::PumpPoint, Dimension::Flow, &pt.flow, u.flow, rho, &mut problems);
-        let h = measure(Field::PumpPoint, Dimension::Pressure, &pt.head, u.pressure, rho, &mut problems);
+        let q = measure(Field::PumpPoint, Dimension::Flow, &pt.flow, u.flow, rho, Reading::AsTyped, &mut problems);
+        let h =
+            measure(Field::PumpPoint, Dimension::Pressure, &pt.head, u.pressure, rho, Reading::AsTyped, &mut problems);
         match (q, h) {
             (Some(q), Some(h)) if q >= 0.0 && h > 0.0 => pump_points.push((q, h)),
             (Some(_), Some(_)) => problems
@@ -627,6 +639,7 @@ pub fn summarise(tree: &Tree, reports: &[impl AsRef<LineReport>], u: &Units, sys
         operating,
         npsh,
         problems,
+        source_density: rho,
     }
 }
 
@@ -646,25 +659,26 @@ fn npsh_of(
     }
     let o = at_source?;
     let rho = o.sizing.properties.density_kg_m3();
-    let t = s.pressure.trim();
-    let surface = match units::parse(Dimension::Pressure, t, u.pressure).and_then(|m| {
-        let si = m.to_si(Some(rho))?;
-        // A plain unit is read as absolute here: the surface pressure is.
-        Ok(si)
-    }) {
-        Ok(v) if v.is_finite() && v > 0.0 => v,
-        Ok(_) => {
-            problems.push((Field::SuctionPressure, "the suction surface pressure is absolute: above 0".into()));
-            return None;
-        }
-        Err(e) => {
-            problems.push((Field::SuctionPressure, format!("{}: {e}", Field::SuctionPressure.label())));
-            return None;
-        }
-    };
-    let height = measure(Field::SuctionHeight, Dimension::Length, &s.height, u.length, None, problems).unwrap_or(0.0);
+    // A plain unit is read as absolute here: the surface pressure is.
+    let surface = measure(
+        Field::SuctionPressure,
+        Dimension::Pressure,
+        &s.pressure,
+        u.pressure,
+        Some(rho),
+        Reading::AsTyped,
+        problems,
+    )?;
+    if surface <= 0.0 {
+        problems.push((Field::SuctionPressure, "the suction surface pressure is absolute: above 0".into()));
+        return None;
+    }
+    let height =
+        measure(Field::SuctionHeight, Dimension::Length, &s.height, u.length, None, Reading::AsTyped, problems)
+            .unwrap_or(0.0);
     let loss =
-        measure(Field::SuctionLoss, Dimension::Pressure, &s.loss, u.pressure, Some(rho), problems).unwrap_or(0.0);
+        measure(Field::SuctionLoss, Dimension::Pressure, &s.loss, u.pressure, Some(rho), Reading::AsTyped, problems)
+            .unwrap_or(0.0);
     if matches!(o.line.fluid, Fluid::Custom(_)) {
         problems.push((
             Field::SuctionPressure,

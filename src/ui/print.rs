@@ -264,11 +264,10 @@ pub fn PrintSheet() -> impl IntoView {
                     let file = sheet.to_file();
                     let u = file.units();
                     let sum = sheet.joined.with_untracked(|j| crate::sheet::system::summarise(&j.tree, &reports, &u, &file.system));
-                    let rho = sum.paths.first().and_then(|p| p.lines.last()).and_then(|&s| reports[s].outcome.as_ref().ok()).map(|o| o.sizing.properties.density_kg_m3());
                     (
                         crate::sheet::report::tree_lines(&file, &reports),
-                        crate::sheet::report::system_lines(&file, &reports),
-                        crate::sheet::duty_plot::plot(&sum, &u, rho),
+                        crate::sheet::report::system_lines_of(&file, &sum),
+                        crate::sheet::duty_plot::plot(&sum, &u),
                     )
                 } else {
                     (Vec::new(), Vec::new(), None)

@@ -78,13 +78,7 @@ pub fn SystemPanel() -> impl IntoView {
             let guards: Vec<_> = v.iter().map(|s| s.report.read()).collect();
             let reports: Vec<&LineReport> = guards.iter().map(|g| &**g).collect();
             let sum = sheet.joined.with(|j| crate::sheet::system::summarise(&j.tree, &reports, &u, &file.system));
-            let rho = sum
-                .paths
-                .first()
-                .and_then(|p| p.lines.last())
-                .and_then(|&s| reports[s].outcome.as_ref().ok())
-                .map(|o| o.sizing.properties.density_kg_m3());
-            (crate::sheet::report::system_lines(&file, &reports), duty_plot::plot(&sum, &u, rho))
+            (crate::sheet::report::system_lines_of(&file, &sum), duty_plot::plot(&sum, &u))
         })
     });
     let open = move || sheet.basis.with(|b| b.circuit == Circuit::Open);
