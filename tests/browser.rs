@@ -573,3 +573,40 @@ async fn a_fixture_branch_gets_the_probable_flow_not_the_sum_of_its_fixtures() {
     leptos::task::tick().await;
     assert_eq!(rows(&root).iter().map(|r| r.1).collect::<Vec<_>>(), [false, false, false]);
 }
+
+#[wasm_bindgen_test]
+async fn a_line_switched_to_a_gas_and_to_steam_reports_both_ends() {
+    let (root, sheet) = mount_sheet(|s| chilled(s, "air feed", "2"));
+    leptos::task::tick().await;
+    // A chilled-water line becomes compressed air: the gas fields appear.
+    choose(&root, "fluid-kind", "gas");
+    leptos::task::tick().await;
+    assert_eq!(find(&root, "gas-kind").unchecked_ref::<web_sys::HtmlSelectElement>().value(), "air");
+    type_into(&root, "flow", "420 Nm3/h");
+    type_into(&root, "fluid-pressure", "7.5 barg");
+    type_into(&root, "fluid-temperature", "30");
+    type_into(&root, "length", "85");
+    type_into(&root, "max-drop-percent", "2");
+    leptos::task::tick().await;
+    let ends = text(&root, "answer-ends");
+    assert!(ends.starts_with("Isothermal compressible flow"), "{ends}");
+    assert!(text(&root, "answer-velocity").contains('→'));
+    assert!(text(&root, "headroom-drop_fraction").contains("% of 2.00 %"), "{}", text(&root, "headroom-drop_fraction"));
+    assert_eq!(text(&root, "proposed-size"), core_answer(&sheet, 0));
+    // Natural gas asks for its relative density.
+    choose(&root, "gas-kind", "natural-gas");
+    leptos::task::tick().await;
+    assert!(find(&root, "gas-relative-density").is_object());
+    // Steam: wet steam is refused beside the temperature.
+    choose(&root, "fluid-kind", "steam");
+    leptos::task::tick().await;
+    type_into(&root, "flow", "1600 kg/h");
+    type_into(&root, "fluid-temperature", "150");
+    leptos::task::tick().await;
+    assert!(text(&root, "fluid-temperature-error").contains("wet steam"), "{}", text(&root, "fluid-temperature-error"));
+    type_into(&root, "fluid-temperature", "");
+    leptos::task::tick().await;
+    assert!(text(&root, "answer-ends").contains("kg/h"));
+    let page = root.text_content().unwrap();
+    assert!(!page.contains("NaN") && !page.contains("inf"), "{page}");
+}

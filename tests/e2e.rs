@@ -39,6 +39,7 @@ fn typed_line() -> LineFile {
             max_velocity: Some("2.4".into()),
             min_velocity: None,
             velocity_by_size: Some("hydronic".into()),
+            max_drop_percent: None,
         },
         check_size: None,
         smallest_size: None,

@@ -10,7 +10,7 @@ use headroom::hydraulics::pipes::{self, SERIES};
 use headroom::hydraulics::sizing;
 use headroom::hydraulics::velocity;
 use headroom::sheet::file::SheetFile;
-use headroom::sheet::units::{self, format_number, from_si, Dimension, UNITS};
+use headroom::sheet::units::{self, format_number, Dimension, UNITS};
 use proptest::prelude::*;
 use uom::si::f64::{Length, Pressure, ThermodynamicTemperature, Velocity, VolumeRate};
 use uom::si::length::{meter, millimeter};
@@ -86,9 +86,13 @@ proptest! {
         let back = units::parse(u.dimension, &text, u).unwrap();
         prop_assert_eq!(back.unit.symbol, u.symbol);
         prop_assert!(((back.value - shown) / shown).abs() < 1e-15, "{} → {}", text, back.value);
-        // Through SI and back, with a density for heads and mass flows.
-        let si = back.to_si(Some(rho)).unwrap();
-        let again = from_si(si, u, Some(rho)).unwrap();
+        // Through SI and back, with a density for heads and mass flows, and
+        // for standard volumes a gas (air) to give the reference density.
+        let air = headroom::hydraulics::fluid::Fluid::Gas(headroom::hydraulics::fluid::Gas::Named(
+            &headroom::hydraulics::fluid::gas::AIR,
+        ));
+        let si = back.flow_si(Some(rho), Some(&air)).unwrap();
+        let again = units::flow_from_si(si, u, Some(rho), Some(&air)).unwrap();
         // Temperatures go through an offset (273.15 K, 459.67 °R), so their
         // error is relative to the kelvin value, not to a reading near zero.
         // Gauge pressures likewise go through one atmosphere (1.01 bar, 14.7 psi).
@@ -147,6 +151,7 @@ proptest! {
                 max_velocity: Some(Velocity::new::<meter_per_second>(lim)),
                 min_velocity: None,
                 velocity_by_size: if hw { velocity::rule("hydronic") } else { None },
+                max_drop_fraction: None,
             },
             circuit: if rise > 0.0 { Circuit::Closed } else { Circuit::Open },
             freeze_margin: 3.0,

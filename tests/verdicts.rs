@@ -312,6 +312,14 @@ fn a_sheet_is_written_as_the_oldest_version_that_holds_it() {
     let mut pressures = SheetFile::from_json(&v1).unwrap();
     pressures.system.source_pressure = "400 kPa".into();
     assert_eq!(pressures.with_required_version().version, 3);
-    let newer = fixtures.to_json().replacen("\"version\": 3", "\"version\": 4", 1);
-    assert!(SheetFile::from_json(&newer).unwrap_err().to_string().contains("version 4 is newer"));
+    // A gas or steam line, a drop limit in per cent, or a standard-volume
+    // flow unit make it version 4.
+    let mut gas = fixtures.clone();
+    gas.lines[0].limits.max_drop_percent = Some("2".into());
+    assert_eq!(gas.with_required_version().version, 4);
+    let mut normal = SheetFile::from_json(&v1).unwrap();
+    normal.units.flow = Some("Nm³/h".into());
+    assert_eq!(normal.with_required_version().version, 4);
+    let newer = fixtures.to_json().replacen("\"version\": 3", "\"version\": 5", 1);
+    assert!(SheetFile::from_json(&newer).unwrap_err().to_string().contains("version 5 is newer"));
 }

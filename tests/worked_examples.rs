@@ -205,5 +205,5 @@ fn a_heat_load_on_a_fluid_without_a_specific_heat_is_a_message() {
     assert!(errs.iter().any(|e| e.message.contains("temperature difference must be greater than zero")), "{errs:?}");
     let sheet = SheetFile::from_json(&sheet.to_json().replace(r#""delta_t": "0""#, r#""delta_t": "5""#)).unwrap();
     let errs = evaluate(&sheet).remove(0).outcome.unwrap_err();
-    assert!(errs.iter().any(|e| e.message.contains("needs the fluid's specific heat")), "{errs:?}");
+    assert!(errs.iter().any(|e| e.message.contains("whose specific heat Headroom knows")), "{errs:?}");
 }

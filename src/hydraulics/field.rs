@@ -45,6 +45,12 @@ pub enum Field {
     FluidViscosity,
     /// A custom fluid's kinematic viscosity.
     FluidKinematicViscosity,
+    /// A natural gas's relative density to air.
+    FluidRelativeDensity,
+    /// A custom gas's molar mass.
+    FluidMolarMass,
+    /// A custom gas's compressibility factor.
+    FluidZ,
     /// The pipe as a whole.
     Pipe,
     /// The pipe series id.
@@ -79,6 +85,8 @@ pub enum Field {
     MaxVelocity,
     /// Smallest velocity.
     MinVelocity,
+    /// Largest drop as a percentage of the inlet pressure.
+    MaxDropPercent,
     /// The velocity-by-size table.
     VelocityBySize,
     /// Check mode's pinned size.
@@ -121,7 +129,7 @@ pub enum Field {
 
 impl Field {
     /// Every field, in the order of the sheet file.
-    pub const ALL: [Field; 53] = [
+    pub const ALL: [Field; 57] = [
         Field::Line,
         Field::Name,
         Field::FedFrom,
@@ -139,6 +147,9 @@ impl Field {
         Field::FluidDensity,
         Field::FluidViscosity,
         Field::FluidKinematicViscosity,
+        Field::FluidRelativeDensity,
+        Field::FluidMolarMass,
+        Field::FluidZ,
         Field::Pipe,
         Field::PipeSeries,
         Field::PipeDiameter,
@@ -156,6 +167,7 @@ impl Field {
         Field::MaxTotalDrop,
         Field::MaxVelocity,
         Field::MinVelocity,
+        Field::MaxDropPercent,
         Field::VelocityBySize,
         Field::CheckSize,
         Field::Components,
@@ -203,6 +215,9 @@ impl Field {
             Field::FluidDensity => "fluid.density_kg_m3",
             Field::FluidViscosity => "fluid.viscosity_mpa_s",
             Field::FluidKinematicViscosity => "fluid.kinematic_viscosity_mm2_s",
+            Field::FluidRelativeDensity => "fluid.relative_density",
+            Field::FluidMolarMass => "fluid.molar_mass",
+            Field::FluidZ => "fluid.z",
             Field::Pipe => "pipe",
             Field::PipeSeries => "pipe.series",
             Field::PipeDiameter => "pipe.diameter",
@@ -220,6 +235,7 @@ impl Field {
             Field::MaxTotalDrop => "limits.max_total_drop",
             Field::MaxVelocity => "limits.max_velocity",
             Field::MinVelocity => "limits.min_velocity",
+            Field::MaxDropPercent => "limits.max_drop_percent",
             Field::VelocityBySize => "limits.velocity_by_size",
             Field::CheckSize => "check_size",
             Field::Components => "components",
@@ -261,6 +277,9 @@ impl Field {
             Field::FluidPercent => "glycol strength",
             Field::FluidDensity => "density",
             Field::FluidViscosity | Field::FluidKinematicViscosity => "viscosity",
+            Field::FluidRelativeDensity => "relative density",
+            Field::FluidMolarMass => "molar mass",
+            Field::FluidZ => "compressibility factor Z",
             Field::Pipe | Field::PipeSeries => "the pipe",
             Field::PipeDiameter => "inside diameter",
             Field::PipeMaterial => "material",
@@ -277,6 +296,7 @@ impl Field {
             Field::MaxTotalDrop => "total-drop limit",
             Field::MaxVelocity => "maximum velocity",
             Field::MinVelocity => "minimum velocity",
+            Field::MaxDropPercent => "drop limit as % of inlet pressure",
             Field::VelocityBySize => "velocity by size",
             Field::CheckSize => "checked size",
             Field::Components => "component",

@@ -132,6 +132,9 @@ pub struct Limits {
     pub min_velocity: Option<Velocity>,
     /// A largest velocity that depends on the size.
     pub velocity_by_size: Option<&'static super::velocity::VelocityRule>,
+    /// Largest total drop as a fraction of the inlet's absolute pressure
+    /// (gas and steam lines).
+    pub max_drop_fraction: Option<f64>,
 }
 
 impl Limits {
@@ -158,6 +161,11 @@ pub enum Limit {
     MaxVelocity,
     /// Smallest velocity.
     MinVelocity,
+    /// Total drop as a fraction of the inlet pressure (gas and steam).
+    DropFraction,
+    /// The flow a gas or steam line can pass before it chokes: always
+    /// checked on such a line.
+    Choking,
 }
 
 impl Limit {
@@ -168,6 +176,8 @@ impl Limit {
             Limit::TotalDrop => "total drop",
             Limit::MaxVelocity => "maximum velocity",
             Limit::MinVelocity => "minimum velocity",
+            Limit::DropFraction => "drop as a share of inlet pressure",
+            Limit::Choking => "choked flow (sonic limit)",
         }
     }
 
@@ -178,6 +188,8 @@ impl Limit {
             Limit::TotalDrop => "total_drop",
             Limit::MaxVelocity => "max_velocity",
             Limit::MinVelocity => "min_velocity",
+            Limit::DropFraction => "drop_fraction",
+            Limit::Choking => "choking",
         }
     }
 }
@@ -212,6 +224,14 @@ pub enum LineError {
     /// No maximum limit: a minimum velocity alone (or nothing) cannot pick
     /// a size, since every larger size would do.
     NoMaximum,
+    /// Something a gas or steam line cannot take (Hazen–Williams, a
+    /// component rated for liquids).
+    NotForGas {
+        /// The input at fault.
+        field: Field,
+        /// Why, as a sentence.
+        why: &'static str,
+    },
     /// A glycol mixture too close to (or below) its freezing point for the
     /// sheet's margin.
     FreezeMargin {
@@ -229,6 +249,7 @@ impl std::fmt::Display for LineError {
             LineError::NotPositive(field) => write!(f, "{} must be greater than zero", field.label()),
             LineError::NotFinite(field) => write!(f, "{} must be a finite number", field.label()),
             LineError::Roughness => write!(f, "roughness must be zero or more"),
+            LineError::NotForGas { why, .. } => write!(f, "{why}"),
             LineError::NoSizes => write!(f, "the pipe series has no sizes"),
             LineError::OutOfRange { what, min, max, .. } => {
                 write!(f, "{what} must be between {min} and {max} (SI units)")
@@ -317,6 +338,40 @@ pub struct Point {
     pub static_drop: Pressure,
     /// Friction + fittings + components, + static in an open system.
     pub total_drop: Pressure,
+    /// Both ends of a gas or steam line (`None` for a liquid).
+    pub gas: Option<GasEnds>,
+}
+
+/// The two ends of a gas or steam line at one size, by the isothermal
+/// compressible-flow equation ([`super::compressible`]).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct GasEnds {
+    /// Inlet pressure, Pa absolute.
+    pub inlet_pressure: f64,
+    /// Outlet pressure, Pa absolute (the sonic state's when choked).
+    pub outlet_pressure: f64,
+    /// Inlet density, kg/m³.
+    pub inlet_density: f64,
+    /// Outlet density, kg/m³.
+    pub outlet_density: f64,
+    /// Outlet mean velocity, m/s (the inlet's is [`Point::velocity`]).
+    pub outlet_velocity: f64,
+    /// K = f (L + L_eq)/D + ΣK.
+    pub resistance: f64,
+    /// G / G_max (1 chokes).
+    pub choke_ratio: f64,
+    /// The line cannot pass the flow at this size.
+    pub choked: bool,
+    /// Friction and fittings by Darcy–Weisbach at the inlet density, Pa:
+    /// the incompressible form, for comparison.
+    pub incompressible_drop: f64,
+}
+
+impl GasEnds {
+    /// Friction and fittings drop as a fraction of the inlet pressure.
+    pub fn fraction(&self) -> f64 {
+        (self.inlet_pressure - self.outlet_pressure) / self.inlet_pressure
+    }
 }
 
 fn within(v: f64, field: Field, what: &'static str, min: f64, max: f64) -> Result<(), LineError> {
@@ -340,7 +395,10 @@ impl LineError {
     pub fn field(&self) -> Field {
         match self {
             LineError::Fluid(_) => Field::Fluid,
-            LineError::NotPositive(f) | LineError::NotFinite(f) | LineError::OutOfRange { field: f, .. } => *f,
+            LineError::NotPositive(f)
+            | LineError::NotFinite(f)
+            | LineError::OutOfRange { field: f, .. }
+            | LineError::NotForGas { field: f, .. } => *f,
             LineError::Roughness => Field::Roughness,
             LineError::NoSizes => Field::Pipe,
             LineError::NotComputable => Field::Line,
@@ -443,6 +501,22 @@ impl Line {
                 }
             }
         }
+        if self.fluid.is_compressible() {
+            if let Method::HazenWilliams { .. } = self.method {
+                return Err(LineError::NotForGas {
+                    field: Field::HazenWilliamsC,
+                    why: "Hazen–Williams is a water formula: size a gas or steam line by Darcy–Weisbach",
+                });
+            }
+            if !self.fittings.components.is_empty() {
+                return Err(LineError::NotForGas {
+                    field: Field::Components,
+                    why: "valves and equipment by Kv, Cv or rated drop are read as liquids here: on a gas or \
+                          steam line give their resistance as K in the fittings' extra ΣK, or size control \
+                          valves by IEC 60534-2-1 and add their drop apart",
+                });
+            }
+        }
         if let Method::HazenWilliams { c } = self.method {
             positive(c, Field::HazenWilliamsC)?;
             within(c, Field::HazenWilliamsC, "Hazen–Williams C", 1.0, 250.0)?;
@@ -466,10 +540,14 @@ impl Line {
                 positive(v, what)?;
             }
         }
+        if let Some(x) = l.max_drop_fraction {
+            within(x, Field::MaxDropPercent, "drop as a fraction of inlet pressure", 1e-6, 0.9)?;
+        }
         if l.max_drop_per_length.is_none()
             && l.max_total_drop.is_none()
             && l.max_velocity.is_none()
             && l.velocity_by_size.is_none()
+            && l.max_drop_fraction.is_none()
         {
             return Err(LineError::NoMaximum);
         }
@@ -481,7 +559,8 @@ impl Line {
                 return Err(LineError::FreezeMargin { freezing_c, margin_k: self.freeze_margin });
             }
         }
-        within(props.density_kg_m3(), Field::Fluid, "density (kg/m³)", 1.0, 3e4)?;
+        let rho_min = if self.fluid.is_compressible() { 1e-3 } else { 1.0 };
+        within(props.density_kg_m3(), Field::Fluid, "density (kg/m³)", rho_min, 3e4)?;
         within(props.viscosity_pa_s(), Field::Fluid, "viscosity (Pa·s)", 1e-7, 1e3)?;
         Ok(props)
     }
@@ -527,6 +606,9 @@ impl Line {
             let q = flow.get::<uom::si::volume_rate::cubic_meter_per_second>();
             Pressure::new::<pascal>(self.fittings.components.iter().map(|c| c.drop(q, rho, d, dn)).sum())
         };
+        if self.fluid.is_compressible() {
+            return self.gas_point(props, bore, velocity, reynolds, relative_roughness, friction_factor, sum_k);
+        }
         let static_drop = losses::static_pressure(self.rise, props.density);
         Point {
             bore,
@@ -545,12 +627,86 @@ impl Line {
                 Circuit::Open => friction_drop + fittings_drop + components_drop + static_drop,
                 Circuit::Closed => friction_drop + fittings_drop + components_drop,
             },
+            gas: None,
+        }
+    }
+
+    /// A gas or steam line's point: the isothermal compressible-flow
+    /// equation over K = f (L + L_eq)/D + ΣK, the drop shared between pipe
+    /// and fittings in proportion to their K; the static term at the mean
+    /// density.
+    #[allow(clippy::too_many_arguments)]
+    fn gas_point(
+        &self,
+        props: &Properties,
+        bore: Length,
+        velocity: Velocity,
+        reynolds: f64,
+        relative_roughness: f64,
+        friction_factor: f64,
+        sum_k: f64,
+    ) -> Point {
+        let d = bore.get::<meter>();
+        let v1 = velocity.get::<meter_per_second>();
+        let rho1 = props.density_kg_m3();
+        let p1 = self.pressure.get::<pascal>();
+        let run = (self.length + self.fittings.equivalent_length.unwrap_or(Length::new::<meter>(0.0))).value;
+        let k_pipe = friction_factor * run / d;
+        let k = k_pipe + sum_k;
+        let g = rho1 * v1;
+        let iso = super::compressible::isothermal(p1, rho1, g, k);
+        let p2 = iso.outlet_pressure;
+        // A choked size is given all of the inlet pressure: it fails every
+        // drop limit, and the drop never falls as the flow grows.
+        let dp = if iso.choked { p1 } else { p1 - p2 };
+        let share = |part: f64| if k > 0.0 { dp * part / k } else { 0.0 };
+        let rho2 = rho1 * p2 / p1;
+        let gradient =
+            if k > 0.0 { friction_factor * dp / (d * k) } else { friction_factor * rho1 * v1 * v1 / (2.0 * d) };
+        let friction_drop = Pressure::new::<pascal>(share(k_pipe));
+        let fittings_drop = Pressure::new::<pascal>(share(sum_k));
+        let static_drop = Pressure::new::<pascal>(0.5 * (rho1 + rho2) * G_N * self.rise.get::<meter>());
+        Point {
+            bore,
+            velocity,
+            reynolds,
+            relative_roughness,
+            regime: Regime::of(reynolds.max(f64::MIN_POSITIVE)),
+            friction_factor,
+            drop_per_length: pa_per_m(gradient),
+            sum_k,
+            friction_drop,
+            fittings_drop,
+            components_drop: Pressure::new::<pascal>(0.0),
+            static_drop,
+            total_drop: match self.circuit {
+                Circuit::Open => friction_drop + fittings_drop + static_drop,
+                Circuit::Closed => friction_drop + fittings_drop,
+            },
+            gas: Some(GasEnds {
+                inlet_pressure: p1,
+                outlet_pressure: p2,
+                inlet_density: rho1,
+                outlet_density: rho2,
+                outlet_velocity: g / rho2,
+                resistance: k,
+                choke_ratio: iso.choke_ratio,
+                choked: iso.choked,
+                incompressible_drop: k * rho1 * v1 * v1 / 2.0,
+            }),
         }
     }
 
     /// Cautions about the method for this line, as plain sentences.
     pub fn method_warnings(&self) -> Vec<&'static str> {
         let mut out = Vec::new();
+        if let Fluid::Steam { .. } = self.fluid {
+            out.push(
+                "sized for dry steam: a steam main loses heat and condensate forms; fall the main with the flow, \
+                 drain it through drip legs and traps at low points and risers, so slugs of water cannot cause \
+                 water hammer (common practice)",
+            );
+        }
         if let Method::HazenWilliams { .. } = self.method {
             let t = self.temperature.get::<degree_celsius>();
             if !matches!(self.fluid, Fluid::Water) || !(5.0..=25.0).contains(&t) {

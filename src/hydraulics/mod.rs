@@ -4,6 +4,7 @@
 //! clock, and nothing here knows about units of display. Every formula names
 //! its source where it is defined.
 
+pub mod compressible;
 pub mod demand;
 pub mod field;
 pub mod fluid;

@@ -169,8 +169,13 @@ pub fn judge(line: &Line, p: &Point) -> (Vec<Check>, Option<Limit>) {
     } else {
         l.max_velocity.map(|v| v.value)
     };
+    // A gas speeds up along the line: its largest velocity is the outlet's.
+    let v_top = p.gas.map_or(p.velocity.value, |g| g.outlet_velocity);
     if let Some(v) = v_max {
-        checks.push(max(Limit::MaxVelocity, p.velocity.value, v));
+        checks.push(max(Limit::MaxVelocity, v_top, v));
+    }
+    if let (Some(x), Some(g)) = (l.max_drop_fraction, p.gas) {
+        checks.push(max(Limit::DropFraction, p.total_drop.value / g.inlet_pressure, x));
     }
     if let Some(v) = l.min_velocity {
         checks.push(Check {
@@ -179,6 +184,9 @@ pub fn judge(line: &Line, p: &Point) -> (Vec<Check>, Option<Limit>) {
             allowed: v.value,
             headroom: (p.velocity.value - v.value) / v.value,
         });
+    }
+    if let Some(g) = p.gas {
+        checks.push(max(Limit::Choking, g.choke_ratio, 1.0));
     }
     let binding = checks.iter().min_by(|a, b| a.headroom.total_cmp(&b.headroom)).map(|c| c.limit);
     (checks, binding)
@@ -248,6 +256,11 @@ fn count_solve() {
     SOLVES.fetch_add(1, std::sync::atomic::Ordering::Relaxed);
 }
 
+/// Past this share of the inlet pressure the isothermal equation is
+/// outside its use (Crane TP-410's guidance, as the issue of record puts
+/// it: about 40 %).
+pub const OUTSIDE_METHOD: f64 = 0.4;
+
 /// Evaluates every size and proposes the smallest that meets every limit.
 ///
 /// # Errors
@@ -285,6 +298,13 @@ pub fn size(line: &Valid) -> Result<Sizing, LineError> {
     let mut warnings: Vec<String> = line.method_warnings().into_iter().map(String::from).collect();
     if let Some(c) = proposed.map(|i| &candidates[i]) {
         let p = &c.point;
+        if let Some(g) = p.gas.filter(|g| g.fraction() > OUTSIDE_METHOD) {
+            warnings.push(format!(
+                "the drop is {:.0} % of the inlet pressure: past about 40 % the isothermal equation is outside its \
+                 use (the gas cools and may approach sonic speed); treat this answer as indicative only",
+                g.fraction() * 100.0
+            ));
+        }
         if p.static_drop.value < 0.0
             && line.circuit == super::line::Circuit::Open
             && line.limits.max_total_drop.is_some()
@@ -391,8 +411,28 @@ pub fn capacity(line: &Valid, bore: Length) -> Result<Capacity, LineError> {
     };
     let flow = |q: f64| VolumeRate::new::<cubic_meter_per_second>(q);
     let start = (area * Velocity::new::<uom::si::velocity::meter_per_second>(1.0)).value;
+    let gas = line.fluid.is_compressible();
+    let at = |q: f64| line.point(&props, bore, flow(q));
     if let Some(v) = l.max_velocity_at(line.pipe.darby_diameter_in(bore), line.temperature.value - 273.15) {
-        consider(area.value * v, Limit::MaxVelocity);
+        if gas {
+            let top = |q: f64| at(q).gas.map_or(0.0, |g| g.outlet_velocity);
+            if let Some(q) = largest_within(|q| top(q) - v, start) {
+                consider(q, Limit::MaxVelocity);
+            }
+        } else {
+            consider(area.value * v, Limit::MaxVelocity);
+        }
+    }
+    if gas {
+        if let Some(q) = largest_within(|q| at(q).gas.map_or(0.0, |g| g.choke_ratio) - 1.0, start) {
+            consider(q, Limit::Choking);
+        }
+        if let Some(x) = l.max_drop_fraction {
+            let p1 = line.pressure.value;
+            if let Some(q) = largest_within(|q| at(q).total_drop.value / p1 - x, start) {
+                consider(q, Limit::DropFraction);
+            }
+        }
     }
     if let Some(g) = l.max_drop_per_length {
         if let Some(q) = largest_within(|q| line.point(&props, bore, flow(q)).drop_per_length.value - g.value, start) {
@@ -429,6 +469,116 @@ pub struct Step {
 /// Long on purpose: one step per quantity, in the order a reviewer checks
 /// them; split up, the list would no longer read top to bottom.
 pub fn trace(line: &Valid, c: &Candidate) -> Vec<Step> {
+    let steps = liquid_trace(line, c);
+    match c.point.gas {
+        Some(g) => gas_trace(steps, &g),
+        None => steps,
+    }
+}
+
+/// A gas or steam line's trace: the liquid steps reworded where the
+/// isothermal equation replaces them, then both ends.
+fn gas_trace(steps: Vec<Step>, g: &super::line::GasEnds) -> Vec<Step> {
+    const CRANE: &str = "isothermal compressible flow: Crane TP-410, ch. 1 (p/ρ constant along the line)";
+    let mut out: Vec<Step> = steps
+        .into_iter()
+        .filter(|s| s.symbol != "Δp_c")
+        .map(|mut s| {
+            match s.symbol {
+                "ρ" => s.name = "density at the inlet (ρ₁)",
+                "V" => s.name = "mean velocity at the inlet (V₁)",
+                "Δp/L" => {
+                    s.name = "friction drop per length (mean over the run)";
+                    s.formula = "f (p₁ − p₂) / (D K)";
+                    s.source = CRANE;
+                }
+                "Δp_f" => {
+                    s.formula = "(p₁ − p₂) · f (L + L_eq)/D ÷ K";
+                    s.source = CRANE;
+                }
+                "Δp_K" => {
+                    s.formula = "(p₁ − p₂) · ΣK ÷ K";
+                    s.source = CRANE;
+                }
+                "Δp_z" => s.formula = "ρ̄ g Δz, ρ̄ = (ρ₁ + ρ₂)/2, g = 9.80665 m/s²",
+                "Δp" => s.formula = "(p₁ − p₂) + Δp_z (open system)",
+                _ => {}
+            }
+            s
+        })
+        .collect();
+    let at = out.iter().position(|s| s.symbol == "Δp/L").unwrap_or(out.len());
+    let ends = [
+        Step {
+            symbol: "K",
+            name: "line resistance",
+            formula: "K = f (L + L_eq)/D + ΣK",
+            value: g.resistance,
+            unit: "",
+            source: "Darcy–Weisbach and the fittings' K",
+        },
+        Step {
+            symbol: "p₁",
+            name: "inlet pressure (absolute)",
+            formula: "as entered",
+            value: g.inlet_pressure,
+            unit: "Pa",
+            source: "the line's fluid",
+        },
+        Step {
+            symbol: "G/G_max",
+            name: "share of the choking flow",
+            formula: "G_max = √(x* p₁ ρ₁), 1 − x*(1 + K) + x* ln x* = 0",
+            value: g.choke_ratio,
+            unit: "",
+            source: "isothermal limiting velocity V₂ = √(p₂/ρ₂) (Shapiro 1953, ch. 6)",
+        },
+        Step {
+            symbol: "p₂",
+            name: if g.choked {
+                "outlet pressure — CHOKED: the line cannot pass this flow"
+            } else {
+                "outlet pressure (absolute)"
+            },
+            formula: "p₁² − p₂² = G² (p₁/ρ₁) [K + 2 ln(p₁/p₂)], G = ρ₁ V₁",
+            value: g.outlet_pressure,
+            unit: "Pa",
+            source: CRANE,
+        },
+        Step {
+            symbol: "ρ₂",
+            name: "density at the outlet",
+            formula: "ρ₂ = ρ₁ p₂ / p₁",
+            value: g.outlet_density,
+            unit: "kg/m³",
+            source: "isothermal gas (Z constant)",
+        },
+        Step {
+            symbol: "V₂",
+            name: "mean velocity at the outlet",
+            formula: "V₂ = G / ρ₂",
+            value: g.outlet_velocity,
+            unit: "m/s",
+            source: "continuity",
+        },
+        Step {
+            symbol: "Δp_inc",
+            name: if g.incompressible_drop < 0.1 * g.inlet_pressure {
+                "incompressible form, for comparison (under 10 % of p₁: would also do)"
+            } else {
+                "incompressible form, for comparison (10 % of p₁ or more: not valid here)"
+            },
+            formula: "K ρ₁ V₁² / 2",
+            value: g.incompressible_drop,
+            unit: "Pa",
+            source: "Crane TP-410: Darcy at one density only under about 10 % of p₁",
+        },
+    ];
+    out.splice(at..at, ends);
+    out
+}
+
+fn liquid_trace(line: &Valid, c: &Candidate) -> Vec<Step> {
     count_solve();
     let props = &line.properties();
     let p = &c.point;

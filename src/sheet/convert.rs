@@ -67,6 +67,14 @@ pub fn line(l: &mut LineFile, old: &Units, new: &Units, density: Option<f64>) {
             field(temperature, Dimension::Temperature, old.temperature, new.temperature, None)
         }
         FluidFile::Custom { .. } => {}
+        FluidFile::Gas { temperature, pressure, .. } => {
+            field(temperature, Dimension::Temperature, old.temperature, new.temperature, None);
+            field(pressure, Dimension::Pressure, old.pressure, new.pressure, None);
+        }
+        FluidFile::Steam { temperature, pressure } => {
+            opt(temperature, Dimension::Temperature, old.temperature, new.temperature, None);
+            field(pressure, Dimension::Pressure, old.pressure, new.pressure, None);
+        }
     }
     // A custom bore's diameter is read in mm when bare, whatever the
     // sheet's units, so it needs no rewriting.

@@ -114,6 +114,7 @@ mod tests {
             npsh: None,
             problems: Vec::new(),
             source_density: Some(1000.0),
+            gas_inlet_pa: None,
         };
         let p = plot(&sum, &u).unwrap();
         let (l, t, r, b) = frame();

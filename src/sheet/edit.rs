@@ -55,6 +55,15 @@ impl FlowFrom {
     }
 }
 
+/// The gases a line can name, in listing order: (id, label).
+pub const GAS_CHOICES: [(&str, &str); 5] = [
+    ("air", "Air (dry)"),
+    ("nitrogen", "Nitrogen"),
+    ("carbon-dioxide", "Carbon dioxide"),
+    ("natural-gas", "Natural gas (by relative density)"),
+    ("custom", "Other gas (molar mass, μ, Z)"),
+];
+
 /// Which kind of fluid a line carries.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum FluidKind {
@@ -64,11 +73,16 @@ pub enum FluidKind {
     Glycol,
     /// Properties typed in.
     Custom,
+    /// A gas.
+    Gas,
+    /// Dry steam.
+    Steam,
 }
 
 impl FluidKind {
     /// Every kind, in listing order.
-    pub const ALL: [FluidKind; 3] = [FluidKind::Water, FluidKind::Glycol, FluidKind::Custom];
+    pub const ALL: [FluidKind; 5] =
+        [FluidKind::Water, FluidKind::Glycol, FluidKind::Custom, FluidKind::Gas, FluidKind::Steam];
 
     /// Its id (the file's `fluid.kind`).
     pub fn id(self) -> &'static str {
@@ -76,6 +90,8 @@ impl FluidKind {
             FluidKind::Water => "water",
             FluidKind::Glycol => "glycol",
             FluidKind::Custom => "custom",
+            FluidKind::Gas => "gas",
+            FluidKind::Steam => "steam",
         }
     }
 
@@ -84,7 +100,9 @@ impl FluidKind {
         match self {
             FluidKind::Water => "Water",
             FluidKind::Glycol => "Glycol in water",
-            FluidKind::Custom => "Other (enter ρ and μ)",
+            FluidKind::Custom => "Other liquid (enter ρ and μ)",
+            FluidKind::Gas => "Gas (air, nitrogen, natural gas …)",
+            FluidKind::Steam => "Steam (dry saturated or superheated)",
         }
     }
 
@@ -123,6 +141,16 @@ impl LineFile {
                 _,
             ) => temperature.clone(),
             (Field::FluidPressure, FluidFile::Water { pressure, .. }, _) => opt(pressure),
+            (Field::FluidTemperature, FluidFile::Gas { temperature, .. }, _) => temperature.clone(),
+            (Field::FluidTemperature, FluidFile::Steam { temperature, .. }, _) => opt(temperature),
+            (Field::FluidPressure, FluidFile::Gas { pressure, .. } | FluidFile::Steam { pressure, .. }, _) => {
+                pressure.clone()
+            }
+            (Field::FluidRelativeDensity, FluidFile::Gas { relative_density, .. }, _) => opt(relative_density),
+            (Field::FluidMolarMass, FluidFile::Gas { molar_mass, .. }, _) => opt(molar_mass),
+            (Field::FluidViscosity, FluidFile::Gas { viscosity_mpa_s, .. }, _) => opt(viscosity_mpa_s),
+            (Field::FluidZ, FluidFile::Gas { z, .. }, _) => opt(z),
+            (Field::MaxDropPercent, ..) => opt(&self.limits.max_drop_percent),
             (Field::FluidPercent, FluidFile::Glycol { percent, .. }, _) => percent.clone(),
             (Field::FluidDensity, FluidFile::Custom { density_kg_m3, .. }, _) => density_kg_m3.clone(),
             (Field::FluidViscosity, FluidFile::Custom { viscosity_mpa_s, .. }, _) => opt(viscosity_mpa_s),
@@ -171,6 +199,16 @@ impl LineFile {
                 _,
             ) => *temperature = text,
             (Field::FluidPressure, FluidFile::Water { pressure, .. }, _) => *pressure = some(text),
+            (Field::FluidTemperature, FluidFile::Gas { temperature, .. }, _) => *temperature = text,
+            (Field::FluidTemperature, FluidFile::Steam { temperature, .. }, _) => *temperature = some(text),
+            (Field::FluidPressure, FluidFile::Gas { pressure, .. } | FluidFile::Steam { pressure, .. }, _) => {
+                *pressure = text
+            }
+            (Field::FluidRelativeDensity, FluidFile::Gas { relative_density, .. }, _) => *relative_density = some(text),
+            (Field::FluidMolarMass, FluidFile::Gas { molar_mass, .. }, _) => *molar_mass = some(text),
+            (Field::FluidViscosity, FluidFile::Gas { viscosity_mpa_s, .. }, _) => *viscosity_mpa_s = some(text),
+            (Field::FluidZ, FluidFile::Gas { z, .. }, _) => *z = some(text),
+            (Field::MaxDropPercent, ..) => self.limits.max_drop_percent = some(text),
             (Field::FluidPercent, FluidFile::Glycol { percent, .. }, _) => *percent = text,
             (Field::FluidDensity, FluidFile::Custom { density_kg_m3, .. }, _) => *density_kg_m3 = text,
             (Field::FluidViscosity, FluidFile::Custom { viscosity_mpa_s, .. }, _) => *viscosity_mpa_s = some(text),
@@ -195,20 +233,25 @@ impl LineFile {
             FluidFile::Water { .. } => FluidKind::Water,
             FluidFile::Glycol { .. } => FluidKind::Glycol,
             FluidFile::Custom { .. } => FluidKind::Custom,
+            FluidFile::Gas { .. } => FluidKind::Gas,
+            FluidFile::Steam { .. } => FluidKind::Steam,
         }
     }
 
     /// Switches the kind of fluid, keeping the temperature. New values are
     /// starting points to be checked (common practice, not design data):
     /// water at 300 kPa absolute, 30 % propylene glycol, a custom fluid of
-    /// 1000 kg/m³ and 1.0 mPa·s.
+    /// 1000 kg/m³ and 1.0 mPa·s, air at 7 barg, dry saturated steam at
+    /// 8 barg.
     pub fn set_fluid_kind(&mut self, kind: FluidKind) {
         if kind == self.fluid_kind() {
             return;
         }
         let t = match &self.fluid {
-            FluidFile::Water { temperature, .. } | FluidFile::Glycol { temperature, .. } => temperature.clone(),
-            FluidFile::Custom { .. } => "20 °C".to_owned(),
+            FluidFile::Water { temperature, .. }
+            | FluidFile::Glycol { temperature, .. }
+            | FluidFile::Gas { temperature, .. } => temperature.clone(),
+            FluidFile::Custom { .. } | FluidFile::Steam { .. } => "20 °C".to_owned(),
         };
         self.fluid = match kind {
             FluidKind::Glycol => {
@@ -220,7 +263,41 @@ impl LineFile {
                 kinematic_viscosity_mm2_s: None,
             },
             FluidKind::Water => FluidFile::Water { temperature: t, pressure: Some("300 kPa".into()) },
+            FluidKind::Gas => FluidFile::Gas {
+                gas: "air".into(),
+                temperature: t,
+                pressure: "7 barg".into(),
+                relative_density: None,
+                molar_mass: None,
+                viscosity_mpa_s: None,
+                z: None,
+            },
+            FluidKind::Steam => FluidFile::Steam { pressure: "8 barg".into(), temperature: None },
         };
+    }
+
+    /// The gas's id (a gas line only).
+    pub fn gas_choice(&self) -> Option<&str> {
+        match &self.fluid {
+            FluidFile::Gas { gas, .. } => Some(gas),
+            _ => None,
+        }
+    }
+
+    /// Chooses the gas (a gas line only). Starting values to be checked:
+    /// natural gas of relative density 0.6; a custom gas with air's molar
+    /// mass and viscosity.
+    pub fn set_gas(&mut self, id: &str) {
+        if let FluidFile::Gas { gas, relative_density, molar_mass, viscosity_mpa_s, .. } = &mut self.fluid {
+            *gas = id.to_owned();
+            if id == "natural-gas" && relative_density.is_none() {
+                *relative_density = Some("0.6".into());
+            }
+            if id == "custom" {
+                molar_mass.get_or_insert_with(|| "28.96".into());
+                viscosity_mpa_s.get_or_insert_with(|| "0.018".into());
+            }
+        }
     }
 
     /// Chooses the glycol (a glycol line only).
@@ -511,7 +588,7 @@ mod tests {
         let mut l = line();
         let (name, flow, length) = (l.name.clone(), l.flow.clone(), l.length.clone());
         l.roughness = Some("0.2 mm".into());
-        let s = &SERVICES[SERVICES.len() - 1];
+        let s = SERVICES.iter().find(|s| s.id == "process").unwrap();
         l.apply_service(s);
         let fresh = s.new_line(&name);
         assert_eq!((l.fluid.clone(), l.pipe.clone(), l.limits.clone()), (fresh.fluid, fresh.pipe, fresh.limits));

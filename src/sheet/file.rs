@@ -33,7 +33,9 @@ pub const FORMAT: &str = "headroom-sheet";
 ///   `basis.return_run`, and the units `power` and `temperature_difference`.
 /// - 3: adds `fixtures` on a line, `basis.demand` and the sheet's `system`
 ///   (source and outlet pressures, pump curve, pump suction).
-pub const VERSION: u32 = 3;
+/// - 4: adds the fluids `gas` and `steam`, `limits.max_drop_percent`, and
+///   standard and normal volume flow units as the sheet's flow unit.
+pub const VERSION: u32 = 4;
 
 /// A whole worksheet.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
@@ -594,6 +596,42 @@ pub enum FluidFile {
         #[serde(default, skip_serializing_if = "Option::is_none")]
         kinematic_viscosity_mm2_s: Option<String>,
     },
+    /// A gas (version 4).
+    Gas {
+        /// `air`, `nitrogen`, `carbon-dioxide`, `natural-gas` or `custom`.
+        gas: String,
+        /// Temperature.
+        temperature: String,
+        /// Pressure at the line's inlet (absolute, or typed in barg/psig).
+        pressure: String,
+        /// Natural gas: relative density to air.
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        relative_density: Option<String>,
+        /// Custom gas: molar mass, g/mol.
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        molar_mass: Option<String>,
+        /// Custom gas: dynamic viscosity, mPa·s.
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        viscosity_mpa_s: Option<String>,
+        /// Custom gas: compressibility factor Z (1 when absent).
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        z: Option<String>,
+    },
+    /// Dry steam (version 4).
+    Steam {
+        /// Pressure at the line's inlet (absolute, or typed in barg/psig).
+        pressure: String,
+        /// Temperature if superheated; absent or blank: dry saturated.
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        temperature: Option<String>,
+    },
+}
+
+impl FluidFile {
+    /// Whether this fluid needs format version 4.
+    pub fn is_compressible(&self) -> bool {
+        matches!(self, FluidFile::Gas { .. } | FluidFile::Steam { .. })
+    }
 }
 
 /// Which glycol: the core's own list ([`Glycol`]) is the file's too.
@@ -730,6 +768,10 @@ pub struct LimitsFile {
     /// A velocity-by-size table, by id (`hydraulics::velocity::RULES`).
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub velocity_by_size: Option<String>,
+    /// Largest total drop as a percentage of the inlet's absolute
+    /// pressure (gas and steam lines).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub max_drop_percent: Option<String>,
 }
 
 /// A bad value in one field.
@@ -911,6 +953,14 @@ impl SheetFile {
 
     /// The oldest format version that holds everything this sheet uses.
     pub fn required_version(&self) -> u32 {
+        let standard_unit = self
+            .units
+            .flow
+            .as_deref()
+            .and_then(|t| super::units::find(super::units::Dimension::Flow, t))
+            .is_some_and(|u| u.standard().is_some());
+        let v4 = standard_unit
+            || self.lines.iter().any(|l| l.fluid.is_compressible() || l.limits.max_drop_percent.is_some());
         let v3 = self.basis.demand != Basis::default().demand
             || !self.system.is_empty()
             || self.lines.iter().any(|l| l.fixtures.is_some());
@@ -925,7 +975,9 @@ impl SheetFile {
                     || l.fed_from.is_some()
                     || l.diversity.is_some()
             });
-        if v3 {
+        if v4 {
+            4
+        } else if v3 {
             3
         } else if v2 {
             2
@@ -977,6 +1029,19 @@ impl LineFile {
                 visit("fluid.viscosity_mpa_s", viscosity_mpa_s.as_deref().unwrap_or_default());
                 visit("fluid.kinematic_viscosity_mm2_s", kinematic_viscosity_mm2_s.as_deref().unwrap_or_default());
             }
+            FluidFile::Gas { gas, temperature, pressure, relative_density, molar_mass, viscosity_mpa_s, z } => {
+                visit("fluid.gas", gas);
+                visit("fluid.temperature", temperature);
+                visit("fluid.pressure", pressure);
+                visit("fluid.relative_density", relative_density.as_deref().unwrap_or_default());
+                visit("fluid.molar_mass", molar_mass.as_deref().unwrap_or_default());
+                visit("fluid.viscosity_mpa_s", viscosity_mpa_s.as_deref().unwrap_or_default());
+                visit("fluid.z", z.as_deref().unwrap_or_default());
+            }
+            FluidFile::Steam { pressure, temperature } => {
+                visit("fluid.pressure", pressure);
+                visit("fluid.temperature", temperature.as_deref().unwrap_or_default());
+            }
         }
         match &self.pipe {
             PipeFile::Series(id) => visit("pipe.series", id),
@@ -1012,6 +1077,7 @@ impl LineFile {
             ("limits.max_total_drop", &self.limits.max_total_drop),
             ("limits.max_velocity", &self.limits.max_velocity),
             ("limits.velocity_by_size", &self.limits.velocity_by_size),
+            ("limits.max_drop_percent", &self.limits.max_drop_percent),
             ("limits.min_velocity", &self.limits.min_velocity),
         ];
         for (field, text) in optional {

@@ -24,7 +24,7 @@ use super::number::{parse_count, parse_decimal};
 use super::units::{self, Dimension, Unit};
 use crate::hydraulics::demand;
 use crate::hydraulics::field::Field;
-use crate::hydraulics::fluid::{Fluid, Properties};
+use crate::hydraulics::fluid::{gas, steam, Fluid, FluidError, Gas, Properties};
 use crate::hydraulics::line::{pa_per_m, Limits, Line, Method, Pipe, Valid};
 use crate::hydraulics::losses::{Component, Fitting, Fittings, CV_PER_KV};
 use crate::hydraulics::pipes::{self, Material};
@@ -157,7 +157,79 @@ impl Reader<'_> {
                 // one atmosphere stand in for it.
                 FluidAt { fluid, t_k: Some(293.15), p_pa: Some(ATMOSPHERE_PA) }
             }
+            FluidFile::Gas { gas, temperature: t, pressure, relative_density, molar_mass, viscosity_mpa_s, z } => {
+                let t_k = self.measure(Field::FluidTemperature, t, Dimension::Temperature, temperature, None);
+                let p_pa = self.gas_pressure(pressure);
+                let fluid = match gas.as_str() {
+                    "natural-gas" => match relative_density.as_deref().map(str::trim).filter(|t| !t.is_empty()) {
+                        Some(t) => self.number(Field::FluidRelativeDensity, t),
+                        None => {
+                            self.fail(Field::FluidRelativeDensity, "give the gas's relative density to air (e.g. 0.6)");
+                            None
+                        }
+                    }
+                    .map(|relative_density| Gas::Natural { relative_density }),
+                    "custom" => {
+                        let mut need = |field: Field, text: &Option<String>, what: &str| match text
+                            .as_deref()
+                            .map(str::trim)
+                            .filter(|t| !t.is_empty())
+                        {
+                            Some(t) => self.number(field, t),
+                            None => {
+                                self.fail(field, format!("give the gas's {what}"));
+                                None
+                            }
+                        };
+                        let m = need(Field::FluidMolarMass, molar_mass, "molar mass (g/mol)");
+                        let mu = need(Field::FluidViscosity, viscosity_mpa_s, "viscosity (mPa·s)");
+                        let z = match z.as_deref().map(str::trim).filter(|t| !t.is_empty()) {
+                            None => Some(1.0),
+                            Some(t) => self.number(Field::FluidZ, t),
+                        };
+                        m.zip(mu).zip(z).map(|((molar_mass, mu), z)| Gas::Custom {
+                            molar_mass,
+                            viscosity: mu * 1e-3,
+                            z,
+                        })
+                    }
+                    id => match gas::named(id) {
+                        Some(n) => Some(Gas::Named(n)),
+                        None => {
+                            let ids: Vec<&str> = gas::NAMED.iter().map(|n| n.id).collect();
+                            self.fail(
+                                Field::Fluid,
+                                format!(
+                                    "'{id}' is not a gas Headroom knows: {}, natural-gas or custom",
+                                    ids.join(", ")
+                                ),
+                            );
+                            None
+                        }
+                    },
+                };
+                FluidAt { fluid: fluid.map(Fluid::Gas), t_k, p_pa }
+            }
+            FluidFile::Steam { pressure, temperature: t } => {
+                let p_pa = self.gas_pressure(pressure);
+                let typed = t.as_deref().map(str::trim).filter(|t| !t.is_empty());
+                let t_k = match typed {
+                    None => p_pa.map(steam::saturation_temperature),
+                    Some(t) => self.measure(Field::FluidTemperature, t, Dimension::Temperature, temperature, None),
+                };
+                FluidAt { fluid: Some(Fluid::Steam { saturated: typed.is_none() }), t_k, p_pa }
+            }
         }
+    }
+
+    /// A gas or steam line's inlet pressure: required, absolute unless
+    /// typed in a gauge unit; a head is refused (no density before it).
+    fn gas_pressure(&mut self, text: &str) -> Option<f64> {
+        if text.trim().is_empty() {
+            self.fail(Field::FluidPressure, "give the pressure at the line's inlet (e.g. 7 barg or 8 bar absolute)");
+            return None;
+        }
+        self.measure(Field::FluidPressure, text, Dimension::Pressure, self.units.pressure, None)
     }
 
     fn properties(&mut self, at: &FluidAt) -> Option<Properties> {
@@ -165,19 +237,33 @@ impl Reader<'_> {
         match f.properties(ThermodynamicTemperature::new::<kelvin>(t), Pressure::new::<pascal>(p)) {
             Ok(props) => Some(props),
             Err(err) => {
-                self.fail(Field::Fluid, err.to_string());
+                // Placed beside the input that can put it right.
+                let field = match err {
+                    FluidError::WetSteam { .. } => Field::FluidTemperature,
+                    FluidError::GasPressure { .. } | FluidError::SteamPressure { .. } => Field::FluidPressure,
+                    FluidError::RelativeDensity { .. } => Field::FluidRelativeDensity,
+                    _ => Field::Fluid,
+                };
+                self.fail(field, err.to_string());
                 None
             }
         }
     }
 
-    fn flow(&mut self, text: &str, rho: Option<f64>) -> Option<f64> {
+    fn flow(&mut self, text: &str, rho: Option<f64>, fluid: Option<&Fluid>) -> Option<f64> {
         let unit = self.units.flow;
-        let needs_rho = units::parse(Dimension::Flow, text, unit).map(|m| m.needs_density()).unwrap_or(false);
+        let parsed = units::parse(Dimension::Flow, text, unit);
+        let needs_rho = parsed.as_ref().map(|m| m.needs_density()).unwrap_or(false);
         if rho.is_none() && needs_rho {
             return None; // the fluid's error is already reported
         }
-        self.measure(Field::Flow, text, Dimension::Flow, unit, rho)
+        match parsed.and_then(|m| m.flow_si(rho, fluid)) {
+            Ok(v) => Some(v),
+            Err(e) => {
+                self.fail(Field::Flow, e.to_string());
+                None
+            }
+        }
     }
 
     /// The flow a heat load needs: Q = Φ / (ρ c_p ΔT), with ρ and c_p of
@@ -470,6 +556,23 @@ impl Reader<'_> {
             min_velocity: self
                 .optional(Field::MinVelocity, &lim.min_velocity, Dimension::Velocity, u.velocity, None)
                 .map(Velocity::new::<meter_per_second>),
+            max_drop_fraction: match lim.max_drop_percent.as_deref().map(str::trim).filter(|t| !t.is_empty()) {
+                None => None,
+                Some(t) => match parse_decimal(t.trim_end_matches('%').trim()) {
+                    Ok(v) if v.is_finite() && v > 0.0 && v < 90.0 => Some(v / 100.0),
+                    Ok(_) => {
+                        self.fail(
+                            Field::MaxDropPercent,
+                            "give a percentage of the inlet pressure above 0 and below 90",
+                        );
+                        None
+                    }
+                    Err(e) => {
+                        self.fail(Field::MaxDropPercent, e.to_string());
+                        None
+                    }
+                },
+            },
             velocity_by_size: match lim.velocity_by_size.as_deref().map(str::trim).filter(|t| !t.is_empty()) {
                 None => None,
                 Some(id) => {
@@ -493,6 +596,7 @@ impl Reader<'_> {
             && limits.max_total_drop.is_none()
             && limits.max_velocity.is_none()
             && limits.velocity_by_size.is_none()
+            && limits.max_drop_fraction.is_none()
         {
             self.fail(
                 Field::MinVelocity,
@@ -540,8 +644,16 @@ impl LineFile {
         let flow = match (&self.load, &self.fixtures) {
             (Some(load), _) => r.load_flow(load, &at, rho, carried_w),
             (None, Some(fx)) => r.fixture_flow(fx, carried),
-            (None, None) => r.flow(&self.flow, rho),
+            (None, None) => r.flow(&self.flow, rho, at.fluid.as_ref()),
         };
+        if self.limits.max_drop_percent.as_deref().is_some_and(|t| !t.trim().is_empty())
+            && at.fluid.is_some_and(|f| !f.is_compressible())
+        {
+            r.fail(Field::MaxDropPercent, "a drop as a share of the inlet pressure is a limit for gas and steam lines");
+        }
+        if self.fixtures.is_some() && at.fluid.is_some_and(|f| f.is_compressible()) {
+            r.fail(Field::Fixtures, "fixture units give a water demand: a gas or steam line takes a flow");
+        }
         let (pipe, material) = r.pipe(&self.pipe);
         let roughness = r.roughness(self, material);
         let length = r.length(&self.length);

@@ -5,7 +5,7 @@ use serde::Serialize;
 
 use super::file::{FieldError, LineFile, SheetFile, Units};
 use super::system::Carried;
-use super::units::{format_number, from_si, show, Unit};
+use super::units::{format_number, from_si, show, show_flow, Unit};
 use crate::hydraulics::field::Field;
 use crate::hydraulics::friction::Regime;
 use crate::hydraulics::line::{Circuit, Limit, Pipe, Valid};
@@ -80,7 +80,15 @@ pub fn detail(o: &Outcome, units: &Units) -> Detail {
                 if o.shown == Some(index) { o.capacity } else { sizing::capacity(&o.line, c.point.bore).ok() };
             let capacity_text = capacity
                 .and_then(|k| k.max_flow)
-                .map(|q| show(q.value, units.flow, Some(rho), 3))
+                .map(|q| {
+                    if o.line.fluid.is_compressible() {
+                        // Mass: an actual volume at the inlet would read as
+                        // a different flow at every pressure.
+                        format!("{} kg/h", format_number(q.value * rho * 3600.0, 3))
+                    } else {
+                        show_flow(q.value, units.flow, Some(rho), Some(&o.line.fluid), 3)
+                    }
+                })
                 .unwrap_or_else(|| "—".into());
             Nearby { index, capacity, capacity_text, figures: Figures::of(c, units, rho) }
         })
@@ -263,6 +271,7 @@ pub fn limit_value(limit: Limit, si: f64, u: &Units, rho: f64) -> String {
         Limit::DropPerLength => show(si, u.drop_per_length, Some(rho), 3),
         Limit::TotalDrop => show(si, u.pressure, Some(rho), 3),
         Limit::MaxVelocity | Limit::MinVelocity => show(si, u.velocity, Some(rho), 3),
+        Limit::DropFraction | Limit::Choking => format!("{} %", format_number(si * 100.0, 3)),
     }
 }
 
@@ -365,6 +374,12 @@ pub struct Figures {
     pub headroom: String,
     /// Each limit: what it is at this size against what is allowed.
     pub checks: Vec<CheckFigures>,
+    /// A gas or steam line's two ends in one sentence: the equation,
+    /// pressures, densities and velocities at inlet and outlet, the mass
+    /// flow ("" for a liquid).
+    pub ends: String,
+    /// The size chokes: it cannot pass the flow at all.
+    pub choked: bool,
 }
 
 /// One limit at one size, as shown.
@@ -386,10 +401,18 @@ impl Figures {
     pub fn of(c: &Candidate, u: &Units, rho: f64) -> Figures {
         let p = &c.point;
         let limit_text = |limit: Limit, si: f64| limit_value(limit, si, u, rho);
+        let velocity = match p.gas {
+            Some(g) => format!(
+                "{} → {}",
+                format_number(from_si(p.velocity.value, u.velocity, None).unwrap_or(f64::NAN), 3),
+                show(g.outlet_velocity, u.velocity, None, 3)
+            ),
+            None => show(p.velocity.value, u.velocity, Some(rho), 3),
+        };
         Figures {
             size: c.nominal,
             bore: show(p.bore.value, u.bore(), Some(rho), 4),
-            velocity: show(p.velocity.value, u.velocity, Some(rho), 3),
+            velocity,
             drop_per_length: show(p.drop_per_length.value, u.drop_per_length, Some(rho), 3),
             total_drop: show(p.total_drop.value, u.pressure, Some(rho), 3),
             friction_drop: show(p.friction_drop.value, u.pressure, Some(rho), 3),
@@ -421,8 +444,40 @@ impl Figures {
                     met: k.met(),
                 })
                 .collect(),
+            ends: p.gas.map(|g| gas_ends(&g, p, u)).unwrap_or_default(),
+            choked: p.gas.is_some_and(|g| g.choked),
         }
     }
+}
+
+/// A gas or steam line's ends in words.
+fn gas_ends(g: &crate::hydraulics::line::GasEnds, p: &crate::hydraulics::line::Point, u: &Units) -> String {
+    let abs = |pa: f64| format!("{} abs", show(pa, u.pressure, None, 4));
+    let kg = |v: f64| format_number(v, 3);
+    let area = std::f64::consts::FRAC_PI_4 * p.bore.value * p.bore.value;
+    let mass_kg_h = g.inlet_density * p.velocity.value * area * 3600.0;
+    if g.choked {
+        return format!(
+            "CHOKED: this size cannot pass {} kg/h from {} — the flow would reach the isothermal sonic limit \
+             before the outlet ({} % of the choking flow)",
+            kg(mass_kg_h),
+            abs(g.inlet_pressure),
+            format_number(g.choke_ratio * 100.0, 3)
+        );
+    }
+    format!(
+        "Isothermal compressible flow (Crane TP-410): p {} → {} ({} % of inlet); ρ {} → {} kg/m³; V {} → {}; \
+         {} kg/h; {} % of the choking flow",
+        abs(g.inlet_pressure),
+        abs(g.outlet_pressure),
+        format_number(g.fraction() * 100.0, 3),
+        kg(g.inlet_density),
+        kg(g.outlet_density),
+        show(p.velocity.value, u.velocity, None, 3),
+        show(g.outlet_velocity, u.velocity, None, 3),
+        format_number(mass_kg_h, 4),
+        format_number(g.choke_ratio * 100.0, 2)
+    )
 }
 
 const COLUMNS: usize = 16;
@@ -488,6 +543,9 @@ fn table_row(r: &LineReport, u: &Units, notes: &mut Vec<String>) -> [String; COL
                 (true, false) => format!("{} (checked: FAILS)", designation(&o.line, f.size)),
                 _ => designation(&o.line, f.size),
             };
+            if !f.ends.is_empty() {
+                notes.push(format!("line {}: {}", r.number, f.ends));
+            }
             let static_drop =
                 if f.static_in_total { f.static_drop.clone() } else { format!("({}, apart)", f.static_drop) };
             [
@@ -552,6 +610,18 @@ pub fn system_lines_of(sheet: &SheetFile, sum: &super::system::Summary) -> Vec<S
     let route = |p: &super::system::Path| p.lines.iter().rev().map(|&i| name(i)).collect::<Vec<_>>().join(" → ");
     let mut out = Vec::new();
     match (sum.paths.first(), sum.head_pa, sum.flow_m3_s) {
+        (Some(p), Some(h), Some(_)) if sum.gas_inlet_pa.is_some() => {
+            let p1 = sum.gas_inlet_pa.unwrap_or(f64::NAN);
+            out.push(format!(
+                "Index path: {} — {} from the source's inlet to its end ({} % of the source's {} abs); a gas or \
+                 steam system has no pump duty. Each line is worked at the inlet pressure entered on it: give a \
+                 branch the pressure its feed leaves.",
+                route(p),
+                show(h, u.pressure, None, 3),
+                format_number(h / p1 * 100.0, 3),
+                show(p1, u.pressure, None, 4)
+            ));
+        }
         (Some(p), Some(h), Some(q)) => {
             let rho = sum.source_density;
             let supplied =
@@ -688,8 +758,18 @@ pub fn tree_lines(sheet: &SheetFile, reports: &[impl AsRef<LineReport>]) -> Vec<
         .map(|i| {
             let name = sheet.lines[i].name.trim();
             let what = match &reports[i].as_ref().outcome {
+                Ok(o) if o.line.fluid.is_compressible() => {
+                    let kg_h = o.line.flow.value * o.sizing.properties.density_kg_m3() * 3600.0;
+                    format!("{} kg/h", format_number(kg_h, 4))
+                }
                 Ok(o) => o.flow_text.clone().unwrap_or_else(|| {
-                    show(o.line.flow.value, sheet.units().flow, Some(o.sizing.properties.density_kg_m3()), 4)
+                    show_flow(
+                        o.line.flow.value,
+                        sheet.units().flow,
+                        Some(o.sizing.properties.density_kg_m3()),
+                        Some(&o.line.fluid),
+                        4,
+                    )
                 }),
                 Err(_) => "no result (see the line)".to_owned(),
             };
@@ -808,7 +888,15 @@ pub fn csv(sheet: &SheetFile, reports: &[LineReport]) -> String {
                         regime_name(pt.regime),
                         c.binding.map(|b| b.name()).unwrap_or(""),
                         csv_field(&o.verdict),
-                        csv_field(&o.sizing.warnings.join("; ")),
+                        csv_field(
+                            &o.figures
+                                .iter()
+                                .map(|f| f.ends.clone())
+                                .filter(|e| !e.is_empty())
+                                .chain(o.sizing.warnings.iter().cloned())
+                                .collect::<Vec<_>>()
+                                .join("; ")
+                        ),
                     ));
                 }
                 None => {
@@ -852,6 +940,20 @@ struct JsonCandidate<'a> {
     skipped: Option<&'static str>,
     binding_limit: Option<&'static str>,
     headroom: Vec<(&'static str, f64)>,
+    /// Gas and steam lines: the outlet by the isothermal equation.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    outlet: Option<JsonOutlet>,
+}
+
+#[derive(Serialize)]
+struct JsonOutlet {
+    equation: &'static str,
+    inlet_pressure_pa: f64,
+    outlet_pressure_pa: f64,
+    outlet_density_kg_m3: f64,
+    outlet_velocity_m_s: f64,
+    share_of_choking_flow: f64,
+    choked: bool,
 }
 
 #[derive(Serialize)]
@@ -948,6 +1050,15 @@ pub fn json(sheet: &SheetFile, reports: &[LineReport]) -> String {
                         skipped: c.skipped.map(|k| k.reason()),
                         binding_limit: c.binding.map(|b| b.id()),
                         headroom: c.checks.iter().map(|k| (k.limit.id(), k.headroom)).collect(),
+                        outlet: c.point.gas.map(|g| JsonOutlet {
+                            equation: "isothermal compressible flow (Crane TP-410)",
+                            inlet_pressure_pa: g.inlet_pressure,
+                            outlet_pressure_pa: g.outlet_pressure,
+                            outlet_density_kg_m3: g.outlet_density,
+                            outlet_velocity_m_s: g.outlet_velocity,
+                            share_of_choking_flow: g.choke_ratio,
+                            choked: g.choked,
+                        }),
                     })
                     .collect(),
             },

@@ -442,6 +442,9 @@ pub struct Summary {
     /// Density of the fluid at the index circuit's source, kg/m³ (to show
     /// its flows in mass units).
     pub source_density: Option<f64>,
+    /// The index circuit's source carries a gas or steam: its inlet
+    /// pressure, Pa absolute (no pump duty, system curve or NPSH then).
+    pub gas_inlet_pa: Option<f64>,
 }
 
 /// The pressure left at an end line.
@@ -544,9 +547,10 @@ pub fn summarise(tree: &Tree, reports: &[impl AsRef<LineReport>], u: &Units, sys
     let source = paths.first().and_then(|p| p.lines.last().copied());
     let at_source = source.and_then(|s| reports[s].as_ref().outcome.as_ref().ok());
     let rho = at_source.map(|o| o.sizing.properties.density_kg_m3());
+    let gas_inlet_pa = at_source.filter(|o| o.line.fluid.is_compressible()).map(|o| o.line.pressure.value);
     let static_pa = if open { index.map_or(0.0, |p| p.static_pa) } else { 0.0 };
-    let curve = match (flow_m3_s, head_pa) {
-        (Some(q), Some(h)) => SystemCurve::through(static_pa, q, h),
+    let curve = match (flow_m3_s, head_pa, gas_inlet_pa) {
+        (Some(q), Some(h), None) => SystemCurve::through(static_pa, q, h),
         _ => None,
     };
     let (source_pa, outlet_min_pa) = if open {
@@ -624,7 +628,7 @@ pub fn summarise(tree: &Tree, reports: &[impl AsRef<LineReport>], u: &Units, sys
         }
         _ => None,
     };
-    let npsh = npsh_of(sys, u, at_source, &mut problems);
+    let npsh = if gas_inlet_pa.is_some() { None } else { npsh_of(sys, u, at_source, &mut problems) };
     Summary {
         paths,
         head_pa,
@@ -640,6 +644,7 @@ pub fn summarise(tree: &Tree, reports: &[impl AsRef<LineReport>], u: &Units, sys
         npsh,
         problems,
         source_density: rho,
+        gas_inlet_pa,
     }
 }
 
@@ -679,10 +684,10 @@ fn npsh_of(
     let loss =
         measure(Field::SuctionLoss, Dimension::Pressure, &s.loss, u.pressure, Some(rho), Reading::AsTyped, problems)
             .unwrap_or(0.0);
-    if matches!(o.line.fluid, Fluid::Custom(_)) {
+    if !matches!(o.line.fluid, Fluid::Water | Fluid::GlycolMix(..)) {
         problems.push((
             Field::SuctionPressure,
-            "NPSH needs the fluid's vapour pressure: not known for a custom fluid".into(),
+            "NPSH needs a liquid's vapour pressure: known here for water and glycols only".into(),
         ));
         return None;
     }

@@ -14,6 +14,7 @@
 use std::fmt;
 
 use super::number::{parse_decimal, NumberError};
+use crate::hydraulics::fluid::Fluid;
 
 /// What a field measures.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
@@ -100,6 +101,11 @@ enum Scale {
     Absolute(f64),
     /// Head per length: Pa/m = value × factor (m/m) × ρ g.
     HeadPerLength(f64),
+    /// A gas's volume flow at reference conditions: m³/s at the line =
+    /// value × factor × ρ_ref / ρ, with ρ_ref the gas's density at the
+    /// reference temperature (K) and pressure (Pa absolute), described by
+    /// the text.
+    Standard(f64, f64, f64, &'static str),
 }
 
 /// A unit a person can type.
@@ -128,6 +134,12 @@ const G_N: f64 = crate::hydraulics::losses::G_N;
 /// (NIST SP 811, appendix B.8: "meter of water, conventional").
 const M_H2O: f64 = 9_806.65;
 
+/// 60 °F in kelvin: (60 + 459.67) × 5/9.
+const F60: f64 = (60.0 + 459.67) * 5.0 / 9.0;
+const NORMAL: &str = "gas at 0 °C, 101.325 kPa (DIN 1343)";
+const STANDARD_ISO: &str = "gas at 15 °C, 101.325 kPa (ISO 13443)";
+const STANDARD_US: &str = "gas at 60 °F, 14.696 psia";
+
 /// The atmospheric pressure a gauge reading is taken against: one standard
 /// atmosphere, 101 325 Pa (NIST SP 811, appendix B.8). Stated beside every
 /// pressure field that takes gauge units.
@@ -151,6 +163,15 @@ pub const UNITS: &[Unit] = &[
     unit!("kg/s", Flow, Scale::Mass(1.0), []),
     unit!("kg/h", Flow, Scale::Mass(1.0 / 3600.0), ["kg/hr"]),
     unit!("lb/h", Flow, Scale::Mass(LB / 3600.0), ["lb/hr", "lbm/h", "pph"]),
+    // Reference conditions: "normal" 0 °C and 101.325 kPa (DIN 1343);
+    // "standard" 15 °C and 101.325 kPa (ISO 13443); US standard cubic feet
+    // at 60 °F and 14.696 psia (one atmosphere; common US gas practice —
+    // compressed-air makers often use other references, so say which).
+    unit!("Nm³/h", Flow, Scale::Standard(1.0 / 3600.0, 273.15, ATMOSPHERE_PA, NORMAL), ["nm3/h", "nm3/hr", "nmh"]),
+    unit!("Nm³/min", Flow, Scale::Standard(1.0 / 60.0, 273.15, ATMOSPHERE_PA, NORMAL), ["nm3/min"]),
+    unit!("Sm³/h", Flow, Scale::Standard(1.0 / 3600.0, 288.15, ATMOSPHERE_PA, STANDARD_ISO), ["sm3/h", "sm3/hr"]),
+    unit!("SCFM", Flow, Scale::Standard(FT * FT * FT / 60.0, F60, ATMOSPHERE_PA, STANDARD_US), ["scfm", "sft3/min"]),
+    unit!("SCFH", Flow, Scale::Standard(FT * FT * FT / 3600.0, F60, ATMOSPHERE_PA, STANDARD_US), ["scfh", "sft3/h"]),
     unit!("Pa", Pressure, Scale::Linear(1.0), []),
     unit!("kPa", Pressure, Scale::Linear(1e3), []),
     unit!("MPa", Pressure, Scale::Linear(1e6), []),
@@ -236,11 +257,22 @@ impl Unit {
         }
     }
 
-    /// What the unit means, for the unit menus: heads say whose.
+    /// What the unit means, for the unit menus: heads say whose, a
+    /// standard volume its reference conditions.
     pub fn meaning(&self) -> &'static str {
         match self.scale {
             Scale::Head(_) | Scale::HeadPerLength(_) => "head of the line's own fluid",
+            Scale::Standard(.., text) => text,
             _ => "",
+        }
+    }
+
+    /// A standard or normal volume unit's reference temperature (K) and
+    /// pressure (Pa absolute).
+    pub fn standard(&self) -> Option<(f64, f64)> {
+        match self.scale {
+            Scale::Standard(_, t, p, _) => Some((t, p)),
+            _ => None,
         }
     }
 }
@@ -262,6 +294,8 @@ pub enum UnitError {
     },
     /// A head or mass flow needs a density that is not known.
     NeedsDensity(&'static str),
+    /// A standard or normal volume is a gas's: not for a liquid or steam.
+    NeedsGas(&'static str),
     /// The value is a number, but in SI units it overflows to infinity or
     /// underflows to zero in double precision.
     OutOfReach {
@@ -284,6 +318,11 @@ impl fmt::Display for UnitError {
                 write!(f, "'{unit}' is not a unit of {}; use one of {}", dimension.name(), list.join(", "))
             }
             UnitError::NeedsDensity(u) => write!(f, "{u} needs the fluid's density, which is not known yet"),
+            UnitError::NeedsGas(u) => write!(
+                f,
+                "{u} is a volume of gas at reference conditions: for a liquid or steam give a volume or mass flow \
+                 (L/s, m³/h, kg/h …)"
+            ),
             UnitError::OutOfReach { value, unit } => {
                 write!(f, "'{value:e} {unit}' is too far from any real value to compute with")
             }
@@ -320,6 +359,7 @@ impl Measure {
             Scale::HeadPerLength(k) => self.value * k * rho()? * G_N,
             Scale::Gauge(k) => self.value * k + ATMOSPHERE_PA,
             Scale::Absolute(k) => self.value * k,
+            Scale::Standard(..) => return Err(UnitError::NeedsGas(self.unit.symbol)),
         };
         let underflow =
             si == 0.0 && self.value != 0.0 && !matches!(self.unit.scale, Scale::Affine(..) | Scale::Gauge(_));
@@ -331,7 +371,70 @@ impl Measure {
 
     /// Whether converting needs a density.
     pub fn needs_density(&self) -> bool {
-        matches!(self.unit.scale, Scale::Mass(_) | Scale::Head(_) | Scale::HeadPerLength(_))
+        matches!(self.unit.scale, Scale::Mass(_) | Scale::Head(_) | Scale::HeadPerLength(_) | Scale::Standard(..))
+    }
+
+    /// A flow in SI (actual m³/s at the line), given the line's density
+    /// and fluid: as [`Measure::to_si`], and a standard or normal volume by
+    /// the gas's density at the unit's reference conditions.
+    ///
+    /// # Errors
+    /// As [`Measure::to_si`]; [`UnitError::NeedsGas`] for a standard
+    /// volume of anything but a gas.
+    pub fn flow_si(&self, density: Option<f64>, fluid: Option<&Fluid>) -> Result<f64, UnitError> {
+        match self.unit.scale {
+            Scale::Standard(k, t, p, _) => {
+                let rho_ref =
+                    fluid.and_then(|f| f.reference_density(t, p)).ok_or(UnitError::NeedsGas(self.unit.symbol))?;
+                Measure { value: self.value, unit: self.unit }.scaled_mass(k, density.map(|r| r / rho_ref))
+            }
+            _ => self.to_si(density),
+        }
+    }
+
+    fn scaled_mass(&self, k: f64, ratio: Option<f64>) -> Result<f64, UnitError> {
+        let r = ratio.filter(|d| d.is_finite() && *d > 0.0).ok_or(UnitError::NeedsDensity(self.unit.symbol))?;
+        let si = self.value * k / r;
+        if !si.is_finite() || (si == 0.0 && self.value != 0.0) {
+            return Err(UnitError::OutOfReach { value: self.value, unit: self.unit.symbol });
+        }
+        Ok(si)
+    }
+}
+
+/// A flow (actual m³/s at the line) in `unit`, with the line's density and
+/// fluid: standard and normal volumes through the gas's reference density.
+///
+/// # Errors
+/// As [`from_si`]; [`UnitError::NeedsGas`] for a standard volume of
+/// anything but a gas.
+pub fn flow_from_si(
+    si: f64,
+    unit: &'static Unit,
+    density: Option<f64>,
+    fluid: Option<&Fluid>,
+) -> Result<f64, UnitError> {
+    match unit.scale {
+        Scale::Standard(k, t, p, _) => {
+            let rho_ref = fluid.and_then(|f| f.reference_density(t, p)).ok_or(UnitError::NeedsGas(unit.symbol))?;
+            let rho = density.filter(|d| d.is_finite() && *d > 0.0).ok_or(UnitError::NeedsDensity(unit.symbol))?;
+            Ok(si * rho / rho_ref / k)
+        }
+        _ => from_si(si, unit, density),
+    }
+}
+
+/// A flow shown in `unit` (see [`flow_from_si`]); "—" when it cannot be.
+pub fn show_flow(
+    si: f64,
+    unit: &'static Unit,
+    density: Option<f64>,
+    fluid: Option<&Fluid>,
+    significant: usize,
+) -> String {
+    match flow_from_si(si, unit, density, fluid) {
+        Ok(v) if v.is_finite() => format(v, unit, significant),
+        _ => "—".to_owned(),
     }
 }
 
@@ -347,6 +450,7 @@ pub fn from_si(si: f64, unit: &'static Unit, density: Option<f64>) -> Result<f64
         Scale::Affine(offset, k) => si / k - offset,
         Scale::Mass(k) => si * rho()? / k,
         Scale::Head(k) | Scale::HeadPerLength(k) => si / (k * rho()? * G_N),
+        Scale::Standard(..) => return Err(UnitError::NeedsGas(unit.symbol)),
     })
 }
 

@@ -11,7 +11,7 @@ use crate::hydraulics::field::Field;
 use crate::hydraulics::fluid::Glycol;
 use crate::hydraulics::losses::Fitting;
 use crate::hydraulics::pipes::{Material, SERIES};
-use crate::sheet::edit::{FlowFrom, FluidKind, CUSTOM_BORE};
+use crate::sheet::edit::{FlowFrom, FluidKind, CUSTOM_BORE, GAS_CHOICES};
 use crate::sheet::file::{FluidFile, MethodName};
 use crate::sheet::number::parse_count;
 use crate::sheet::presets::{Service, SERVICES};
@@ -19,7 +19,7 @@ use crate::sheet::units::{self, Dimension};
 
 /// The fields whose errors the editor shows beside an input (each fitting
 /// row checks its own count); the others are listed at the top.
-pub const BESIDE_INPUTS: [Field; 31] = [
+pub const BESIDE_INPUTS: [Field; 35] = [
     Field::FedFrom,
     Field::Fixtures,
     Field::FixtureCount,
@@ -38,6 +38,9 @@ pub const BESIDE_INPUTS: [Field; 31] = [
     Field::FluidPercent,
     Field::FluidDensity,
     Field::FluidViscosity,
+    Field::FluidRelativeDensity,
+    Field::FluidMolarMass,
+    Field::FluidZ,
     Field::PipeSeries,
     Field::PipeDiameter,
     Field::Roughness,
@@ -51,6 +54,7 @@ pub const BESIDE_INPUTS: [Field; 31] = [
     Field::MaxTotalDrop,
     Field::MaxVelocity,
     Field::MinVelocity,
+    Field::MaxDropPercent,
 ];
 
 /// One text input of the selected line, with its error beside it.
@@ -213,8 +217,45 @@ fn FlowAndFluid() -> impl IntoView {
                     <LineText field=Field::FluidDensity label="Density" id="fluid-density" suffix="kg/m³"/>
                     <LineText field=Field::FluidViscosity label="Dynamic viscosity" id="fluid-viscosity" suffix="mPa·s"/>
                 }.into_any(),
+                FluidKind::Gas => view! { <GasFields/> }.into_any(),
+                FluidKind::Steam => view! {
+                    <LineText field=Field::FluidPressure label="Pressure at the inlet (absolute; barg or psig = gauge + 101.325 kPa)" id="fluid-pressure" unit=Dimension::Pressure placeholder="e.g. 8 barg"/>
+                    <LineText field=Field::FluidTemperature label="Temperature, if superheated" id="fluid-temperature" unit=Dimension::Temperature placeholder="dry saturated if empty"/>
+                    <p class="hint">"Wet steam is refused: a temperature below saturation at this pressure is an error."</p>
+                }.into_any(),
             }}
         </fieldset>
+    }
+}
+
+/// A gas line's fluid: which gas, its state at the inlet, and what a
+/// natural or custom gas needs.
+#[component]
+fn GasFields() -> impl IntoView {
+    let line = expect_context::<Slot>();
+    let file = line.file;
+    let gas = Memo::new(move |_| file.with(|f| f.gas_choice().unwrap_or("air").to_owned()));
+    view! {
+        <div class="field">
+            <label for="gas-kind">"Gas"</label>
+            <select id="gas-kind" data-testid="gas-kind"
+                on:change=move |ev| { let v = event_target_value(&ev); file.update(|f| f.set_gas(&v)) }>
+                {GAS_CHOICES.into_iter().map(|(id, label)| view! { <option value=id selected=move || gas.with(|g| g == id)>{label}</option> }).collect_view()}
+            </select>
+        </div>
+        <LineText field=Field::FluidPressure label="Pressure at the inlet (absolute; barg or psig = gauge + 101.325 kPa)" id="fluid-pressure" unit=Dimension::Pressure placeholder="e.g. 7 barg"/>
+        <LineText field=Field::FluidTemperature label="Temperature" id="fluid-temperature" unit=Dimension::Temperature/>
+        {move || match gas.get().as_str() {
+            "natural-gas" => view! {
+                <LineText field=Field::FluidRelativeDensity label="Relative density (air = 1)" id="gas-relative-density" inputmode="decimal" placeholder="e.g. 0.6"/>
+            }.into_any(),
+            "custom" => view! {
+                <LineText field=Field::FluidMolarMass label="Molar mass" id="gas-molar-mass" suffix="g/mol" inputmode="decimal"/>
+                <LineText field=Field::FluidViscosity label="Dynamic viscosity" id="fluid-viscosity" suffix="mPa·s" inputmode="decimal"/>
+                <LineText field=Field::FluidZ label="Compressibility factor Z" id="gas-z" inputmode="decimal" placeholder="1 (ideal gas)"/>
+            }.into_any(),
+            _ => ().into_any(),
+        }}
     }
 }
 
@@ -316,6 +357,9 @@ fn LimitFields() -> impl IntoView {
             <LineText field=Field::MaxTotalDrop label="Largest total drop" id="max-total-drop" unit=Dimension::Pressure placeholder="none"/>
             <LineText field=Field::MaxVelocity label="Largest velocity" id="max-velocity" unit=Dimension::Velocity placeholder="none"/>
             <LineText field=Field::MinVelocity label="Smallest velocity (optional)" id="min-velocity" unit=Dimension::Velocity placeholder="none"/>
+            {move || line.file.with(|f| f.fluid.is_compressible()).then(|| view! {
+                <LineText field=Field::MaxDropPercent label="Largest drop, % of inlet pressure (absolute)" id="max-drop-percent" suffix="%" inputmode="decimal" placeholder="none"/>
+            })}
             <div class="field">
                 <label for="velocity-by-size">"Largest velocity by size"</label>
                 <select id="velocity-by-size" data-testid="velocity-by-size"

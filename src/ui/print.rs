@@ -23,6 +23,8 @@ pub const SOURCES: &[&str] = &[
     "Pipe dimensions: ASME B36.10M, B36.19M; ASTM B88, D1785; EN 10255; EN 1057; ISO 4065 / EN 12201-2. Plastic bores on the mean wall (minimum plus half the tolerance: ASTM D1785; ISO 11922-1 grade V).",
     "Valves and equipment: Kv/Cv by IEC 60534-2-1 (Cv = 1.156 Kv, ρ₀ = 1000 kg/m³); rated drops scaled by (Q/Q_r)²; butterfly valves and reducers by Crane TP-410.",
     "Roughness: Moody (1944); Idelchik, Handbook of Hydraulic Resistance; common practice where marked.",
+    "Gases: gas law with Z by the Pitzer–Abbott virial correlation (critical constants, Poling et al. 2001); viscosity by Sutherland's law (White, Viscous Fluid Flow); natural gas by Sutton (1985) and Lee, Gonzalez & Eakin (1966).",
+    "Steam: IAPWS-IF97 region 2 (density) and region 4 (saturation); IAPWS 2008 viscosity. Gas and steam lines: isothermal compressible flow (Crane TP-410); standard volumes at their stated reference conditions.",
     "Units: NIST SP 811 (2008); g = 9.80665 m/s².",
 ];
 
@@ -48,6 +50,25 @@ fn fluid_text(f: &LineFile) -> String {
                 .or_else(|| kinematic_viscosity_mm2_s.as_ref().map(|n| format!("ν {n} mm²/s")))
                 .unwrap_or_default()
         ),
+        FluidFile::Gas { gas, temperature, pressure, relative_density, molar_mass, viscosity_mpa_s, z } => {
+            let what = match gas.as_str() {
+                "natural-gas" => {
+                    format!("natural gas, relative density {}", relative_density.as_deref().unwrap_or("?"))
+                }
+                "custom" => format!(
+                    "gas entered: M {} g/mol, μ {} mPa·s, Z {}",
+                    molar_mass.as_deref().unwrap_or("?"),
+                    viscosity_mpa_s.as_deref().unwrap_or("?"),
+                    z.as_deref().unwrap_or("1")
+                ),
+                id => id.replace('-', " "),
+            };
+            format!("{what} at {temperature}, {pressure} at the inlet (gauge taken against 101.325 kPa)")
+        }
+        FluidFile::Steam { pressure, temperature } => match temperature.as_deref().filter(|t| !t.trim().is_empty()) {
+            Some(t) => format!("superheated steam at {t}, {pressure} at the inlet (gauge taken against 101.325 kPa)"),
+            None => format!("dry saturated steam, {pressure} at the inlet (gauge taken against 101.325 kPa)"),
+        },
     }
 }
 
@@ -144,6 +165,7 @@ fn PrintLine(line: Slot, number: usize, stamp: RwSignal<u32>) -> impl IntoView {
                     f.limits.max_total_drop.as_ref().map(|v| format!("total drop ≤ {v}")),
                     f.limits.max_velocity.as_ref().map(|v| format!("velocity ≤ {v}")),
                     f.limits.min_velocity.as_ref().map(|v| format!("velocity ≥ {v}")),
+                    f.limits.max_drop_percent.as_ref().map(|v| format!("drop ≤ {v} % of inlet pressure")),
                 ]
                 .into_iter()
                 .flatten()
@@ -196,6 +218,7 @@ fn PrintLine(line: Slot, number: usize, stamp: RwSignal<u32>) -> impl IntoView {
                 view! {
                     <p class="print-answer"><strong>{answer}</strong></p>
                     <p data-testid="print-verdict">{verdict}</p>
+                    {o.figures.as_ref().filter(|f| !f.ends.is_empty()).map(|f| view! { <p data-testid="print-ends">{f.ends.clone()}</p> })}
                     <p><em>"Assumptions: "</em>{assumptions}</p>
                     {(!warnings.is_empty()).then(|| view! { <p class="bad">{warnings}</p> })}
                 }.into_any()

@@ -94,6 +94,7 @@ fn Answer(o: Outcome) -> impl IntoView {
                         {(!fig.components_drop.is_empty()).then(|| format!(" + valves and equipment {}", fig.components_drop))}
                         {if fig.static_in_total { format!(" + static {}", fig.static_drop) } else { format!("; static {} shown apart (closed loop)", fig.static_drop) }}
                     </p>
+                    {(!fig.ends.is_empty()).then(|| view! { <p class="ends" class:warn=fig.choked data-testid="answer-ends">{fig.ends.clone()}</p> })}
                     {(!o.checked).then(|| view! { <p class="verdict-line" data-testid="answer-verdict">{verdict}</p> })}
                     <p class="headroom-title">"Headroom to each limit"</p>
                     <ul class="headroom">{rows}</ul>
@@ -116,6 +117,7 @@ fn SizeTable(o: Outcome, d: Detail, file: RwSignal<crate::sheet::file::LineFile>
             let c: &Candidate = &o.sizing.candidates[i];
             let f = near.figures.clone();
             let verdict = match (c.passes(), c.skipped) {
+                _ if f.choked => "chokes",
                 (_, Some(k)) => k.reason(),
                 (true, None) => "meets",
                 (false, None) => "fails",

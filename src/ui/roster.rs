@@ -166,7 +166,13 @@ fn RosterRow(line: Slot) -> impl IntoView {
         let method = u.basis.demand;
         line.report.with(|r| {
             let o = r.outcome.as_ref().ok()?;
-            let q = units::show(o.line.flow.value, u.flow, Some(o.sizing.properties.density_kg_m3()), 3);
+            let q = units::show_flow(
+                o.line.flow.value,
+                u.flow,
+                Some(o.sizing.properties.density_kg_m3()),
+                Some(&o.line.fluid),
+                3,
+            );
             line.place.with(|p| {
                 let c = p.carried?;
                 Some(if file.with(|f| f.fixtures.is_some() && f.load.is_none()) {

@@ -5,7 +5,10 @@ target/reference/*.json; nothing here is committed output.
 
 - fluids (Caleb Bell): Colebrook, pipe schedules, Darby 3-K constants.
 - CoolProp: water (IAPWS-95) and INCOMP::MEG / INCOMP::MPG glycols.
-- iapws (J. Romera): IAPWS-IF97 region 1 and IAPWS 2008 viscosity.
+- iapws (J. Romera): IAPWS-IF97 regions 1 and 2, IAPWS 2008 viscosity.
+- fluids.compressible: the isothermal gas-flow equation and its choking
+  pressure; CoolProp for gases (air, N2, CO2, methane, a natural-gas mix)
+  and steam.
 """
 import json
 import math
@@ -184,4 +187,74 @@ for kind, pct, t_c, p_pa, power_w, dt in [
     loads.append({"kind": kind, "percent": pct, "t_c": t_c, "p_pa": p_pa, "power_w": power_w, "dt_k": dt,
                   "flow_m3_s": power_w / (rho * cp * dt)})
 dump("loads.json", {"versions": versions, "cases": loads})
+
+# Gases: CoolProp (HEOS) density and viscosity over the working range.
+# Natural gas is checked as pure methane (relative density 16.043/28.9647)
+# and as a 90/7/3 methane-ethane-propane mixture.
+gases = []
+for name, fl, rel in [("air", "Air", None), ("nitrogen", "Nitrogen", None), ("carbon-dioxide", "CarbonDioxide", None),
+                      ("natural-gas", "Methane", None),
+                      ("natural-gas", "HEOS::Methane[0.9]&Ethane[0.07]&Propane[0.03]", None)]:
+    molar = CP.PropsSI("M", "T", 300, "P", 101325, fl) * 1000
+    for t_c in [-20.0, 0.0, 15.0, 25.0, 40.0, 80.0, 150.0]:
+        for p_bar in [0.5, 1.01325, 3.0, 8.0, 13.0, 21.0, 31.0]:
+            T, P = t_c + 273.15, p_bar * 1e5
+            try:
+                phase = CP.PhaseSI("T", T, "P", P, fl)
+                if "gas" not in phase and "supercritical" not in phase:
+                    continue
+                rho = CP.PropsSI("D", "T", T, "P", P, fl)
+                mu = CP.PropsSI("V", "T", T, "P", P, fl)
+            except ValueError:
+                continue
+            gases.append({"gas": name, "coolprop": fl, "molar_mass": molar, "t_c": t_c, "p_pa": P,
+                          "rho": rho, "mu": mu, "z": P * molar / 1000 / (rho * 8.314462618 * T)})
+dump("gases.json", {"versions": versions, "points": gases})
+
+# Steam: IF97 (iapws) and IAPWS-95 (CoolProp) at saturation and superheated.
+steam = []
+for p_bar in [0.2, 1.01325, 2.0, 4.5, 8.0, 11.0, 17.0, 26.0, 41.0, 61.0, 90.0]:
+    P = p_bar * 1e5
+    tsat = CP.PropsSI("T", "P", P, "Q", 1, "Water")
+    for superheat in [None, 10.0, 60.0, 150.0, 300.0]:
+        T = tsat if superheat is None else tsat + superheat
+        if T - 273.15 > 600:
+            continue
+        # Saturated: IF97's own saturation state (its T differs from
+        # IAPWS-95's by millikelvins, enough to land on the liquid side).
+        if97 = IAPWS97(P=P / 1e6, x=1) if superheat is None else IAPWS97(T=T, P=P / 1e6)
+        if superheat is None:
+            rho_cp = CP.PropsSI("D", "P", P, "Q", 1, "Water")
+            mu_cp = CP.PropsSI("V", "P", P, "Q", 1, "Water")
+        else:
+            rho_cp = CP.PropsSI("D", "T", T, "P", P, "Water")
+            mu_cp = CP.PropsSI("V", "T", T, "P", P, "Water")
+        steam.append({"p_pa": P, "t_k": T, "saturated": superheat is None, "t_sat_k": tsat,
+                      "rho_if97": if97.rho, "rho_coolprop": rho_cp, "mu_coolprop": mu_cp,
+                      "mu_iapws2008": _Viscosity(if97.rho, T)})
+dump("steam.json", {"versions": versions, "points": steam})
+
+# The isothermal compressible-flow equation: fluids' isothermal_gas for
+# the outlet pressure, and P_isothermal_critical_flow for the choking
+# outlet pressure, over a spread of inlet pressures, sizes and flows.
+from fluids.compressible import isothermal_gas, P_isothermal_critical_flow
+iso = []
+for P1 in [1.2e5, 4e5, 8e5, 2e6]:
+    for D in [0.0266, 0.0525, 0.1023, 0.2027]:
+        for L in [10.0, 80.0, 400.0]:
+            for fd in [0.015, 0.022, 0.03]:
+                rho = P1 * 0.0289647 / (8.314462618 * 293.15)
+                A = math.pi * D * D / 4
+                for frac in [0.2, 0.5, 0.8, 0.95]:
+                    # A flow that is a fraction of the largest the line can pass.
+                    p_crit = P_isothermal_critical_flow(P=P1, fd=fd, D=D, L=L)
+                    m_max = isothermal_gas(rho=rho, fd=fd, P1=P1, P2=p_crit, L=L, D=D)
+                    m = frac * m_max
+                    try:
+                        p2 = isothermal_gas(rho=rho, fd=fd, P1=P1, L=L, D=D, m=m)
+                    except Exception:
+                        continue
+                    iso.append({"p1": P1, "rho1": rho, "d": D, "l": L, "fd": fd, "m": m, "p2": p2,
+                                "m_max": m_max, "p_crit": p_crit})
+dump("isothermal.json", {"versions": versions, "cases": iso})
 print("reference values written to %s (%s)" % (out, ", ".join("%s %s" % kv for kv in versions.items())))

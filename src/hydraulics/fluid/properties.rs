@@ -75,6 +75,49 @@ pub enum FluidError {
     Custom(&'static str),
     /// A heat load on a fluid with no specific heat (one typed in).
     NoSpecificHeat,
+    /// A gas's pressure outside the range Headroom evaluates gases at.
+    GasPressure {
+        /// Pressure asked, Pa absolute.
+        p_pa: f64,
+        /// Lowest accepted, Pa absolute.
+        min_pa: f64,
+        /// Highest accepted, Pa absolute.
+        max_pa: f64,
+    },
+    /// Steam's pressure outside the range Headroom evaluates steam at.
+    SteamPressure {
+        /// Pressure asked, Pa absolute.
+        p_pa: f64,
+        /// Lowest accepted, Pa absolute.
+        min_pa: f64,
+        /// Highest accepted, Pa absolute.
+        max_pa: f64,
+    },
+    /// A gas so far from ideal that the virial form cannot be trusted.
+    NotNearIdeal {
+        /// Z the correlation gives.
+        z: f64,
+        /// The lowest Z accepted.
+        floor: f64,
+    },
+    /// A natural gas's relative density outside the correlations' range.
+    RelativeDensity {
+        /// What was asked.
+        value: f64,
+        /// Lowest accepted.
+        min: f64,
+        /// Highest accepted.
+        max: f64,
+    },
+    /// Steam below its saturation temperature: wet steam or water.
+    WetSteam {
+        /// Temperature asked, °C.
+        t_c: f64,
+        /// Saturation temperature at the pressure, °C.
+        t_sat_c: f64,
+        /// Pressure, Pa absolute.
+        p_pa: f64,
+    },
 }
 
 impl std::fmt::Display for FluidError {
@@ -106,9 +149,38 @@ impl std::fmt::Display for FluidError {
                 max * 100.0
             ),
             FluidError::Custom(what) => write!(f, "{what} must be a positive number"),
+            FluidError::GasPressure { p_pa, min_pa, max_pa } => write!(
+                f,
+                "{:.1} kPa absolute is outside the {:.0} kPa to {:.0} MPa absolute that Headroom evaluates gases at",
+                p_pa / 1e3,
+                min_pa / 1e3,
+                max_pa / 1e6
+            ),
+            FluidError::SteamPressure { p_pa, min_pa, max_pa } => write!(
+                f,
+                "{:.1} kPa absolute is outside the {:.0} kPa to {:.0} MPa absolute that Headroom evaluates steam at",
+                p_pa / 1e3,
+                min_pa / 1e3,
+                max_pa / 1e6
+            ),
+            FluidError::NotNearIdeal { z, floor } => write!(
+                f,
+                "the gas is too far from ideal here (Z = {z:.3}, below {floor}) for the virial correlation: it may \
+                 be near condensing; use a custom gas with a compressibility factor from a reliable source"
+            ),
+            FluidError::RelativeDensity { value, min, max } => {
+                write!(f, "relative density {value} is outside {min}–{max} for a methane-rich natural gas")
+            }
+            FluidError::WetSteam { t_c, t_sat_c, p_pa } => write!(
+                f,
+                "{t_c:.1} °C is below the saturation temperature {t_sat_c:.1} °C at {:.1} kPa absolute: that is wet \
+                 steam or water, which Headroom does not size; leave the temperature blank for dry saturated steam",
+                p_pa / 1e3
+            ),
             FluidError::NoSpecificHeat => write!(
                 f,
-                "a heat load needs the fluid's specific heat, which a fluid typed in does not have: enter a flow"
+                "a heat load gives a flow only for a liquid whose specific heat Headroom knows (water, glycol): \
+                 for this fluid enter a flow"
             ),
         }
     }
