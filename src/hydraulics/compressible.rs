@@ -26,26 +26,28 @@ pub struct Isothermal {
 }
 
 /// x* = (p₂*/p₁)² at which a line of resistance `k` just chokes: the root
-/// of 1 − x(1 + K) + x ln x = 0 in (0, 1], by bisection (the function
-/// falls monotonically from 1 at x = 0 to −K at x = 1).
+/// of g(x) = 1 − x(1 + K) + x ln x = 0 in (0, 1]. g falls from 1 at x = 0
+/// to −K at x = 1 and is convex (g″ = 1/x), so Newton's method from the
+/// left never overshoots the root: it climbs to it monotonically, here to
+/// a relative step of 1e-14 (a bisection guard keeps it inside (0, 1)).
 pub fn choking_x(k: f64) -> f64 {
-    let g = |x: f64| 1.0 - x * (1.0 + k) + x * x.ln();
     if k <= 0.0 {
         return 1.0;
     }
-    let (mut lo, mut hi) = (0.0f64, 1.0f64);
-    for _ in 0..200 {
-        let mid = 0.5 * (lo + hi);
-        if g(mid) >= 0.0 {
-            lo = mid;
-        } else {
-            hi = mid;
-        }
-        if hi - lo < 1e-15 {
+    let g = |x: f64| 1.0 - x * (1.0 + k) + x * x.ln();
+    // The first Newton step from x → 0: g ≈ 1, g′ ≈ ln x − K.
+    let mut x = 1.0 / (1.0 + k + (1.0 + k).ln());
+    for _ in 0..100 {
+        let step = g(x) / (k - x.ln());
+        let next = x + step;
+        let next = if next.is_finite() && next > 0.0 && next < 1.0 { next } else { 0.5 * (x + 1.0) };
+        let done = (next - x).abs() <= 1e-14 * x;
+        x = next;
+        if done {
             break;
         }
     }
-    lo
+    x
 }
 
 /// The largest mass flux, kg/(m²·s), a line of resistance `k` can pass
@@ -129,6 +131,15 @@ mod tests {
         let dp = p1 - isothermal(p1, rho1, g, k).outlet_pressure;
         let darcy = k * g * g / (2.0 * rho1);
         assert!(((dp - darcy) / darcy).abs() < 2e-3, "{dp} vs {darcy}");
+    }
+
+    #[test]
+    fn the_choking_root_solves_its_equation_for_any_resistance() {
+        for k in [1e-3, 0.1, 1.0, 10.0, 100.0, 1e4, 1e7] {
+            let x = choking_x(k);
+            let g = 1.0 - x * (1.0 + k) + x * x.ln();
+            assert!(x > 0.0 && x < 1.0 && g.abs() < 1e-12, "K {k}: x {x}, g {g}");
+        }
     }
 
     #[test]
