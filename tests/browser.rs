@@ -58,7 +58,8 @@ fn core_answer(sheet: &Sheet, index: usize) -> String {
     let file = sheet.lines.with_untracked(|v| v[index].file.get_untracked());
     let r = evaluate_line(1, &file, &Units::defaults(System::Si));
     let o = r.outcome.unwrap();
-    o.sizing.candidates[o.shown.unwrap()].nominal.to_owned()
+    // The page writes a size with its designation ("NPS 4"), never bare.
+    headroom::sheet::report::designation(&o.line, o.sizing.candidates[o.shown.unwrap()].nominal)
 }
 
 #[wasm_bindgen_test]
@@ -198,7 +199,8 @@ async fn check_mode_pins_a_size_and_the_path_adds_up_drops() {
     let rows = root.query_selector_all("[data-testid=size-row] th").unwrap();
     let names: Vec<String> = (0..rows.length()).map(|i| rows.item(i).unwrap().text_content().unwrap()).collect();
     let bigger = names[names.iter().position(|n| *n == proposed).unwrap() + 1].clone();
-    find(&root, &format!("pin-{bigger}")).unchecked_ref::<HtmlElement>().click();
+    assert!(bigger.starts_with("NPS "), "{bigger}");
+    find(&root, &format!("pin-{}", bigger.trim_start_matches("NPS "))).unchecked_ref::<HtmlElement>().click();
     leptos::task::tick().await;
     assert_eq!(text(&root, "proposed-size"), bigger);
     assert!(text(&root, "answer").contains("Checked size"));
@@ -377,8 +379,9 @@ async fn valves_smallest_size_and_velocity_by_size_are_set_from_the_editor() {
     let verdict = evaluate_line(1, &file, &Units::defaults(System::Si)).outcome.unwrap().verdict;
     assert!(verdict.starts_with("governed by ") || verdict.contains("smallest size searched"), "{verdict}");
     assert_eq!(text(&root, "answer-verdict").to_lowercase(), verdict.to_lowercase());
-    // The designation reads with its unit system's name for the size.
-    assert!(text(&root, "answer-designation").starts_with("NPS "));
+    // The size reads with its designation, never bare; the series below it.
+    assert!(text(&root, "proposed-size").starts_with("NPS "));
+    assert!(text(&root, "answer-designation").contains("Sch 40"), "{}", text(&root, "answer-designation"));
 }
 
 #[wasm_bindgen_test]

@@ -77,13 +77,37 @@ fn fluid_errors_land_on_the_fluid_field() {
 fn every_bad_field_is_reported_at_once() {
     let e = outcome(
         r#"{"flow":"lots","fluid":{"kind":"water","temperature":"hot"},
-        "pipe":{"series":"steel-sch99"},"length":"","limits":{}}"#,
+        "pipe":{"series":"steel-sch99"},"length":"long","limits":{}}"#,
     )
     .unwrap_err();
     let fields: Vec<&str> = e.iter().map(|f| f.field.path()).collect();
     for want in ["fluid.temperature", "pipe.series", "length", "limits"] {
         assert!(fields.contains(&want), "{fields:?}");
     }
+}
+
+#[test]
+fn a_quick_check_needs_only_a_flow_and_one_limit() {
+    // No length: the line sizes by velocity and drop per length, and its
+    // total drop is not shown (not shown as zero).
+    let o = outcome(
+        r#"{"flow":"6","fluid":{"kind":"water","temperature":"10"},
+        "pipe":{"series":"steel-sch40"},"length":"","limits":{"max_velocity":"2"}}"#,
+    )
+    .unwrap();
+    assert!(o.sizing.proposed.is_some());
+    assert!(!o.length_given);
+    let f = o.figures.as_ref().unwrap();
+    assert_eq!((f.total_drop.as_str(), f.friction_drop.as_str()), ("", ""));
+    assert!(!f.drop_per_length.is_empty());
+    // A total-drop limit needs the length, and says so beside it.
+    let e = outcome(
+        r#"{"flow":"6","fluid":{"kind":"water","temperature":"10"},
+        "pipe":{"series":"steel-sch40"},"length":"","limits":{"max_total_drop":"20 kPa"}}"#,
+    )
+    .unwrap_err();
+    assert_eq!(e[0].field.path(), "length");
+    assert!(e[0].message.contains("enter the length"), "{}", e[0].message);
 }
 
 #[test]

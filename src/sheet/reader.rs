@@ -413,10 +413,21 @@ impl Reader<'_> {
         }
     }
 
-    fn length(&mut self, text: &str) -> Option<f64> {
+    /// The straight length: optional for a quick check (then 0 — the
+    /// total drop is not shown), required by a total-drop limit or a drop
+    /// as a share of the inlet pressure, which need the whole line.
+    fn length(&mut self, text: &str, limits: &super::file::LimitsFile) -> Option<f64> {
         if text.trim().is_empty() {
-            self.fail(Field::Length, "enter the length of straight pipe");
-            return None;
+            let blank = |t: &Option<String>| t.as_deref().is_none_or(|t| t.trim().is_empty());
+            if !blank(&limits.max_total_drop) || !blank(&limits.max_drop_percent) {
+                self.fail(
+                    Field::Length,
+                    "a total-drop limit needs the whole line: enter the length of straight pipe (or clear that limit \
+                     for a quick check by velocity or drop per length)",
+                );
+                return None;
+            }
+            return Some(0.0);
         }
         self.measure(Field::Length, text, Dimension::Length, self.units.length, None)
     }
@@ -656,7 +667,7 @@ impl LineFile {
         }
         let (pipe, material) = r.pipe(&self.pipe);
         let roughness = r.roughness(self, material);
-        let length = r.length(&self.length);
+        let length = r.length(&self.length, &self.limits);
         let counts = r.fittings(self);
         let components = r.components(self, rho);
         let extra_k = match self.extra_k.as_deref().map(str::trim) {

@@ -39,6 +39,9 @@ pub struct Outcome {
     pub flow_text: Option<String>,
     /// True when the flow comes from fixtures (not a heat load).
     pub from_fixtures: bool,
+    /// False for a quick check with no length: the total drop (and the
+    /// friction over the run) is then not shown, nor counted on a path.
+    pub length_given: bool,
 }
 
 /// What the open results panel shows beyond the [`Outcome`]: the sizes
@@ -90,7 +93,7 @@ pub fn detail(o: &Outcome, units: &Units) -> Detail {
                     }
                 })
                 .unwrap_or_else(|| "—".into());
-            Nearby { index, capacity, capacity_text, figures: Figures::of(c, units, rho) }
+            Nearby { index, capacity, capacity_text, figures: Figures::of(c, units, rho).with_length(o.length_given) }
         })
         .collect();
     let trace = o.shown.map(|i| sizing::trace(&o.line, &o.sizing.candidates[i])).unwrap_or_default();
@@ -148,7 +151,8 @@ pub fn evaluate_line_in(number: usize, lf: &LineFile, units: &Units, carried: Op
         };
         let rho = sizing.properties.density_kg_m3();
         let capacity = shown.and_then(|i| sizing::capacity(&line, sizing.candidates[i].point.bore).ok());
-        let figures = shown.map(|i| Figures::of(&sizing.candidates[i], units, rho));
+        let length_given = !lf.length.trim().is_empty();
+        let figures = shown.map(|i| Figures::of(&sizing.candidates[i], units, rho).with_length(length_given));
         let verdict = verdict_text(&line, &sizing, units);
         let flow_text = lf.load.as_ref().map(|_| {
             let q = show(line.flow.value, units.flow, Some(rho), 4);
@@ -216,7 +220,7 @@ pub fn evaluate_line_in(number: usize, lf: &LineFile, units: &Units, carried: Op
             Some(t)
         });
         let from_fixtures = lf.load.is_none() && lf.fixtures.is_some();
-        Ok(Outcome { line, sizing, shown, checked, capacity, figures, verdict, flow_text, from_fixtures })
+        Ok(Outcome { line, sizing, shown, checked, capacity, figures, verdict, flow_text, from_fixtures, length_given })
     });
     LineReport { number, name: lf.name.clone(), outcome }
 }
@@ -450,6 +454,19 @@ impl Figures {
     }
 }
 
+impl Figures {
+    /// Without a length (a quick check) the run's friction and the total
+    /// are unknown: they are left blank rather than shown as if the line
+    /// had none.
+    pub fn with_length(mut self, given: bool) -> Figures {
+        if !given {
+            self.total_drop.clear();
+            self.friction_drop.clear();
+        }
+        self
+    }
+}
+
 /// A gas or steam line's ends in words.
 fn gas_ends(g: &crate::hydraulics::line::GasEnds, p: &crate::hydraulics::line::Point, u: &Units) -> String {
     let abs = |pa: f64| format!("{} abs", show(pa, u.pressure, None, 4));
@@ -493,7 +510,7 @@ fn status_row(r: &LineReport, status: &str, note: String) -> [String; COLUMNS] {
 }
 
 /// The name of the limit that set the size (what the next size down fails).
-fn governed_by(s: &Sizing) -> &'static str {
+pub fn governed_by(s: &Sizing) -> &'static str {
     match &s.verdict {
         Verdict::Proposed { below: Some(b), .. } => b.check.limit.name(),
         _ => "",

@@ -515,6 +515,9 @@ pub fn summarise(tree: &Tree, reports: &[impl AsRef<LineReport>], u: &Units, sys
             .outcome
             .as_ref()
             .ok()
+            // A quick check with no length has no total drop: its path is
+            // incomplete rather than short.
+            .filter(|o| o.length_given)
             .and_then(|o| o.shown.map(|k| (o.sizing.candidates[k].point, o.line.flow.value)))
     };
     let mut paths: Vec<Path> = tree

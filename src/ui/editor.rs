@@ -335,7 +335,7 @@ fn RunFields() -> impl IntoView {
     view! {
         <fieldset>
             <legend>"Run"</legend>
-            <LineText field=Field::Length label="Length of straight pipe" id="length" unit=Dimension::Length/>
+            <LineText field=Field::Length label="Length of straight pipe" id="length" unit=Dimension::Length placeholder="optional for a quick check"/>
             <LineText field=Field::Rise label="Rise, end above start (negative for a fall)" id="rise" unit=Dimension::Length placeholder="0"/>
             <FittingList/>
             <ComponentList/>

@@ -130,7 +130,12 @@ pub fn Desk(
                 }}
             </section>
         </main>
-        <footer class="caution screen-only" role="note" data-testid="caution">{CAUTION}</footer>
+        // The selected line's answer and the caution stay at the bottom of
+        // the screen together.
+        <div class="dock screen-only">
+            {move || sheet.current().map(|slot| view! { <results::AnswerBar line=slot/> })}
+            <p class="caution" role="note" data-testid="caution">{CAUTION}</p>
+        </div>
         <print::PrintSheet/>
     }
 }

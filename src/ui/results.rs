@@ -19,7 +19,7 @@ pub fn LineResults(
     let file = line.file;
     let shown = line.detail;
     view! {
-        <section class="results" aria-label="Answer" data-testid="results">
+        <section class="results" id="answer-panel" aria-label="Answer" data-testid="results">
             {move || { match shown.get() {
                 None => view! {
                     <div class="answer answer-wait" data-testid="answer">
@@ -31,6 +31,47 @@ pub fn LineResults(
             }}}
             <Moody shown=shown/>
         </section>
+    }
+}
+
+/// The answer in one line that stays on screen while the inputs above the
+/// results are edited (a tablet shows the editor and the results one
+/// above the other): size, velocity, drops and what set the size, with a
+/// jump to the full answer.
+#[component]
+pub fn AnswerBar(
+    /// The line.
+    line: Slot,
+) -> impl IntoView {
+    let summary = Memo::new(move |_| {
+        line.report.with(|r| match &r.outcome {
+            Err(_) => ("—".to_owned(), "fix the fields marked in red".to_owned(), "wait"),
+            Ok(o) => match (o.shown, o.figures.as_ref()) {
+                (Some(i), Some(f)) => {
+                    let c = &o.sizing.candidates[i];
+                    let mut parts = vec![f.velocity.clone(), f.drop_per_length.clone()];
+                    if !f.total_drop.is_empty() {
+                        parts.push(format!("total {}", f.total_drop));
+                    }
+                    let why = match crate::sheet::report::governed_by(&o.sizing) {
+                        "" => f.binding,
+                        g => g,
+                    };
+                    if !why.is_empty() {
+                        parts.push(format!("set by {why}"));
+                    }
+                    (designation(&o.line, c.nominal), parts.join(" · "), if c.passes() { "ok" } else { "bad" })
+                }
+                _ => ("No size".to_owned(), sentence(&o.verdict), "bad"),
+            },
+        })
+    });
+    view! {
+        <aside class=move || format!("answer-bar state-{}", summary.with(|s| s.2)) aria-label="Answer for this line" data-testid="answer-bar">
+            <strong data-testid="bar-size">{move || summary.with(|s| s.0.clone())}</strong>
+            <span class="bar-figures" data-testid="bar-figures">{move || summary.with(|s| s.1.clone())}</span>
+            <a class="bar-jump" href="#answer-panel" data-testid="bar-jump">"Full answer ↓"</a>
+        </aside>
     }
 }
 
@@ -78,18 +119,19 @@ fn Answer(o: Outcome) -> impl IntoView {
             view! {
                 <div class="answer" class:answer-bad=!pass data-testid="answer" role="status">
                     <p class="answer-head">{head}</p>
-                    <p class="answer-size" data-testid="proposed-size">{c.nominal}</p>
+                    <p class="answer-size" data-testid="proposed-size">{designation(&o.line, c.nominal)}</p>
                     <p class="answer-designation" data-testid="answer-designation">{match o.line.pipe {
-                        crate::hydraulics::line::Pipe::Series(s) => format!("{} · {}", designation(&o.line, c.nominal), s.label),
-                        crate::hydraulics::line::Pipe::Custom(_) => designation(&o.line, c.nominal),
+                        crate::hydraulics::line::Pipe::Series(s) => s.label.to_owned(),
+                        crate::hydraulics::line::Pipe::Custom(_) => "the bore entered".to_owned(),
                     }}</p>
                     <dl class="answer-figures">
                         <div><dt>"Velocity"</dt><dd data-testid="answer-velocity">{fig.velocity.clone()}</dd></div>
                         <div><dt>"Drop per length"</dt><dd data-testid="answer-drop-per-length">{fig.drop_per_length.clone()}</dd></div>
-                        <div><dt>"Total drop"</dt><dd data-testid="answer-total-drop">{fig.total_drop.clone()}</dd></div>
+                        {(!fig.total_drop.is_empty()).then(|| view! { <div><dt>"Total drop"</dt><dd data-testid="answer-total-drop">{fig.total_drop.clone()}</dd></div> })}
                         <div><dt>"Inside diameter"</dt><dd>{fig.bore.clone()}</dd></div>
                     </dl>
-                    <p class="breakdown" data-testid="answer-breakdown">
+                    {fig.total_drop.is_empty().then(|| view! { <p class="hint" data-testid="answer-no-length">"No length entered: a quick check by velocity and drop per length. Enter the length for the total drop."</p> })}
+                    <p class="breakdown" data-testid="answer-breakdown" class:hidden=fig.total_drop.is_empty()>
                         {format!("Friction {} + fittings {}", fig.friction_drop, fig.fittings_drop)}
                         {(!fig.components_drop.is_empty()).then(|| format!(" + valves and equipment {}", fig.components_drop))}
                         {if fig.static_in_total { format!(" + static {}", fig.static_drop) } else { format!("; static {} shown apart (closed loop)", fig.static_drop) }}
@@ -126,7 +168,7 @@ fn SizeTable(o: Outcome, d: Detail, file: RwSignal<crate::sheet::file::LineFile>
             let is_shown = o.shown == Some(i);
             view! {
                 <tr class:shown=is_shown class:fails=!c.passes() data-testid="size-row">
-                    <th scope="row">{nominal}</th>
+                    <th scope="row">{designation(&o.line, nominal)}</th>
                     <td>{f.bore}</td>
                     <td>{f.velocity}</td>
                     <td>{f.reynolds}</td>
@@ -174,7 +216,15 @@ pub fn Moody(
     let c = chart::background();
     let (px, py, pw, ph) = chart::plot_area();
     let view_box = format!("0 0 {} {}", chart::WIDTH, chart::HEIGHT);
-    let points = move || shown.with(|o| o.as_ref().map(|(o, _)| chart::points(&o.sizing)).unwrap_or_default());
+    let points = move || {
+        shown.with(|o| {
+            o.as_ref()
+                .map(|(o, _)| {
+                    chart::points(&o.sizing).into_iter().map(|p| (designation(&o.line, p.nominal), p)).collect()
+                })
+                .unwrap_or_else(Vec::new)
+        })
+    };
     view! {
         <figure class="moody" class:hidden=move || shown.with(Option::is_none)>
             <svg viewBox=view_box role="img" aria-labelledby="moody-title" data-testid="moody">
@@ -195,10 +245,10 @@ pub fn Moody(
                     <text class="curve-label" x=cv.label_at.0 - 4.0 y=cv.label_at.1 - 4.0 text-anchor="end">{cv.label.clone()}</text>
                 }).collect_view()}
                 <g class="points">
-                    {move || points().into_iter().map(|p| {
+                    {move || points().into_iter().map(|(name, p)| {
                         let cls = if p.proposed { "pt pt-proposed" } else if p.passes { "pt pt-pass" } else { "pt pt-fail" };
                         let r = if p.proposed { 7.0 } else { 4.5 };
-                        view! { <circle class=cls cx=p.x cy=p.y r=r data-testid="moody-point"><title>{p.nominal}</title></circle> }
+                        view! { <circle class=cls cx=p.x cy=p.y r=r data-testid="moody-point"><title>{name}</title></circle> }
                     }).collect_view()}
                 </g>
                 <text class="axis" x=px + pw / 2.0 y=chart::HEIGHT - 4.0 text-anchor="middle">"Reynolds number Re"</text>

@@ -206,7 +206,7 @@ fn RosterRow(line: Slot) -> impl IntoView {
                     } else {
                         "ok"
                     };
-                    (c.nominal.to_owned(), detail, state)
+                    (crate::sheet::report::designation(&o.line, c.nominal), detail, state)
                 }
             },
         })
@@ -238,7 +238,7 @@ fn RosterRow(line: Slot) -> impl IntoView {
                 </label>
                 <button type="button" class="quiet" aria-label="move up" on:click=move |_| sheet.shift(id, -1)>"▲"</button>
                 <button type="button" class="quiet" aria-label="move down" on:click=move |_| sheet.shift(id, 1)>"▼"</button>
-                <button type="button" class="quiet" aria-label="duplicate" data-testid="row-duplicate" on:click=move |_| sheet.duplicate(id)>"Copy"</button>
+                <button type="button" class="quiet" aria-label="Copy line" data-testid="row-duplicate" on:click=move |_| sheet.duplicate(id)>"Copy"</button>
                 <button type="button" class="quiet" aria-label="delete" data-testid="row-delete" on:click=move |_| sheet.delete(id)>"✕"</button>
             </div>
         </li>

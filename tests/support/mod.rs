@@ -257,9 +257,17 @@ impl Harness {
         input.send_keys(text).await.expect("type into input");
     }
 
-    /// Clicks an element.
+    /// Clicks an element, first scrolled to the middle of the screen as a
+    /// person would (the answer bar and the caution stay at the bottom of
+    /// the screen, so a control near the bottom edge is under them until
+    /// the page is scrolled).
     pub async fn click(&self, testid: &str) {
-        self.wait_for(testid).await.click().await.unwrap_or_else(|e| panic!("click {testid}: {e}"));
+        let el = self.wait_for(testid).await;
+        self.client
+            .execute("arguments[0].scrollIntoView({block: 'center'})", vec![serde_json::to_value(&el).unwrap()])
+            .await
+            .unwrap_or_else(|e| panic!("scroll to {testid}: {e}"));
+        el.click().await.unwrap_or_else(|e| panic!("click {testid}: {e}"));
     }
 
     /// Picks an option of a `<select>` by value.
