@@ -87,7 +87,7 @@ pub fn detail(o: &Outcome, units: &Units) -> Detail {
                     if o.line.fluid.is_compressible() {
                         // Mass: an actual volume at the inlet would read as
                         // a different flow at every pressure.
-                        format!("{} kg/h", format_number(q.value * rho * 3600.0, 3))
+                        kg_h(q.value, rho, 3)
                     } else {
                         show_flow(q.value, units.flow, Some(rho), Some(&o.line.fluid), 3)
                     }
@@ -467,24 +467,31 @@ impl Figures {
     }
 }
 
+/// A gas or steam line's flow as mass, "543.1 kg/h", from its actual
+/// volume at the inlet (m³/s) and the inlet density: an actual volume
+/// would read differently at every pressure.
+fn kg_h(q_m3_s: f64, rho: f64, significant: usize) -> String {
+    format!("{} kg/h", format_number(q_m3_s * rho * 3600.0, significant))
+}
+
 /// A gas or steam line's ends in words.
 fn gas_ends(g: &crate::hydraulics::line::GasEnds, p: &crate::hydraulics::line::Point, u: &Units) -> String {
     let abs = |pa: f64| format!("{} abs", show(pa, u.pressure, None, 4));
     let kg = |v: f64| format_number(v, 3);
     let area = std::f64::consts::FRAC_PI_4 * p.bore.value * p.bore.value;
-    let mass_kg_h = g.inlet_density * p.velocity.value * area * 3600.0;
+    let mass = kg_h(p.velocity.value * area, g.inlet_density, 4);
     if g.choked {
         return format!(
-            "CHOKED: this size cannot pass {} kg/h from {} — the flow would reach the isothermal sonic limit \
+            "CHOKED: this size cannot pass {} from {} — the flow would reach the isothermal sonic limit \
              before the outlet ({} % of the choking flow)",
-            kg(mass_kg_h),
+            mass,
             abs(g.inlet_pressure),
             format_number(g.choke_ratio * 100.0, 3)
         );
     }
     format!(
         "Isothermal compressible flow (Crane TP-410): p {} → {} ({} % of inlet); ρ {} → {} kg/m³; V {} → {}; \
-         {} kg/h; {} % of the choking flow",
+         {}; {} % of the choking flow",
         abs(g.inlet_pressure),
         abs(g.outlet_pressure),
         format_number(g.fraction() * 100.0, 3),
@@ -492,7 +499,7 @@ fn gas_ends(g: &crate::hydraulics::line::GasEnds, p: &crate::hydraulics::line::P
         kg(g.outlet_density),
         show(p.velocity.value, u.velocity, None, 3),
         show(g.outlet_velocity, u.velocity, None, 3),
-        format_number(mass_kg_h, 4),
+        mass,
         format_number(g.choke_ratio * 100.0, 2)
     )
 }
@@ -776,8 +783,7 @@ pub fn tree_lines(sheet: &SheetFile, reports: &[impl AsRef<LineReport>]) -> Vec<
             let name = sheet.lines[i].name.trim();
             let what = match &reports[i].as_ref().outcome {
                 Ok(o) if o.line.fluid.is_compressible() => {
-                    let kg_h = o.line.flow.value * o.sizing.properties.density_kg_m3() * 3600.0;
-                    format!("{} kg/h", format_number(kg_h, 4))
+                    kg_h(o.line.flow.value, o.sizing.properties.density_kg_m3(), 4)
                 }
                 Ok(o) => o.flow_text.clone().unwrap_or_else(|| {
                     show_flow(

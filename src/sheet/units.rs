@@ -386,7 +386,7 @@ impl Measure {
             Scale::Standard(k, t, p, _) => {
                 let rho_ref =
                     fluid.and_then(|f| f.reference_density(t, p)).ok_or(UnitError::NeedsGas(self.unit.symbol))?;
-                Measure { value: self.value, unit: self.unit }.scaled_mass(k, density.map(|r| r / rho_ref))
+                self.scaled_mass(k, density.map(|r| r / rho_ref))
             }
             _ => self.to_si(density),
         }
