@@ -55,14 +55,15 @@ impl FlowFrom {
     }
 }
 
-/// The gases a line can name, in listing order: (id, label).
-pub const GAS_CHOICES: [(&str, &str); 5] = [
-    ("air", "Air (dry)"),
-    ("nitrogen", "Nitrogen"),
-    ("carbon-dioxide", "Carbon dioxide"),
-    ("natural-gas", "Natural gas (by relative density)"),
-    ("custom", "Other gas (molar mass, μ, Z)"),
-];
+/// The gases a line can name, in listing order, as (id, label): the
+/// tabulated ones from `hydraulics::fluid::gas::NAMED`, then natural gas
+/// and a gas typed in.
+pub fn gas_choices() -> impl Iterator<Item = (&'static str, &'static str)> {
+    crate::hydraulics::fluid::gas::NAMED
+        .into_iter()
+        .map(|n| (n.id, n.label))
+        .chain([("natural-gas", "Natural gas (by relative density)"), ("custom", "Other gas (molar mass, μ, Z)")])
+}
 
 /// Which kind of fluid a line carries.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]

@@ -11,7 +11,7 @@ use crate::hydraulics::field::Field;
 use crate::hydraulics::fluid::Glycol;
 use crate::hydraulics::losses::Fitting;
 use crate::hydraulics::pipes::{Material, SERIES};
-use crate::sheet::edit::{FlowFrom, FluidKind, CUSTOM_BORE, GAS_CHOICES};
+use crate::sheet::edit::{gas_choices, FlowFrom, FluidKind, CUSTOM_BORE};
 use crate::sheet::file::{FluidFile, MethodName};
 use crate::sheet::number::parse_count;
 use crate::sheet::presets::{Service, SERVICES};
@@ -240,7 +240,7 @@ fn GasFields() -> impl IntoView {
             <label for="gas-kind">"Gas"</label>
             <select id="gas-kind" data-testid="gas-kind"
                 on:change=move |ev| { let v = event_target_value(&ev); file.update(|f| f.set_gas(&v)) }>
-                {GAS_CHOICES.into_iter().map(|(id, label)| view! { <option value=id selected=move || gas.with(|g| g == id)>{label}</option> }).collect_view()}
+                {gas_choices().map(|(id, label)| view! { <option value=id selected=move || gas.with(|g| g == id)>{label}</option> }).collect_view()}
             </select>
         </div>
         <LineText field=Field::FluidPressure label="Pressure at the inlet (absolute; barg or psig = gauge + 101.325 kPa)" id="fluid-pressure" unit=Dimension::Pressure placeholder="e.g. 7 barg"/>

@@ -209,15 +209,6 @@ impl Gas {
             Gas::Custom { .. } => SOURCES_CUSTOM,
         }
     }
-
-    /// Its stable id.
-    pub fn id(&self) -> &'static str {
-        match self {
-            Gas::Named(n) => n.id,
-            Gas::Natural { .. } => "natural-gas",
-            Gas::Custom { .. } => "custom",
-        }
-    }
 }
 
 /// The named gas of an id.
