@@ -318,6 +318,52 @@ async fn drawing_results_runs_no_solve_and_an_edit_solves_one_line_only() {
 }
 
 #[wasm_bindgen_test]
+async fn the_worked_steps_are_drawn_only_while_open_and_follow_each_edit() {
+    let (root, _) = mount_sheet(|s| chilled(s, "steps", "4"));
+    leptos::task::tick().await;
+    let rows = || root.query_selector_all("[data-testid=explain] tbody tr").unwrap().length();
+    assert_eq!(rows(), 0, "folded steps are not drawn");
+    let explain: web_sys::HtmlDetailsElement = find(&root, "explain").unchecked_into();
+    explain.set_open(true);
+    // The browser fires `toggle` in a task of its own.
+    let wait = js_sys::Promise::new(&mut |resolve, _| {
+        web_sys::window().unwrap().set_timeout_with_callback_and_timeout_and_arguments_0(&resolve, 50).unwrap();
+    });
+    wasm_bindgen_futures::JsFuture::from(wait).await.unwrap();
+    leptos::task::tick().await;
+    assert!(rows() > 5, "open steps are drawn: {}", rows());
+    assert!(text(&root, "explain").contains("Reynolds"));
+    // They follow an edit of the flow while open.
+    let before = text(&root, "explain");
+    type_into(&root, "flow", "9");
+    leptos::task::tick().await;
+    assert_ne!(text(&root, "explain"), before);
+}
+
+#[wasm_bindgen_test]
+async fn a_long_sheet_draws_a_window_of_rows_and_its_print_sheet_only_for_printing() {
+    let n = headroom::ui::roster::WINDOW_FROM + 20;
+    let (root, sheet) = mount_sheet(move |s| {
+        for k in 1..=n {
+            chilled(s, &format!("Riser {k}"), "4");
+        }
+    });
+    leptos::task::tick().await;
+    let rows = root.query_selector_all("[data-testid=roster-row]").unwrap().length() as usize;
+    assert!(rows < n / 2, "{rows} of {n} rows drawn");
+    assert_eq!(sheet.lines.with_untracked(Vec::len), n);
+    // The print sheet holds no line until the browser is about to print.
+    let printed = || text(&root, "print-sheet");
+    assert!(!printed().contains("Riser 1"), "drawn before printing");
+    web_sys::window().unwrap().dispatch_event(&web_sys::Event::new("beforeprint").unwrap()).unwrap();
+    leptos::task::tick().await;
+    assert!(printed().contains(&format!("Riser {n}")), "every line printed");
+    web_sys::window().unwrap().dispatch_event(&web_sys::Event::new("afterprint").unwrap()).unwrap();
+    leptos::task::tick().await;
+    assert!(!printed().contains("Riser 1"), "dropped after printing");
+}
+
+#[wasm_bindgen_test]
 async fn the_print_sheet_follows_after_typing_stops_or_when_printing() {
     let (root, _) = mount_sheet(|s| chilled(s, "print me", "4"));
     leptos::task::tick().await;

@@ -132,7 +132,10 @@ pub fn LineEditor(
 fn FlowAndFluid() -> impl IntoView {
     let line = expect_context::<Slot>();
     let file = line.file;
-    let kind = move || file.with(|f| f.fluid_kind());
+    // Memos, not closures: a keystroke in the flow must not redraw the
+    // fluid's fields (it did, every one of them, on every keystroke).
+    let kind = Memo::new(move |_| file.with(|f| f.fluid_kind()));
+    let kind = move || kind.get();
     let from = Memo::new(move |_| file.with(|f| f.flow_from()));
     let sheet = expect_context::<Sheet>();
     // Every line's name, as a memo: a keystroke that changes no name leaves
@@ -141,6 +144,7 @@ fn FlowAndFluid() -> impl IntoView {
         sheet.lines.with(|v| v.iter().map(|s| s.joint.with(|j| j.name.trim().to_owned())).collect::<Vec<_>>())
     });
     let own_name = Memo::new(move |_| file.with(|f| f.name.trim().to_owned()));
+    let long = Memo::new(move |_| sheet.lines.with(Vec::len) >= super::roster::WINDOW_FROM);
     let fed_from = Memo::new(move |_| file.with(|f| f.fed_from.clone()));
     let is_glycol =
         move |g: Glycol| file.with(|f| matches!(&f.fluid, FluidFile::Glycol { glycol, .. } if *glycol == g));
@@ -149,6 +153,19 @@ fn FlowAndFluid() -> impl IntoView {
             <legend>"Flow and fluid"</legend>
             <div class="field">
                 <label for="fed-from">"Fed from"</label>
+                {move || if long.get() {
+                    // A long sheet: a name typed with the list's suggestions
+                    // (`line-names`, drawn once in the list of lines), not a
+                    // menu of every line redrawn each time a line is chosen.
+                    view! {
+                        <input id="fed-from" data-testid="fed-from" list="line-names" autocomplete="off"
+                            placeholder="empty: a source" prop:value=move || fed_from.get().unwrap_or_default()
+                            on:change=move |ev| {
+                                let v = event_target_value(&ev).trim().to_owned();
+                                file.update(|f| f.fed_from = (!v.is_empty()).then_some(v))
+                            }/>
+                    }.into_any()
+                } else { view! {
                 <select id="fed-from" data-testid="fed-from"
                     on:change=move |ev| { let v = event_target_value(&ev); file.update(|f| f.fed_from = (!v.is_empty()).then_some(v)) }>
                     <option value="" selected=move || fed_from.with(Option::is_none)>"— a source (fed from no line)"</option>
@@ -167,6 +184,7 @@ fn FlowAndFluid() -> impl IntoView {
                         }).collect_view()
                     }}
                 </select>
+                }.into_any() }}
                 <span class="field-error" data-testid="fed-from-error" aria-live="polite">{move || errors_for(line.report, Field::FedFrom).get()}{move || line.report.with(|r| r.outcome.as_ref().ok().map(|o| o.sizing.warnings.iter().filter_map(|w| w.strip_prefix("fed from: ")).collect::<Vec<_>>().join("; ")).unwrap_or_default())}</span>
             </div>
             <div class="field">
@@ -265,7 +283,10 @@ fn PipeFields() -> impl IntoView {
     let sheet = expect_context::<Sheet>();
     let line = expect_context::<Slot>();
     let file = line.file;
-    let choice = move || file.with(|f| f.series_choice().to_owned());
+    let choice = Memo::new(move |_| file.with(|f| f.series_choice().to_owned()));
+    let choice = move || choice.get();
+    let smallest = Memo::new(move |_| file.with(|f| f.smallest_size.clone()));
+    let can_age = Memo::new(move |_| file.with(|f| f.can_age()));
     let roughness_hint = Signal::derive(move || {
         file.with(|f| {
             f.default_roughness_mm()
@@ -296,10 +317,10 @@ fn PipeFields() -> impl IntoView {
                     <label for="pipe-smallest">"Smallest size to propose"</label>
                     <select id="pipe-smallest" data-testid="pipe-smallest"
                         on:change=move |ev| { let v = event_target_value(&ev); file.update(|f| f.smallest_size = (!v.is_empty()).then_some(v)) }>
-                        <option value="" selected=move || file.with(|f| f.smallest_size.is_none())>"Any"</option>
+                        <option value="" selected=move || smallest.with(Option::is_none)>"Any"</option>
                         {s.sizes.iter().map(|z| {
                             let n = z.nominal;
-                            view! { <option value=n selected=move || file.with(|f| f.smallest_size.as_deref() == Some(n))>{s.designation(n)}</option> }
+                            view! { <option value=n selected=move || smallest.with(|m| m.as_deref() == Some(n))>{s.designation(n)}</option> }
                         }).collect_view()}
                     </select>
                     <span class="field-error" aria-live="polite">{move || errors_for(line.report, Field::SmallestSize).get()}</span>
@@ -318,7 +339,7 @@ fn PipeFields() -> impl IntoView {
                 </div>
             })}
             <LineText field=Field::Roughness label="Roughness ε" id="roughness" unit=Dimension::Roughness placeholder=roughness_hint/>
-            {move || file.with(|f| f.can_age()).then(|| view! {
+            {move || can_age.get().then(|| view! {
                 <label class="check">
                     <input type="checkbox" data-testid="aged" prop:checked=move || file.with(|f| f.aged)
                         on:change=move |ev| { let on = event_target_checked(&ev); file.update(|f| f.aged = on) }/>
@@ -349,6 +370,7 @@ fn RunFields() -> impl IntoView {
 #[component]
 fn LimitFields() -> impl IntoView {
     let line = expect_context::<Slot>();
+    let compressible = Memo::new(move |_| line.file.with(|f| f.fluid.is_compressible()));
     view! {
         <fieldset>
             <legend>"Limits"</legend>
@@ -357,7 +379,7 @@ fn LimitFields() -> impl IntoView {
             <LineText field=Field::MaxTotalDrop label="Largest total drop" id="max-total-drop" unit=Dimension::Pressure placeholder="none"/>
             <LineText field=Field::MaxVelocity label="Largest velocity" id="max-velocity" unit=Dimension::Velocity placeholder="none"/>
             <LineText field=Field::MinVelocity label="Smallest velocity (optional)" id="min-velocity" unit=Dimension::Velocity placeholder="none"/>
-            {move || line.file.with(|f| f.fluid.is_compressible()).then(|| view! {
+            {move || compressible.get().then(|| view! {
                 <LineText field=Field::MaxDropPercent label="Largest drop, % of inlet pressure (absolute)" id="max-drop-percent" suffix="%" inputmode="decimal" placeholder="none"/>
             })}
             <div class="field">

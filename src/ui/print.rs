@@ -243,7 +243,8 @@ pub const PRINT_FOLLOW_MS: i32 = 400;
 /// reactive path while someone types: its lines follow the worksheet
 /// [`PRINT_FOLLOW_MS`] after a change (one redraw for however many
 /// keystrokes came meanwhile), and at once when the browser is about to
-/// print.
+/// print. A long sheet (from [`super::roster::WINDOW_FROM`] lines) has its
+/// lines drawn only when the browser is about to print, and dropped after.
 #[component]
 pub fn PrintSheet() -> impl IntoView {
     let sheet = expect_context::<Sheet>();
@@ -266,10 +267,26 @@ pub fn PrintSheet() -> impl IntoView {
             follow();
         });
     });
+    // A long sheet's lines are drawn only for printing: drawing two
+    // thousand printed records would cost seconds on every opening.
+    let armed = RwSignal::new(false);
     if let Some(w) = web_sys::window() {
-        listen(&w, "beforeprint", move |_| follow());
+        listen(&w, "beforeprint", move |_| {
+            armed.try_set(true);
+            follow();
+        });
+        listen(&w, "afterprint", move |_| {
+            armed.try_set(false);
+        });
     }
-    let rows = move || sheet.lines.get().into_iter().enumerate().collect::<Vec<_>>();
+    let rows = move || {
+        let drawn = armed.get() || sheet.lines.with(|v| v.len()) < super::roster::WINDOW_FROM;
+        if drawn {
+            sheet.lines.get().into_iter().enumerate().collect::<Vec<_>>()
+        } else {
+            Vec::new()
+        }
+    };
     view! {
         <article class="print-sheet" data-testid="print-sheet" aria-hidden="true">
             <header>

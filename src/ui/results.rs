@@ -18,6 +18,8 @@ pub fn LineResults(
 ) -> impl IntoView {
     let file = line.file;
     let shown = line.detail;
+    // Whether the worked steps are open: their table is drawn only then.
+    let steps_open = RwSignal::new(false);
     view! {
         <section class="results" id="answer-panel" aria-label="Answer" data-testid="results">
             {move || { match shown.get() {
@@ -27,7 +29,7 @@ pub fn LineResults(
                         <p>"Fix the fields marked in red to see sizes."</p>
                     </div>
                 }.into_any(),
-                Some((o, d)) => view! { <Answer o=o.clone()/> <SizeTable o=o d=d.clone() file=file/> <Explain steps=d.trace/> }.into_any(),
+                Some((o, d)) => view! { <Answer o=o.clone()/> <SizeTable o=o d=d.clone() file=file/> <Explain steps=d.trace open=steps_open/> }.into_any(),
             }}}
             <Moody shown=shown/>
         </section>
@@ -259,19 +261,23 @@ pub fn Moody(
     }
 }
 
+/// The worked steps, folded. Their table is drawn only while they are
+/// open: redrawn on every keystroke, it cost more than the answer.
 #[component]
-fn Explain(steps: Vec<Step>) -> impl IntoView {
+fn Explain(steps: Vec<Step>, open: RwSignal<bool>) -> impl IntoView {
+    let details = NodeRef::<leptos::html::Details>::new();
     view! {
-        <details class="explain" data-testid="explain">
+        <details class="explain" data-testid="explain" node_ref=details prop:open=move || open.get()
+            on:toggle=move |_| { if let Some(d) = details.get_untracked() { if d.open() != open.get_untracked() { open.set(d.open()) } } }>
             <summary>"How this was worked out"</summary>
             <p>"The friction factor depends only on the Reynolds number and the relative roughness, f = φ(Re, ε/D); every other number here follows from the fluid, the pipe and the line."</p>
             <table>
                 <thead><tr><th scope="col">"Quantity"</th><th scope="col">"Formula"</th><th scope="col">"Value (SI)"</th><th scope="col">"Source"</th></tr></thead>
                 <tbody>
-                    {steps.into_iter().map(|s| view! {
+                    {move || open.get().then(|| steps.clone().into_iter().map(|s| view! {
                         <tr><th scope="row">{s.symbol}" "<span class="muted">{s.name}</span></th><td><code>{s.formula}</code></td>
                         <td>{format!("{} {}", format_number(s.value, 5), s.unit)}</td><td class="muted">{s.source}</td></tr>
-                    }).collect_view()}
+                    }).collect_view())}
                 </tbody>
             </table>
         </details>

@@ -15,7 +15,90 @@ use crate::sheet::units;
 pub fn Roster() -> impl IntoView {
     let sheet = expect_context::<Sheet>();
     let add_service = RwSignal::new(SERVICES[0].id);
-    provide_context(Fold::new(sheet));
+    let fold = Fold::new(sheet);
+    provide_context(fold);
+    let list = NodeRef::<leptos::html::Div>::new();
+    // A long sheet's "fed from" is typed, with every line's name suggested.
+    let long = Memo::new(move |_| sheet.lines.with(Vec::len) >= WINDOW_FROM);
+    // The first row drawn (a long list draws only the rows near its scroll
+    // position) and the measured distance from one row to the next.
+    let first = RwSignal::new(0usize);
+    let pitch = RwSignal::new(DEFAULT_PITCH_PX);
+    let window = Memo::new(move |_| {
+        let shown = sheet.lines.with(|v| v.len()) - fold.hidden.with(Vec::len);
+        Window::of(shown, first.get(), pitch.get())
+    });
+    let scrolled = move || {
+        let Some(el) = list.get_untracked() else { return };
+        if let Some(p) = measured_pitch(&el) {
+            if (p - pitch.get_untracked()).abs() > 0.5 {
+                pitch.set(p);
+            }
+        }
+        let k = Window::first_for(f64::from(el.scroll_top()), pitch.get_untracked());
+        if k != first.get_untracked() {
+            first.set(k);
+        }
+    };
+    // The box and the list follow the window: one effect writing the DOM
+    // (each reactive attribute would cost a kilobyte of module).
+    Effect::new(move |_| {
+        let w = window.get();
+        let n = sheet.lines.with(Vec::len);
+        let Some(el) = list.get() else { return };
+        let _ = el.class_list().toggle_with_force("windowed", w.windowed);
+        let label = w
+            .windowed
+            .then(|| format!("{} lines; rows {}–{} drawn, the rest as you scroll", w.shown, w.start + 1, w.end));
+        for (name, value) in [
+            ("tabindex", w.windowed.then(|| "0".to_owned())),
+            ("role", w.windowed.then(|| "region".to_owned())),
+            ("aria-label", label),
+        ] {
+            let _ = match value {
+                Some(v) => el.set_attribute(name, &v),
+                None => el.remove_attribute(name),
+            };
+        }
+        let Some(ol) =
+            el.first_element_child().and_then(|e| wasm_bindgen::JsCast::dyn_into::<web_sys::HtmlElement>(e).ok())
+        else {
+            return;
+        };
+        let _ = ol.set_attribute("data-lines", &n.to_string());
+        let style = ol.style();
+        for (name, rows) in [("padding-top", w.start), ("padding-bottom", w.shown - w.end)] {
+            let _ = match w.pad(rows) {
+                Some(v) => style.set_property(name, &v),
+                None => style.remove_property(name).map(drop),
+            };
+        }
+    });
+    // A line selected from elsewhere (added, copied, opened) is scrolled to
+    // when the window does not hold it.
+    Effect::new(move |_| {
+        let Some(id) = sheet.selected.get() else { return };
+        let w = window.get_untracked();
+        if !w.windowed {
+            return;
+        }
+        let Some(k) = shown_lines(sheet, fold).iter().position(|s| s.id == id) else { return };
+        if k < w.start + OVERSCAN.min(w.start) || k + 1 > w.end.saturating_sub(OVERSCAN) {
+            if let Some(el) = list.get_untracked() {
+                el.set_scroll_top((k.saturating_sub(1) as f64 * w.pitch) as i32);
+            }
+            first.set(k.saturating_sub(1 + OVERSCAN));
+            // Once drawn, the row itself is brought into view (above the
+            // answer bar: the page's scroll padding).
+            super::state::after_redraw(move || {
+                if let Some(row) =
+                    list.get_untracked().and_then(|el| el.query_selector(".roster-row.selected").ok().flatten())
+                {
+                    row.scroll_into_view_with_bool(false);
+                }
+            });
+        }
+    });
     let path_total = move || {
         let u = sheet.resolved.get();
         let (mut sum, mut rise, mut n, mut bad) = (0.0, 0.0, 0, 0);
@@ -86,13 +169,92 @@ pub fn Roster() -> impl IntoView {
                     </p>
                 }
             })}
+            // A long list scrolls in this box; the rows not drawn are
+            // stood for by the list's padding (set by the effect above).
+            <div class="roster-box" node_ref=list on:scroll=move |_| scrolled()>
             <ol class="roster-list" data-testid="roster">
-                <For each=move || sheet.lines.get() key=|s| s.id children=move |slot| view! { <RosterRow line=slot/> }/>
+                <For each=move || {
+                    let w = window.get();
+                    if w.windowed { shown_lines(sheet, fold)[w.start..w.end].to_vec() } else { sheet.lines.get() }
+                } key=|s| s.id children=move |slot| view! { <RosterRow line=slot/> }/>
             </ol>
+            </div>
+            {move || long.get().then(|| view! {
+                <datalist id="line-names">
+                    {move || sheet.lines.with(|v| v.iter().map(|s| s.joint.with(|j| j.name.trim().to_owned())).filter(|n| !n.is_empty())
+                        .map(|n| view! { <option value=n/> }).collect_view())}
+                </datalist>
+            })}
             <p class="path-total" data-testid="path-total" aria-live="polite">{path_total}</p>
             <super::system::SystemPanel/>
         </section>
     }
+}
+
+/// From this many rows the list scrolls in a box of its own and draws only
+/// the rows near its scroll position, so a sheet of thousands of lines
+/// opens and answers a click as fast as a short one.
+pub const WINDOW_FROM: usize = 80;
+/// Rows drawn at once in a long list: more than a tall screen's box holds.
+const WINDOW_ROWS: usize = 36;
+/// Rows drawn above the first in view, so a short scroll draws nothing.
+const OVERSCAN: usize = 6;
+/// A row's height and gap before one has been measured (the stylesheet's
+/// 8rem + 0.4rem at 16 px).
+const DEFAULT_PITCH_PX: f64 = 134.4;
+
+/// Which rows of a long list are drawn.
+#[derive(Debug, Clone, Copy, PartialEq)]
+struct Window {
+    windowed: bool,
+    /// Rows not folded away.
+    shown: usize,
+    start: usize,
+    end: usize,
+    pitch: f64,
+}
+
+impl Window {
+    fn of(shown: usize, first: usize, pitch: f64) -> Window {
+        if shown < WINDOW_FROM {
+            return Window { windowed: false, shown, start: 0, end: shown, pitch };
+        }
+        let start = first.min(shown.saturating_sub(WINDOW_ROWS));
+        Window { windowed: true, shown, start, end: (start + WINDOW_ROWS).min(shown), pitch }
+    }
+
+    /// The first row to draw for a box scrolled `top` px: a few rows above
+    /// the first in view, on a step of half the overscan so scrolling
+    /// redraws a few rows at a time rather than one.
+    fn first_for(top: f64, pitch: f64) -> usize {
+        let k = (top / pitch.max(1.0)).floor() as usize;
+        let step = OVERSCAN / 2;
+        (k.saturating_sub(OVERSCAN) / step) * step
+    }
+
+    /// The room that stands for `rows` rows not drawn.
+    fn pad(&self, rows: usize) -> Option<String> {
+        self.windowed.then(|| format!("{:.1}px", rows as f64 * self.pitch))
+    }
+}
+
+/// The lines the list shows (those not folded away under a collapsed line), in order.
+fn shown_lines(sheet: Sheet, fold: Fold) -> Vec<Slot> {
+    fold.hidden.with(|h| {
+        let mut hidden = h.clone();
+        hidden.sort_unstable();
+        sheet.lines.with(|v| v.iter().filter(|s| hidden.binary_search(&s.id).is_err()).cloned().collect())
+    })
+}
+
+/// The distance from one drawn row to the next, if two are drawn (`scroller`
+/// holds the list).
+fn measured_pitch(scroller: &web_sys::HtmlElement) -> Option<f64> {
+    use wasm_bindgen::JsCast;
+    let a = scroller.first_element_child()?.first_element_child()?.dyn_into::<web_sys::HtmlElement>().ok()?;
+    let b = a.next_element_sibling()?.dyn_into::<web_sys::HtmlElement>().ok()?;
+    let p = f64::from(b.offset_top() - a.offset_top());
+    (p > 0.0).then_some(p)
 }
 
 /// The tree in the list: which lines are folded away under a collapsed
