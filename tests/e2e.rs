@@ -292,6 +292,11 @@ async fn a_sheet_of_two_thousand_lines_opens_quickly_and_its_list_scrolls() {
         tokio::time::sleep(std::time::Duration::from_millis(50)).await;
     }
     assert_eq!(lines_in_sheet(&h).await, 2001);
+    // Its feed is typed (Enter commits it): the new line joins the tree
+    // under Riser 7, indented beneath it in the list.
+    h.type_into("fed-from", "Riser 7\n").await;
+    until(&h, "const r = document.querySelector('.roster-row.selected'); return r ? r.dataset.depth : 'none'", "1")
+        .await;
     let page_width = h.client.execute("return document.documentElement.scrollWidth", vec![]).await.unwrap();
     assert!(page_width.as_f64().unwrap() <= 1024.0);
     for (name, w, hgt) in
@@ -904,6 +909,20 @@ async fn a_user_builds_a_three_level_tree_and_a_fixture_branch_in_the_served_pag
     h.finish().await;
 }
 
+/// Opens the worked steps and the design basis, and waits until the steps'
+/// table (drawn only while open) is there.
+async fn open_the_folded_parts(h: &Harness) {
+    h.client
+        .execute(
+            "document.querySelector('[data-testid=explain]').open = true; \
+             document.querySelector('details.basis').open = true;",
+            vec![],
+        )
+        .await
+        .unwrap();
+    until(h, "return String(document.querySelectorAll('[data-testid=explain] tbody tr').length > 5)", "true").await;
+}
+
 #[tokio::test(flavor = "multi_thread")]
 #[ignore = "needs dist/ and chromedriver: scripts/test runs it"]
 async fn nothing_makes_the_page_scroll_sideways_on_a_phone_or_a_tablet() {
@@ -913,14 +932,7 @@ async fn nothing_makes_the_page_scroll_sideways_on_a_phone_or_a_tablet() {
     h.wait_for("proposed-size").await;
     // The widest things the page draws: the size table, the worked steps
     // opened, the basis opened, and a gas line's two-ended answer.
-    h.client
-        .execute(
-            "document.querySelector('[data-testid=explain]').open = true; \
-             document.querySelector('details.basis').open = true;",
-            vec![],
-        )
-        .await
-        .unwrap();
+    open_the_folded_parts(&h).await;
     for (w, hgt) in [(390, 844), (768, 1024), (1024, 768)] {
         h.client.set_window_size(w, hgt).await.unwrap();
         tokio::time::sleep(std::time::Duration::from_millis(300)).await;
@@ -1009,16 +1021,7 @@ async fn axe_finds_no_serious_or_critical_accessibility_violations() {
                 h.click("open-demo").await;
                 h.wait_for("proposed-size").await;
             }
-            "opened" => {
-                h.client
-                    .execute(
-                        "document.querySelector('[data-testid=explain]').open = true; \
-                         document.querySelector('details.basis').open = true;",
-                        vec![],
-                    )
-                    .await
-                    .unwrap();
-            }
+            "opened" => open_the_folded_parts(&h).await,
             "gas" => {
                 h.select("add-service", "compressed-air").await;
                 h.click("add-line").await;

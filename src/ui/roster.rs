@@ -18,7 +18,9 @@ pub fn Roster() -> impl IntoView {
     let fold = Fold::new(sheet);
     provide_context(fold);
     let list = NodeRef::<leptos::html::Div>::new();
-    // A long sheet's "fed from" is typed, with every line's name suggested.
+    // A long sheet: its list is drawn as a window of rows (even with most
+    // of it folded away, so folding never draws every row), and its "fed
+    // from" is typed, with every line's name suggested.
     let long = Memo::new(move |_| sheet.lines.with(Vec::len) >= WINDOW_FROM);
     // The first row drawn (a long list draws only the rows near its scroll
     // position) and the measured distance from one row to the next.
@@ -26,7 +28,7 @@ pub fn Roster() -> impl IntoView {
     let pitch = RwSignal::new(DEFAULT_PITCH_PX);
     let window = Memo::new(move |_| {
         let shown = sheet.lines.with(|v| v.len()) - fold.hidden.with(Vec::len);
-        Window::of(shown, first.get(), pitch.get())
+        Window::of(long.get(), shown, first.get(), pitch.get())
     });
     let scrolled = move || {
         let Some(el) = list.get_untracked() else { return };
@@ -83,7 +85,11 @@ pub fn Roster() -> impl IntoView {
             return;
         }
         let Some(k) = shown_lines(sheet, fold).iter().position(|s| s.id == id) else { return };
-        if k < w.start + OVERSCAN.min(w.start) || k + 1 > w.end.saturating_sub(OVERSCAN) {
+        // The rows in view are those after the overscan at the top and
+        // well before the window's end; a row chosen there stays put.
+        let above_view = w.start > 0 && k < w.start + OVERSCAN;
+        let below_view = k + OVERSCAN >= w.end && w.end < w.shown;
+        if above_view || below_view || k >= w.end {
             if let Some(el) = list.get_untracked() {
                 el.set_scroll_top((k.saturating_sub(1) as f64 * w.pitch) as i32);
             }
@@ -215,8 +221,8 @@ struct Window {
 }
 
 impl Window {
-    fn of(shown: usize, first: usize, pitch: f64) -> Window {
-        if shown < WINDOW_FROM {
+    fn of(long: bool, shown: usize, first: usize, pitch: f64) -> Window {
+        if !long {
             return Window { windowed: false, shown, start: 0, end: shown, pitch };
         }
         let start = first.min(shown.saturating_sub(WINDOW_ROWS));
