@@ -30,16 +30,20 @@ pub fn Roster() -> impl IntoView {
         let shown = sheet.lines.with(|v| v.len()) - fold.hidden.with(Vec::len);
         Window::of(long.get(), shown, first.get(), pitch.get())
     });
+    // `try_`: also run from a timer, which may come after this list was
+    // replaced by another worksheet's.
     let scrolled = move || {
-        let Some(el) = list.get_untracked() else { return };
+        let Some(el) = list.try_get_untracked().flatten() else { return };
+        let Some(old) = pitch.try_get_untracked() else { return };
         if let Some(p) = measured_pitch(&el) {
-            if (p - pitch.get_untracked()).abs() > 0.5 {
-                pitch.set(p);
+            if (p - old).abs() > 0.5 {
+                pitch.try_set(p);
             }
         }
-        let k = Window::first_for(f64::from(el.scroll_top()), pitch.get_untracked());
-        if k != first.get_untracked() {
-            first.set(k);
+        let Some(p) = pitch.try_get_untracked() else { return };
+        let k = Window::first_for(f64::from(el.scroll_top()), p);
+        if first.try_get_untracked().is_some_and(|f| f != k) {
+            first.try_set(k);
         }
     };
     // The box and the list follow the window: one effect writing the DOM
@@ -47,6 +51,11 @@ pub fn Roster() -> impl IntoView {
     Effect::new(move |_| {
         let w = window.get();
         let n = sheet.lines.with(Vec::len);
+        if !w.windowed && first.get_untracked() != 0 {
+            // A short list does not scroll in its box: a list that grows
+            // long again starts from its top, where its box is.
+            first.set(0);
+        }
         let Some(el) = list.get() else { return };
         let _ = el.class_list().toggle_with_force("windowed", w.windowed);
         let label = w
@@ -74,6 +83,12 @@ pub fn Roster() -> impl IntoView {
                 Some(v) => style.set_property(name, &v),
                 None => style.remove_property(name).map(drop),
             };
+        }
+        if w.windowed {
+            // The box may have been scrolled without a scroll event (the
+            // browser keeps a position across the list growing long
+            // again): draw the rows where it is.
+            super::state::after_redraw(scrolled);
         }
     });
     // A line selected from elsewhere (added, copied, opened) is scrolled to
