@@ -144,7 +144,7 @@ fn FlowAndFluid() -> impl IntoView {
         sheet.lines.with(|v| v.iter().map(|s| s.joint.with(|j| j.name.trim().to_owned())).collect::<Vec<_>>())
     });
     let own_name = Memo::new(move |_| file.with(|f| f.name.trim().to_owned()));
-    let long = Memo::new(move |_| sheet.lines.with(Vec::len) >= super::roster::WINDOW_FROM);
+    let long = sheet.long;
     let fed_from = Memo::new(move |_| file.with(|f| f.fed_from.clone()));
     let is_glycol =
         move |g: Glycol| file.with(|f| matches!(&f.fluid, FluidFile::Glycol { glycol, .. } if *glycol == g));

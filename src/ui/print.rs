@@ -243,8 +243,8 @@ pub const PRINT_FOLLOW_MS: i32 = 400;
 /// reactive path while someone types: its lines follow the worksheet
 /// [`PRINT_FOLLOW_MS`] after a change (one redraw for however many
 /// keystrokes came meanwhile), and at once when the browser is about to
-/// print. A long sheet (from [`super::roster::WINDOW_FROM`] lines) has its
-/// lines drawn only when the browser is about to print, and dropped after.
+/// print. A long sheet ([`Sheet::long`]) has its lines drawn only when the
+/// browser is about to print, and dropped after.
 #[component]
 pub fn PrintSheet() -> impl IntoView {
     let sheet = expect_context::<Sheet>();
@@ -280,7 +280,7 @@ pub fn PrintSheet() -> impl IntoView {
         });
     }
     let rows = move || {
-        let drawn = armed.get() || sheet.lines.with(|v| v.len()) < super::roster::WINDOW_FROM;
+        let drawn = armed.get() || !sheet.long.get();
         if drawn {
             sheet.lines.get().into_iter().enumerate().collect::<Vec<_>>()
         } else {

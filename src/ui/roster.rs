@@ -18,10 +18,9 @@ pub fn Roster() -> impl IntoView {
     let fold = Fold::new(sheet);
     provide_context(fold);
     let list = NodeRef::<leptos::html::Div>::new();
-    // A long sheet: its list is drawn as a window of rows (even with most
-    // of it folded away, so folding never draws every row), and its "fed
-    // from" is typed, with every line's name suggested.
-    let long = Memo::new(move |_| sheet.lines.with(Vec::len) >= WINDOW_FROM);
+    // A long sheet's list is drawn as a window of rows (even with most of
+    // it folded away, so folding never draws every row).
+    let long = sheet.long;
     // The first row drawn (a long list draws only the rows near its scroll
     // position) and the measured distance from one row to the next.
     let first = RwSignal::new(0usize);

@@ -93,6 +93,10 @@ pub struct Sheet {
     pub lines: RwSignal<Vec<Slot>>,
     /// The lines joined into a system.
     pub joined: Memo<Joined>,
+    /// Whether the sheet is long ([`super::roster::WINDOW_FROM`] lines or
+    /// more): its list is drawn as a window of rows, its "fed from" is
+    /// typed, its print sheet is drawn only for printing.
+    pub long: Memo<bool>,
     /// The line being edited.
     pub selected: RwSignal<Option<u32>>,
     /// The last deleted line and where it was, for undo.
@@ -169,6 +173,7 @@ impl Sheet {
                 resolved,
                 lines,
                 joined,
+                long: Memo::new(move |_| lines.with(Vec::len) >= super::roster::WINDOW_FROM),
                 selected: RwSignal::new(None),
                 deleted: RwSignal::new(None),
                 next_id: StoredValue::new(1),
