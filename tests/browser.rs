@@ -343,9 +343,14 @@ async fn the_worked_steps_are_drawn_only_while_open_and_follow_each_edit() {
 #[wasm_bindgen_test]
 async fn a_long_sheet_draws_a_window_of_rows_and_its_print_sheet_only_for_printing() {
     let n = headroom::ui::roster::WINDOW_FROM + 20;
+    // A system: every riser fed from the first.
     let (root, sheet) = mount_sheet(move |s| {
         for k in 1..=n {
             chilled(s, &format!("Riser {k}"), "4");
+            if k > 1 {
+                let slot = s.lines.with_untracked(|v| v.last().cloned()).unwrap();
+                slot.file.update(|f| f.fed_from = Some("Riser 1".into()));
+            }
         }
     });
     leptos::task::tick().await;
@@ -355,12 +360,15 @@ async fn a_long_sheet_draws_a_window_of_rows_and_its_print_sheet_only_for_printi
     // The print sheet holds no line until the browser is about to print.
     let printed = || text(&root, "print-sheet");
     assert!(!printed().contains("Riser 1"), "drawn before printing");
+    assert!(root.query_selector("[data-testid=print-system]").unwrap().is_none(), "system drawn before printing");
     web_sys::window().unwrap().dispatch_event(&web_sys::Event::new("beforeprint").unwrap()).unwrap();
     leptos::task::tick().await;
     assert!(printed().contains(&format!("Riser {n}")), "every line printed");
+    assert!(text(&root, "print-system").contains("Index circuit: Riser 1 → Riser"), "{}", printed());
     web_sys::window().unwrap().dispatch_event(&web_sys::Event::new("afterprint").unwrap()).unwrap();
     leptos::task::tick().await;
     assert!(!printed().contains("Riser 1"), "dropped after printing");
+    assert!(root.query_selector("[data-testid=print-system]").unwrap().is_none(), "system dropped after printing");
 }
 
 #[wasm_bindgen_test]

@@ -297,9 +297,11 @@ pub fn PrintSheet() -> impl IntoView {
             </header>
             <For each=rows key=|(i, s)| (*i, s.id) children=move |(i, s)| view! { <PrintLine line=s number=i + 1 stamp=stamp/> }/>
             {move || {
-                // Follows the stamp, like the lines: not on every keystroke.
+                // Follows the stamp, like the lines: not on every keystroke;
+                // for a long sheet, only for printing, like its lines.
                 stamp.track();
-                let (tree, lines, plot) = if sheet.joined.with_untracked(|j| j.tree.is_system()) {
+                let drawn = armed.get() || !sheet.long.get();
+                let (tree, lines, plot) = if drawn && sheet.joined.with_untracked(|j| j.tree.is_system()) {
                     let reports: Vec<_> = sheet.lines.with_untracked(|v| v.iter().map(|s| s.report.get_untracked()).collect());
                     let file = sheet.to_file();
                     let u = file.units();

@@ -43,7 +43,7 @@ pub struct Slot {
     /// Whether the line is on the path whose drops are summed.
     pub in_path: RwSignal<bool>,
     /// What joining the sheet reads of it (name, feed, load, diversity).
-    pub joint: Memo<Joint>,
+    pub joint: RwSignal<Joint>,
     /// Its place in the system: depth, the load it carries, problems with
     /// what it is fed from. Changes only when those do.
     pub place: Memo<Place>,
@@ -151,17 +151,26 @@ impl Sheet {
             let lines: RwSignal<Vec<Slot>> = RwSignal::new(Vec::new());
             // Reads each line's joint memo, not its text: an edit that
             // changes no name, feed or load does not re-run this at all.
-            let joined = Memo::new(move |_| {
+            // Gathered in a memo of its own so that `joined`, which every
+            // line's place reads, has two sources, not one per line: the
+            // reactive graph copies a memo's list of sources each time a
+            // reader checks it.
+            let joints = Memo::new(move |_| {
                 lines.with(|v| {
                     let ids: Vec<u32> = v.iter().map(|s| s.id).collect();
                     let joints: Vec<Joint> = v.iter().map(|s| s.joint.get()).collect();
-                    let tree = system::tree_of(&joints);
+                    (ids, joints)
+                })
+            });
+            let joined = Memo::new(move |_| {
+                joints.with(|(ids, joints)| {
+                    let tree = system::tree_of(joints);
                     let carried = if tree.is_system() {
-                        system::carried_of(&joints, &tree, &resolved.get())
+                        system::carried_of(joints, &tree, &resolved.get())
                     } else {
                         vec![None; joints.len()]
                     };
-                    Joined { ids, tree, carried }
+                    Joined { ids: ids.clone(), tree, carried }
                 })
             });
             Sheet {
@@ -208,7 +217,17 @@ impl Sheet {
         let joined = self.joined;
         owner.with(|| {
             let file = RwSignal::new(file);
-            let joint = Memo::new(move |_| file.with(Joint::of));
+            // A signal, set only when the line's name, feed or load changes:
+            // a keystroke in any other field then reaches nothing that joins
+            // the sheet (a memo here would mark the whole sheet's places,
+            // results and rows to be checked on every keystroke).
+            let joint = RwSignal::new(file.with_untracked(Joint::of));
+            Effect::new(move |_| {
+                let now = file.with(Joint::of);
+                if joint.with_untracked(|j| *j != now) {
+                    joint.set(now);
+                }
+            });
             let place = Memo::new(move |_| {
                 joined.with(|j| match j.ids.iter().position(|&x| x == id) {
                     Some(i) => Place {
