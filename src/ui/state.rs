@@ -149,8 +149,8 @@ impl Sheet {
                 r
             });
             let lines: RwSignal<Vec<Slot>> = RwSignal::new(Vec::new());
-            // Reads each line's joint memo, not its text: an edit that
-            // changes no name, feed or load does not re-run this at all.
+            // Reads each line's joint, not its text: an edit that changes
+            // no name, feed or load does not re-run this at all.
             // Gathered in a memo of its own so that `joined`, which every
             // line's place reads, has two sources, not one per line: the
             // reactive graph copies a memo's list of sources each time a
