@@ -335,9 +335,24 @@ async fn the_worked_steps_are_drawn_only_while_open_and_follow_each_edit() {
     assert!(text(&root, "explain").contains("Reynolds"));
     // They follow an edit of the flow while open.
     let before = text(&root, "explain");
+    let sizes_before = text(&root, "size-table");
+    let head = root.query_selector("[data-testid=size-table] thead").unwrap().unwrap();
+    let summary = root.query_selector("[data-testid=explain] summary").unwrap().unwrap();
     type_into(&root, "flow", "9");
     leptos::task::tick().await;
     assert_ne!(text(&root, "explain"), before);
+    assert_ne!(text(&root, "size-table"), sizes_before, "the size rows follow the edit");
+    assert!(head.is_connected() && summary.is_connected());
+    // With no result both are hidden, and come back with one: the same
+    // elements, drawn once (before, the table was drawn afresh).
+    type_into(&root, "flow", "x");
+    leptos::task::tick().await;
+    let hidden = |sel: &str| root.query_selector(sel).unwrap().unwrap().class_list().contains("hidden");
+    assert!(hidden(".table-wrap") && hidden("[data-testid=explain]"));
+    type_into(&root, "flow", "9");
+    leptos::task::tick().await;
+    assert!(!hidden(".table-wrap") && !hidden("[data-testid=explain]"));
+    assert!(head.is_connected() && summary.is_connected(), "the same table and steps");
 }
 
 #[wasm_bindgen_test]

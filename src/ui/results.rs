@@ -29,8 +29,10 @@ pub fn LineResults(
                         <p>"Fix the fields marked in red to see sizes."</p>
                     </div>
                 }.into_any(),
-                Some((o, d)) => view! { <Answer o=o.clone()/> <SizeTable o=o d=d.clone() file=file/> <Explain steps=d.trace open=steps_open/> }.into_any(),
+                Some((o, _)) => view! { <Answer o=o/> }.into_any(),
             }}}
+            <SizeTable shown=shown file=file/>
+            <Explain shown=shown open=steps_open/>
             <Moody shown=shown/>
         </section>
     }
@@ -150,11 +152,30 @@ fn Answer(o: Outcome) -> impl IntoView {
     }
 }
 
+/// The sizes around the answer. The table, its caption and headings are
+/// drawn once; only the rows follow the result (a rebuilt element has
+/// every attribute taken off and put back).
 #[component]
-fn SizeTable(o: Outcome, d: Detail, file: RwSignal<crate::sheet::file::LineFile>) -> impl IntoView {
+fn SizeTable(shown: Memo<Option<(Outcome, Detail)>>, file: RwSignal<crate::sheet::file::LineFile>) -> impl IntoView {
+    let rows = move || shown.with(|s| s.as_ref().map(|(o, d)| size_rows(o, d, file)));
+    view! {
+        <div class="table-wrap" class:hidden=move || shown.with(Option::is_none)>
+            <table class="sizes" data-testid="size-table">
+                <caption>"Sizes around the answer (Check pins a size; capacity is the largest flow within the limits)"</caption>
+                <thead><tr>
+                    <th scope="col">"Size"</th><th scope="col">"ID"</th><th scope="col">"V"</th><th scope="col">"Re"</th>
+                    <th scope="col">"f"</th><th scope="col">"Regime"</th><th scope="col">"Δp/L"</th><th scope="col">"Δp total"</th>
+                    <th scope="col">"Capacity"</th><th scope="col">"Verdict"</th><th scope="col">"Binding limit"</th><th scope="col"><span class="sr">"Check mode"</span></th>
+                </tr></thead>
+                <tbody>{rows}</tbody>
+            </table>
+        </div>
+    }
+}
+
+fn size_rows(o: &Outcome, d: &Detail, file: RwSignal<crate::sheet::file::LineFile>) -> impl IntoView {
     let pinned = o.checked;
-    let rows = d
-        .nearby
+    d.nearby
         .iter()
         .map(|near| {
             let i = near.index;
@@ -191,20 +212,7 @@ fn SizeTable(o: Outcome, d: Detail, file: RwSignal<crate::sheet::file::LineFile>
                 </tr>
             }
         })
-        .collect_view();
-    view! {
-        <div class="table-wrap">
-            <table class="sizes" data-testid="size-table">
-                <caption>"Sizes around the answer (Check pins a size; capacity is the largest flow within the limits)"</caption>
-                <thead><tr>
-                    <th scope="col">"Size"</th><th scope="col">"ID"</th><th scope="col">"V"</th><th scope="col">"Re"</th>
-                    <th scope="col">"f"</th><th scope="col">"Regime"</th><th scope="col">"Δp/L"</th><th scope="col">"Δp total"</th>
-                    <th scope="col">"Capacity"</th><th scope="col">"Verdict"</th><th scope="col">"Binding limit"</th><th scope="col"><span class="sr">"Check mode"</span></th>
-                </tr></thead>
-                <tbody>{rows}</tbody>
-            </table>
-        </div>
-    }
+        .collect_view()
 }
 
 /// The Moody chart with every candidate's operating point. The grid and
@@ -261,23 +269,30 @@ pub fn Moody(
     }
 }
 
-/// The worked steps, folded. Their table is drawn only while they are
-/// open: redrawn on every keystroke, it cost more than the answer.
+/// The worked steps, folded. Their rows are drawn only while they are
+/// open (redrawn on every keystroke, they cost more than the answer); the
+/// rest is drawn once.
 #[component]
-fn Explain(steps: Vec<Step>, open: RwSignal<bool>) -> impl IntoView {
+fn Explain(shown: Memo<Option<(Outcome, Detail)>>, open: RwSignal<bool>) -> impl IntoView {
     let details = NodeRef::<leptos::html::Details>::new();
+    let steps = move || {
+        if !open.get() {
+            return Vec::new();
+        }
+        shown.with(|s| s.as_ref().map(|(_, d)| d.trace.clone()).unwrap_or_default())
+    };
     view! {
-        <details class="explain" data-testid="explain" node_ref=details prop:open=move || open.get()
+        <details class="explain" class:hidden=move || shown.with(Option::is_none) data-testid="explain" node_ref=details prop:open=move || open.get()
             on:toggle=move |_| { if let Some(d) = details.get_untracked() { if d.open() != open.get_untracked() { open.set(d.open()) } } }>
             <summary>"How this was worked out"</summary>
             <p>"The friction factor depends only on the Reynolds number and the relative roughness, f = φ(Re, ε/D); every other number here follows from the fluid, the pipe and the line."</p>
             <table>
                 <thead><tr><th scope="col">"Quantity"</th><th scope="col">"Formula"</th><th scope="col">"Value (SI)"</th><th scope="col">"Source"</th></tr></thead>
                 <tbody>
-                    {move || open.get().then(|| steps.clone().into_iter().map(|s| view! {
+                    {move || steps().into_iter().map(|s: Step| view! {
                         <tr><th scope="row">{s.symbol}" "<span class="muted">{s.name}</span></th><td><code>{s.formula}</code></td>
                         <td>{format!("{} {}", format_number(s.value, 5), s.unit)}</td><td class="muted">{s.source}</td></tr>
-                    }).collect_view())}
+                    }).collect_view()}
                 </tbody>
             </table>
         </details>
