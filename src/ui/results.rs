@@ -22,14 +22,14 @@ pub fn LineResults(
     let steps_open = RwSignal::new(false);
     view! {
         <section class="results" id="answer-panel" aria-label="Answer" data-testid="results">
-            {move || { match shown.get() {
+            {move || { match shown.with(|s| s.as_ref().map(|(o, _)| o.clone())) {
                 None => view! {
                     <div class="answer answer-wait" data-testid="answer">
                         <p class="answer-size" data-testid="proposed-size">"—"</p>
                         <p>"Fix the fields marked in red to see sizes."</p>
                     </div>
                 }.into_any(),
-                Some((o, _)) => view! { <Answer o=o/> }.into_any(),
+                Some(o) => view! { <Answer o=o/> }.into_any(),
             }}}
             <SizeTable shown=shown file=file/>
             <Explain shown=shown open=steps_open/>
