@@ -20,6 +20,9 @@ pub fn LineResults(
     let shown = line.detail;
     // Whether the worked steps are open: their table is drawn only then.
     let steps_open = RwSignal::new(false);
+    // Whether there is no result: the table, steps and chart are hidden.
+    // One memo, so their classes change only when this does.
+    let none = Memo::new(move |_| shown.with(Option::is_none));
     view! {
         <section class="results" id="answer-panel" aria-label="Answer" data-testid="results">
             {move || { match shown.with(|s| s.as_ref().map(|(o, _)| o.clone())) {
@@ -31,9 +34,9 @@ pub fn LineResults(
                 }.into_any(),
                 Some(o) => view! { <Answer o=o/> }.into_any(),
             }}}
-            <SizeTable shown=shown file=file/>
-            <Explain shown=shown open=steps_open/>
-            <Moody shown=shown/>
+            <SizeTable shown=shown none=none file=file/>
+            <Explain shown=shown none=none open=steps_open/>
+            <Moody shown=shown none=none/>
         </section>
     }
 }
@@ -156,10 +159,14 @@ fn Answer(o: Outcome) -> impl IntoView {
 /// drawn once; only the rows follow the result (a rebuilt element has
 /// every attribute taken off and put back).
 #[component]
-fn SizeTable(shown: Memo<Option<(Outcome, Detail)>>, file: RwSignal<crate::sheet::file::LineFile>) -> impl IntoView {
+fn SizeTable(
+    shown: Memo<Option<(Outcome, Detail)>>,
+    none: Memo<bool>,
+    file: RwSignal<crate::sheet::file::LineFile>,
+) -> impl IntoView {
     let rows = move || shown.with(|s| s.as_ref().map(|(o, d)| size_rows(o, d, file)));
     view! {
-        <div class="table-wrap" class:hidden=move || shown.with(Option::is_none)>
+        <div class="table-wrap" class:hidden=none>
             <table class="sizes" data-testid="size-table">
                 <caption>"Sizes around the answer (Check pins a size; capacity is the largest flow within the limits)"</caption>
                 <thead><tr>
@@ -222,6 +229,8 @@ fn size_rows(o: &Outcome, d: &Detail, file: RwSignal<crate::sheet::file::LineFil
 pub fn Moody(
     /// The line's result, if it has one.
     shown: Memo<Option<(Outcome, Detail)>>,
+    /// Whether there is no result (the chart is hidden).
+    none: Memo<bool>,
 ) -> impl IntoView {
     let c = chart::background();
     let (px, py, pw, ph) = chart::plot_area();
@@ -236,7 +245,7 @@ pub fn Moody(
         })
     };
     view! {
-        <figure class="moody" class:hidden=move || shown.with(Option::is_none)>
+        <figure class="moody" class:hidden=none>
             <svg viewBox=view_box role="img" aria-labelledby="moody-title" data-testid="moody">
                 <title id="moody-title">"Moody chart: friction factor against Reynolds number, with each size's operating point"</title>
                 <rect class="plot" x=px y=py width=pw height=ph/>
@@ -273,7 +282,7 @@ pub fn Moody(
 /// open (redrawn on every keystroke, they cost more than the answer); the
 /// rest is drawn once.
 #[component]
-fn Explain(shown: Memo<Option<(Outcome, Detail)>>, open: RwSignal<bool>) -> impl IntoView {
+fn Explain(shown: Memo<Option<(Outcome, Detail)>>, none: Memo<bool>, open: RwSignal<bool>) -> impl IntoView {
     let details = NodeRef::<leptos::html::Details>::new();
     let steps = move || {
         if !open.get() {
@@ -282,7 +291,7 @@ fn Explain(shown: Memo<Option<(Outcome, Detail)>>, open: RwSignal<bool>) -> impl
         shown.with(|s| s.as_ref().map(|(_, d)| d.trace.clone()).unwrap_or_default())
     };
     view! {
-        <details class="explain" class:hidden=move || shown.with(Option::is_none) data-testid="explain" node_ref=details prop:open=move || open.get()
+        <details class="explain" class:hidden=none data-testid="explain" node_ref=details prop:open=move || open.get()
             on:toggle=move |_| { if let Some(d) = details.get_untracked() { if d.open() != open.get_untracked() { open.set(d.open()) } } }>
             <summary>"How this was worked out"</summary>
             <p>"The friction factor depends only on the Reynolds number and the relative roughness, f = φ(Re, ε/D); every other number here follows from the fluid, the pipe and the line."</p>
