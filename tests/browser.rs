@@ -372,7 +372,7 @@ async fn a_long_sheet_draws_a_window_of_rows_and_its_print_sheet_only_for_printi
     let rows = root.query_selector_all("[data-testid=roster-row]").unwrap().length() as usize;
     assert!(rows < n / 2, "{rows} of {n} rows drawn");
     assert_eq!(sheet.lines.with_untracked(Vec::len), n);
-    // The print sheet holds no line until the browser is about to print.
+    // The print sheet holds nothing until the browser is about to print.
     let printed = || text(&root, "print-sheet");
     assert!(!printed().contains("Riser 1"), "drawn before printing");
     assert!(root.query_selector("[data-testid=print-system]").unwrap().is_none(), "system drawn before printing");
@@ -387,33 +387,34 @@ async fn a_long_sheet_draws_a_window_of_rows_and_its_print_sheet_only_for_printi
 }
 
 #[wasm_bindgen_test]
-async fn the_print_sheet_follows_after_typing_stops_or_when_printing() {
+async fn the_print_sheet_is_drawn_only_when_printing_from_the_sheet_as_it_stands() {
     let (root, _) = mount_sheet(|s| chilled(s, "print me", "4"));
     leptos::task::tick().await;
     let printed = || text(&root, "print-sheet");
-    assert!(printed().contains("print me"));
-    // While typing, the hidden print sheet is left alone.
+    // Nothing of it while the page is used, however much is typed.
+    assert_eq!(printed(), "", "drawn before printing");
     for v in ["7", "77", "77.5"] {
         type_into(&root, "flow", v);
         leptos::task::tick().await;
     }
-    assert!(!printed().contains("77.5"), "redrawn on a keystroke");
-    // After a pause it has caught up.
-    let wait = js_sys::Promise::new(&mut |resolve, _| {
-        web_sys::window()
-            .unwrap()
-            .set_timeout_with_callback_and_timeout_and_arguments_0(&resolve, headroom::ui::print::PRINT_FOLLOW_MS + 200)
-            .unwrap();
-    });
-    wasm_bindgen_futures::JsFuture::from(wait).await.unwrap();
+    assert_eq!(printed(), "", "drawn on a keystroke");
+    // As the browser is about to print: every line, with the last value typed.
+    web_sys::window().unwrap().dispatch_event(&web_sys::Event::new("beforeprint").unwrap()).unwrap();
     leptos::task::tick().await;
-    assert!(printed().contains("77.5"));
-    // And at once when the browser is about to print.
+    assert!(printed().contains("print me"), "{}", printed());
+    assert!(printed().contains("77.5"), "{}", printed());
+    assert!(printed().contains("licensed professional"), "the caution is printed");
+    // Dropped after printing, and drawn afresh for the next print.
+    web_sys::window().unwrap().dispatch_event(&web_sys::Event::new("afterprint").unwrap()).unwrap();
+    leptos::task::tick().await;
+    assert_eq!(printed(), "", "kept after printing");
     type_into(&root, "flow", "88.25");
     leptos::task::tick().await;
     web_sys::window().unwrap().dispatch_event(&web_sys::Event::new("beforeprint").unwrap()).unwrap();
     leptos::task::tick().await;
-    assert!(printed().contains("88.25"));
+    assert!(printed().contains("88.25"), "{}", printed());
+    web_sys::window().unwrap().dispatch_event(&web_sys::Event::new("afterprint").unwrap()).unwrap();
+    leptos::task::tick().await;
 }
 
 #[wasm_bindgen_test]

@@ -133,6 +133,9 @@ pub struct Keeper {
     /// Whether the open worksheet has changes not yet saved.
     dirty: StoredValue<bool>,
     root: StoredValue<Owner>,
+    /// Whether the page has been drawn around a worksheet yet: until then
+    /// a worksheet replaced is disposed at once, with no redraw to wait for.
+    drawn: StoredValue<bool>,
     notices: Notices,
 }
 
@@ -222,6 +225,7 @@ impl Keeper {
             rev: StoredValue::new(0),
             dirty: StoredValue::new(false),
             root: StoredValue::new(Owner::current().unwrap_or_default()),
+            drawn: StoredValue::new(false),
             notices,
         };
         keeper.refresh_lists();
@@ -249,6 +253,7 @@ impl Keeper {
             let _ = keeper.library.with_value(|l| l.kv().set(BUILD_KEY, &build));
         }
         keeper.ask_to_persist();
+        keeper.drawn.set_value(true);
         keeper
     }
 
@@ -307,7 +312,8 @@ impl Keeper {
     }
 
     /// Shows a worksheet file as the open one: a new [`Sheet`] in a scope
-    /// of its own; the old one is disposed after the page is redrawn.
+    /// of its own; the old one is disposed after the page is redrawn
+    /// (at once while the keeper starts: nothing has been drawn yet).
     fn show(&self, id: &str, file: SheetFile, rev: u64) {
         self.current.set(id.to_owned());
         self.rev.set_value(rev);
@@ -320,7 +326,11 @@ impl Keeper {
         let fresh = self.root.with_value(|o| o.with(|| Sheet::from_file(file)));
         let old = self.sheet.get_untracked();
         self.sheet.set(fresh);
-        old.dispose_later();
+        if self.drawn.get_value() {
+            old.dispose_later();
+        } else {
+            old.dispose_now();
+        }
     }
 
     /// Reads a stored worksheet and shows it; `false` (with a notice) when

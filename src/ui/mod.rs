@@ -142,7 +142,7 @@ pub fn Desk(
 
 /// The sheet-wide design basis: open system or closed loop, the margin
 /// above a glycol's freezing point, and whether rarely stocked sizes are
-/// searched.
+/// searched. Its fields are drawn only while it is open.
 #[component]
 fn DesignBasis() -> impl IntoView {
     use crate::hydraulics::demand::Method;
@@ -154,9 +154,11 @@ fn DesignBasis() -> impl IntoView {
         Circuit::Open => "Basis: open system",
         Circuit::Closed => "Basis: closed loop",
     };
-    view! {
-        <details class="basis" data-testid="basis">
-            <summary>{summary}</summary>
+    // Folded when the page starts: its fields are drawn only once opened.
+    let open = RwSignal::new(false);
+    let details = NodeRef::<leptos::html::Details>::new();
+    let fields = move || {
+        open.get().then(|| view! {
             <label>"Circuit"
                 <select data-testid="basis-circuit" on:change=move |ev| {
                     let v = event_target_value(&ev);
@@ -198,6 +200,13 @@ fn DesignBasis() -> impl IntoView {
                     on:change=move |ev| basis.update(|b| b.every_size = event_target_checked(&ev))/>
                 "Search rarely stocked sizes too (by default they are left out: common practice)"
             </label>
+    })
+    };
+    view! {
+        <details class="basis" data-testid="basis" node_ref=details
+            on:toggle=move |_| { if let Some(d) = details.get_untracked() { if d.open() != open.get_untracked() { open.set(d.open()) } } }>
+            <summary>{summary}</summary>
+            {fields}
         </details>
     }
 }

@@ -4,7 +4,7 @@
 
 use leptos::prelude::*;
 
-use super::state::{after, listen, Sheet, Slot};
+use super::state::{listen, Sheet, Slot};
 use crate::hydraulics::line::{Method, Pipe};
 use crate::hydraulics::losses::Fitting;
 use crate::sheet::file::{ComponentKind, FluidFile, LineFile, PipeFile};
@@ -74,10 +74,10 @@ fn fluid_text(f: &LineFile) -> String {
 
 // Over 60 lines on purpose: one line's printed record (inputs, assumptions, answer), kept whole so it reads as printed.
 #[component]
-fn PrintLine(line: Slot, number: usize, stamp: RwSignal<u32>) -> impl IntoView {
-    let body = move || {
-        // Redrawn when the sheet's print stamp moves, not on every keystroke.
-        stamp.track();
+fn PrintLine(line: Slot, number: usize) -> impl IntoView {
+    let body = {
+        // Read once, as the browser is about to print: nothing here follows
+        // an edit.
         let f = line.file.get_untracked();
         let r = line.report.get_untracked();
         let inputs = vec![
@@ -235,99 +235,68 @@ fn PrintLine(line: Slot, number: usize, stamp: RwSignal<u32>) -> impl IntoView {
     view! { <section class="print-line">{body}</section> }
 }
 
-/// How long after a change the print sheet follows it (a choice of ours:
-/// a few times a second while typing, long before anyone prints).
-pub const PRINT_FOLLOW_MS: i32 = 400;
-
-/// The review sheet, shown only when printing. It stays out of the
-/// reactive path while someone types: its lines follow the worksheet
-/// [`PRINT_FOLLOW_MS`] after a change (one redraw for however many
-/// keystrokes came meanwhile), and at once when the browser is about to
-/// print. A long sheet ([`Sheet::long`]) has its lines drawn only when the
-/// browser is about to print, and dropped after.
+/// The review sheet, shown only when printing. Nothing of it is drawn
+/// until the browser is about to print (`beforeprint`, which printing to
+/// PDF fires too); it is drawn then from the worksheet as it stands and
+/// dropped after (`afterprint`). So it costs nothing when the page starts
+/// and nothing on a keystroke.
 #[component]
 pub fn PrintSheet() -> impl IntoView {
     let sheet = expect_context::<Sheet>();
-    let stamp = RwSignal::new(0u32);
-    let pending = StoredValue::new(false);
-    // `try_`: a timer or print event may arrive after this desk was
-    // replaced by another worksheet's, when these values are gone.
-    let follow = move || {
-        stamp.try_update(|n| *n = n.wrapping_add(1));
-    };
-    Effect::new(move |first: Option<()>| {
-        sheet.lines.with(|v| v.iter().for_each(|s| s.file.track()));
-        sheet.resolved.track();
-        if first.is_none() || pending.get_value() {
-            return;
-        }
-        pending.set_value(true);
-        after(PRINT_FOLLOW_MS, move || {
-            pending.try_set_value(false);
-            follow();
-        });
-    });
-    // A long sheet's lines are drawn only for printing: drawing two
-    // thousand printed records would cost seconds on every opening.
     let armed = RwSignal::new(false);
     if let Some(w) = web_sys::window() {
+        // `try_`: a print event may arrive after this desk was replaced by
+        // another worksheet's, when this signal is gone.
         listen(&w, "beforeprint", move |_| {
             armed.try_set(true);
-            follow();
         });
         listen(&w, "afterprint", move |_| {
             armed.try_set(false);
         });
     }
-    let rows = move || {
-        let drawn = armed.get() || !sheet.long.get();
-        if drawn {
-            sheet.lines.get().into_iter().enumerate().collect::<Vec<_>>()
-        } else {
-            Vec::new()
-        }
-    };
     view! {
         <article class="print-sheet" data-testid="print-sheet" aria-hidden="true">
-            <header>
-                <h1>{move || sheet.project.with(|p| display_name(p))}</h1>
-                <p>{move || format!("Pipe sizing review sheet · {} · Headroom {}", sheet.date.get(), env!("CARGO_PKG_VERSION"))}</p>
-                <p class="print-caution"><strong>"Caution: "</strong>{CAUTION}</p>
-                <p data-testid="print-circuit">{move || circuit_note(&sheet.resolved.get())}</p>
-            </header>
-            <For each=rows key=|(i, s)| (*i, s.id) children=move |(i, s)| view! { <PrintLine line=s number=i + 1 stamp=stamp/> }/>
-            {move || {
-                // Follows the stamp, like the lines: not on every keystroke;
-                // for a long sheet, only for printing, like its lines.
-                stamp.track();
-                let drawn = armed.get() || !sheet.long.get();
-                let (tree, lines, plot) = if drawn && sheet.joined.with_untracked(|j| j.tree.is_system()) {
-                    let reports: Vec<_> = sheet.lines.with_untracked(|v| v.iter().map(|s| s.report.get_untracked()).collect());
-                    let file = sheet.to_file();
-                    let u = file.units();
-                    let sum = sheet.joined.with_untracked(|j| crate::sheet::system::summarise(&j.tree, &reports, &u, &file.system));
-                    (
-                        crate::sheet::report::tree_lines(&file, &reports),
-                        crate::sheet::report::system_lines_of(&file, &sum),
-                        crate::sheet::duty_plot::plot(&sum, &u),
-                    )
-                } else {
-                    (Vec::new(), Vec::new(), None)
-                };
-                (!lines.is_empty()).then(|| view! {
-                    <section class="print-system" data-testid="print-system">
-                        <h2>"System"</h2>
-                        <pre class="print-tree" data-testid="print-tree">{tree.join("\n")}</pre>
-                        {lines.into_iter().map(|l| view! { <p>{l}</p> }).collect_view()}
-                        {plot.map(|p| view! { <super::system::DutyPlot plot=p/> })}
-                    </section>
-                })
-            }}
-            <footer>
-                <h2>"Sources"</h2>
-                <ul>{SOURCES.iter().map(|s| view! { <li>{*s}</li> }).collect_view()}</ul>
-                <p class="print-caution"><strong>"Caution: "</strong>{CAUTION}" Velocity limits guard against noise and erosion but not against water hammer; check pressure ratings, surge and local code requirements separately."</p>
-            </footer>
+            {move || armed.get().then(|| printed(sheet))}
         </article>
+    }
+}
+
+/// The review sheet's content, read untracked from the worksheet as it is.
+fn printed(sheet: Sheet) -> impl IntoView {
+    let lines = sheet.lines.get_untracked();
+    let (tree, system, plot) = if sheet.joined.with_untracked(|j| j.tree.is_system()) {
+        let reports: Vec<_> = lines.iter().map(|s| s.report.get_untracked()).collect();
+        let file = sheet.to_file();
+        let u = file.units();
+        let sum = sheet.joined.with_untracked(|j| crate::sheet::system::summarise(&j.tree, &reports, &u, &file.system));
+        (
+            crate::sheet::report::tree_lines(&file, &reports),
+            crate::sheet::report::system_lines_of(&file, &sum),
+            crate::sheet::duty_plot::plot(&sum, &u),
+        )
+    } else {
+        (Vec::new(), Vec::new(), None)
+    };
+    view! {
+        <header>
+            <h1>{sheet.project.with_untracked(|p| display_name(p))}</h1>
+            <p>{format!("Pipe sizing review sheet · {} · Headroom {}", sheet.date.get_untracked(), env!("CARGO_PKG_VERSION"))}</p>
+            <p class="print-caution"><strong>"Caution: "</strong>{CAUTION}</p>
+            <p data-testid="print-circuit">{circuit_note(&sheet.resolved.get_untracked())}</p>
+        </header>
+        {lines.into_iter().enumerate().map(|(i, s)| view! { <PrintLine line=s number=i + 1/> }).collect_view()}
+        {(!system.is_empty()).then(|| view! {
+            <section class="print-system" data-testid="print-system">
+                <h2>"System"</h2>
+                <pre class="print-tree" data-testid="print-tree">{tree.join("\n")}</pre>
+                {system.into_iter().map(|l| view! { <p>{l}</p> }).collect_view()}
+                {plot.map(|p| view! { <super::system::DutyPlot plot=p/> })}
+            </section>
+        })}
+        <footer>
+            <h2>"Sources"</h2>
+            <ul>{SOURCES.iter().map(|s| view! { <li>{*s}</li> }).collect_view()}</ul>
+            <p class="print-caution"><strong>"Caution: "</strong>{CAUTION}" Velocity limits guard against noise and erosion but not against water hammer; check pressure ratings, surge and local code requirements separately."</p>
+        </footer>
     }
 }

@@ -201,12 +201,16 @@ impl Sheet {
     /// Disposes this worksheet's scope once the page has been redrawn
     /// without it. Call after the page has been given another worksheet.
     pub fn dispose_later(self) {
-        after_redraw(move || {
-            if let Some(owner) = self.owner.try_get_value() {
-                owner.cleanup();
-            }
-            self.owner.dispose();
-        });
+        after_redraw(move || self.dispose_now());
+    }
+
+    /// Disposes this worksheet's scope now: only for a worksheet nothing on
+    /// the page is drawn from.
+    pub fn dispose_now(self) {
+        if let Some(owner) = self.owner.try_get_value() {
+            owner.cleanup();
+        }
+        self.owner.dispose();
     }
 
     fn make_slot(&self, file: LineFile) -> Slot {
