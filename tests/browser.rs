@@ -21,7 +21,7 @@ use web_sys::{HtmlElement, HtmlInputElement};
 
 mod web;
 
-use web::{all_text, choose, click, find, text, type_into};
+use web::{all_text, choose, click, find, next_frame, text, type_into};
 
 wasm_bindgen_test_configure!(run_in_browser);
 
@@ -527,6 +527,8 @@ async fn loads_add_up_a_three_level_tree_and_the_page_shows_the_pump_duty() {
         "{}",
         text(&root, "derived-flow")
     );
+    // The system follows a frame after the lines.
+    next_frame().await;
     let system = text(&root, "system-lines");
     assert!(system.contains("Index circuit: Main → Riser → Coil"), "{system}");
     assert!(system.contains("pump duty"), "{system}");
@@ -539,8 +541,8 @@ async fn loads_add_up_a_three_level_tree_and_the_page_shows_the_pump_duty() {
         root.query_selector_all("[data-testid=system] [data-testid=duty-plot] .duty-point").unwrap().length(),
         1
     );
-    // The print sheet shows the system too, once it follows (here: at once,
-    // as the browser is about to print).
+    // The print sheet shows the system too, drawn as the browser is about
+    // to print.
     web_sys::window().unwrap().dispatch_event(&web_sys::Event::new("beforeprint").unwrap()).unwrap();
     leptos::task::tick().await;
     leptos::task::tick().await;
@@ -623,12 +625,13 @@ async fn a_fixture_branch_gets_the_probable_flow_not_the_sum_of_its_fixtures() {
     let derived = text(&root, "derived-flow");
     assert!(derived.contains("for 36.25 WSFU (0 own + 36.25 from its branches)"), "{derived}");
     assert!(all_text(&root, "row-carried")[0].starts_with("36.25 WSFU"), "{:?}", all_text(&root, "row-carried"));
+    next_frame().await;
     assert!(text(&root, "system-lines").contains("Fixtures to flow: Hunter's method"));
     // The source pressure, typed in the system box, gives the pressure left
     // at each end line; switching to US units keeps its meaning.
     type_into(&root, "sys-source", "350");
     type_into(&root, "sys-outlet-min", "55");
-    leptos::task::tick().await;
+    next_frame().await;
     let lines = text(&root, "system-lines");
     assert!(lines.contains("Pressure left at each end line, worst first (source 350 kPa"), "{lines}");
     click(&root, "units-us");

@@ -271,7 +271,8 @@ impl Keeper {
             sheet.units.track();
             sheet.basis.track();
             sheet.system.track();
-            sheet.lines.with(|v| v.iter().for_each(|s| s.file.track()));
+            sheet.lines.track();
+            sheet.edited.track();
             if seen.get_value() != Some(sheet) {
                 // A worksheet just opened: what it shows is what is stored.
                 seen.set_value(Some(sheet));

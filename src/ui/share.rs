@@ -57,7 +57,8 @@ pub fn SharePanel() -> impl IntoView {
         sheet.units.track();
         sheet.basis.track();
         sheet.system.track();
-        sheet.lines.with(|v| v.iter().for_each(|s| s.file.track()));
+        sheet.lines.track();
+        sheet.edited.track();
         share_url(&sheet)
     });
     let copied = RwSignal::new(false);

@@ -91,6 +91,12 @@ pub struct Sheet {
     pub resolved: Memo<Units>,
     /// The lines in order.
     pub lines: RwSignal<Vec<Slot>>,
+    /// Notified whenever any line's text changes (by that line's own
+    /// effect). What follows every line's text (saving, the system, the
+    /// share link) tracks this and `lines`, not each line: tracking two
+    /// hundred lines costs a reader two hundred subscriptions redone on
+    /// every keystroke.
+    pub edited: Trigger,
     /// The lines joined into a system.
     pub joined: Memo<Joined>,
     /// Whether the sheet is long ([`super::roster::WINDOW_FROM`] lines or
@@ -123,6 +129,15 @@ pub fn after(ms: i32, f: impl FnOnce() + 'static) {
 /// (they run as microtasks) have redrawn the page.
 pub fn after_redraw(f: impl FnOnce() + 'static) {
     after(0, f);
+}
+
+/// Runs `f` in a task of its own after the next frame has been painted
+/// (a task queued from the frame callback runs after that frame's paint).
+/// A hidden page paints no frames: `f` waits until it is shown.
+pub fn after_paint(f: impl FnOnce() + 'static) {
+    let Some(w) = web_sys::window() else { return };
+    let f = wasm_bindgen::closure::Closure::once_into_js(move || after(0, f));
+    let _ = w.request_animation_frame(wasm_bindgen::JsCast::unchecked_ref(&f));
 }
 
 /// Calls `f` on every `event` at `target`, for as long as the page lives.
@@ -181,6 +196,7 @@ impl Sheet {
                 system: RwSignal::new(SystemFile::default()),
                 resolved,
                 lines,
+                edited: Trigger::new(),
                 joined,
                 long: Memo::new(move |_| lines.with(Vec::len) >= super::roster::WINDOW_FROM),
                 selected: RwSignal::new(None),
@@ -219,6 +235,7 @@ impl Sheet {
         let owner = self.owner.get_value().child();
         let resolved = self.resolved;
         let joined = self.joined;
+        let edited = self.edited;
         owner.with(|| {
             let file = RwSignal::new(file);
             // A signal, set only when the line's name, feed or load changes:
@@ -226,10 +243,13 @@ impl Sheet {
             // the sheet (a memo here would mark the whole sheet's places,
             // results and rows to be checked on every keystroke).
             let joint = RwSignal::new(file.with_untracked(Joint::of));
-            Effect::new(move |_| {
+            Effect::new(move |first: Option<()>| {
                 let now = file.with(Joint::of);
                 if joint.with_untracked(|j| *j != now) {
                     joint.set(now);
+                }
+                if first.is_some() {
+                    edited.notify();
                 }
             });
             let place = Memo::new(move |_| {

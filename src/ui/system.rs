@@ -6,7 +6,7 @@
 use leptos::prelude::*;
 
 use super::fields::TextField;
-use super::state::Sheet;
+use super::state::{after_paint, Sheet};
 use crate::hydraulics::line::Circuit;
 use crate::sheet::duty_plot::{self, Plot};
 use crate::sheet::file::SystemFile;
@@ -64,22 +64,34 @@ fn pump_point(sheet: Sheet, i: usize) -> impl IntoView {
 pub fn SystemPanel() -> impl IntoView {
     let sheet = expect_context::<Sheet>();
     let is_system = Memo::new(move |_| sheet.joined.with(|j| j.tree.is_system()));
-    let answer = Memo::new(move |_| {
-        if !is_system.get() {
-            return (Vec::new(), None);
-        }
+    // The system follows the lines one frame later: a keystroke paints the
+    // line's own answer first, then the system (summing a long sheet and
+    // redrawing its plot cost a quarter of a keystroke's work). One
+    // catch-up for however many changes came before that frame.
+    let caught_up = RwSignal::new(0u32);
+    let pending = StoredValue::new(false);
+    Effect::new(move |first: Option<()>| {
+        // A line's result changes only with its text, the units, the
+        // system settings or where it sits in the tree.
+        sheet.lines.track();
+        sheet.edited.track();
+        sheet.joined.track();
         sheet.system.track();
         sheet.resolved.track();
-        let file = sheet.to_file();
-        let u = file.units();
-        // Read in place: cloning every line's report on each edit cost
-        // milliseconds on a long sheet.
-        sheet.lines.with(|v| {
-            let guards: Vec<_> = v.iter().map(|s| s.report.read()).collect();
-            let reports: Vec<&LineReport> = guards.iter().map(|g| &**g).collect();
-            let sum = sheet.joined.with(|j| crate::sheet::system::summarise(&j.tree, &reports, &u, &file.system));
-            (crate::sheet::report::system_lines_of(&file, &sum), duty_plot::plot(&sum, &u))
-        })
+        if first.is_none() || pending.get_value() {
+            return;
+        }
+        pending.set_value(true);
+        // `try_`: the frame may come after this worksheet was replaced.
+        after_paint(move || {
+            pending.try_set_value(false);
+            caught_up.try_update(|n| *n = n.wrapping_add(1));
+        });
+    });
+    let answer = Memo::new(move |_| {
+        let shown = is_system.get();
+        caught_up.track();
+        untrack(|| system_answer(sheet, shown))
     });
     let open = move || sheet.basis.with(|b| b.circuit == Circuit::Open);
     let (src_v, src_s) = setting(sheet, |s| s.source_pressure.clone(), |s, v| s.source_pressure = v);
@@ -111,6 +123,23 @@ pub fn SystemPanel() -> impl IntoView {
             </div>
         </Show>
     }
+}
+
+/// The system's lines of text and its plot, read from the sheet as it is.
+fn system_answer(sheet: Sheet, is_system: bool) -> (Vec<String>, Option<Plot>) {
+    if !is_system {
+        return (Vec::new(), None);
+    }
+    let file = sheet.to_file();
+    let u = file.units();
+    // Read in place: cloning every line's report on each edit cost
+    // milliseconds on a long sheet.
+    sheet.lines.with(|v| {
+        let guards: Vec<_> = v.iter().map(|s| s.report.read()).collect();
+        let reports: Vec<&LineReport> = guards.iter().map(|g| &**g).collect();
+        let sum = sheet.joined.with(|j| crate::sheet::system::summarise(&j.tree, &reports, &u, &file.system));
+        (crate::sheet::report::system_lines_of(&file, &sum), duty_plot::plot(&sum, &u))
+    })
 }
 
 /// The pump-and-system plot.

@@ -284,6 +284,20 @@ impl Harness {
         self.wait_for(testid).await.prop("value").await.unwrap().unwrap_or_default()
     }
 
+    /// Polls until the element's text contains `part` (parts of the page
+    /// that follow a frame later, like the system), and returns the text.
+    pub async fn text_containing(&self, testid: &str, part: &str) -> String {
+        let deadline = Instant::now() + Duration::from_secs(10);
+        loop {
+            let got = self.text(testid).await;
+            if got.contains(part) {
+                return got;
+            }
+            assert!(Instant::now() < deadline, "[data-testid={testid}] shows {got:?}, without {part:?}");
+            tokio::time::sleep(Duration::from_millis(50)).await;
+        }
+    }
+
     /// Polls until the element's text equals `expected` (reactive updates are
     /// fast, but WebDriver round trips are not synchronous with them).
     pub async fn expect_text(&self, testid: &str, expected: &str) {

@@ -46,3 +46,18 @@ pub fn choose(root: &HtmlElement, testid: &str, value: &str) {
     init.set_bubbles(true);
     select.dispatch_event(&Event::new_with_event_init_dict("change", &init).unwrap()).unwrap();
 }
+
+/// Waits until the next frame has been painted and the tasks it queued
+/// have run (the system panel follows the lines one frame later).
+pub async fn next_frame() {
+    leptos::task::tick().await;
+    let p = js_sys::Promise::new(&mut |resolve, _| {
+        let w = web_sys::window().unwrap();
+        let later = wasm_bindgen::closure::Closure::once_into_js(move || {
+            web_sys::window().unwrap().set_timeout_with_callback_and_timeout_and_arguments_0(&resolve, 0).unwrap();
+        });
+        w.request_animation_frame(later.unchecked_ref()).unwrap();
+    });
+    wasm_bindgen_futures::JsFuture::from(p).await.unwrap();
+    leptos::task::tick().await;
+}
