@@ -74,6 +74,11 @@ pub fn TextField(
 ) -> impl IntoView {
     let error_id = format!("{id}-error");
     let error_id2 = error_id.clone();
+    // Held as memos: a keystroke in another field of the line recomputes
+    // them, but what is drawn from them (the value put back into the
+    // input, the error's text and flags) runs only when they change.
+    let value = Memo::new(move |_| value.get());
+    let error = Memo::new(move |_| error.get());
     view! {
         <div class="field" class:has-error=move || !error.get().is_empty()>
             <label for=id>{label}</label>
