@@ -256,7 +256,7 @@ pub fn PrintSheet() -> impl IntoView {
     }
     view! {
         <article class="print-sheet" data-testid="print-sheet" aria-hidden="true">
-            {move || armed.get().then(|| printed(sheet))}
+            {move || armed.get().then(|| untrack(|| printed(sheet)))}
         </article>
     }
 }
@@ -264,18 +264,14 @@ pub fn PrintSheet() -> impl IntoView {
 /// The review sheet's content, read untracked from the worksheet as it is.
 fn printed(sheet: Sheet) -> impl IntoView {
     let lines = sheet.lines.get_untracked();
-    let (tree, system, plot) = if sheet.joined.with_untracked(|j| j.tree.is_system()) {
+    let is_system = sheet.joined.with_untracked(|j| j.tree.is_system());
+    // The same lines and plot as the page's system panel.
+    let (system, plot) = super::system::system_answer(sheet, is_system);
+    let tree = if is_system {
         let reports: Vec<_> = lines.iter().map(|s| s.report.get_untracked()).collect();
-        let file = sheet.to_file();
-        let u = file.units();
-        let sum = sheet.joined.with_untracked(|j| crate::sheet::system::summarise(&j.tree, &reports, &u, &file.system));
-        (
-            crate::sheet::report::tree_lines(&file, &reports),
-            crate::sheet::report::system_lines_of(&file, &sum),
-            crate::sheet::duty_plot::plot(&sum, &u),
-        )
+        crate::sheet::report::tree_lines(&sheet.to_file(), &reports)
     } else {
-        (Vec::new(), Vec::new(), None)
+        Vec::new()
     };
     view! {
         <header>

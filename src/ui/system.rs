@@ -126,8 +126,9 @@ pub fn SystemPanel() -> impl IntoView {
     }
 }
 
-/// The system's lines of text and its plot, read from the sheet as it is.
-fn system_answer(sheet: Sheet, is_system: bool) -> (Vec<String>, Option<Plot>) {
+/// The system's lines of text and its plot, read from the sheet as it is
+/// (the panel and the print sheet).
+pub(crate) fn system_answer(sheet: Sheet, is_system: bool) -> (Vec<String>, Option<Plot>) {
     if !is_system {
         return (Vec::new(), None);
     }
