@@ -200,10 +200,19 @@ async fn check_mode_pins_a_size_and_the_path_adds_up_drops() {
     let names: Vec<String> = (0..rows.length()).map(|i| rows.item(i).unwrap().text_content().unwrap()).collect();
     let bigger = names[names.iter().position(|n| *n == proposed).unwrap() + 1].clone();
     assert!(bigger.starts_with("NPS "), "{bigger}");
-    find(&root, &format!("pin-{}", bigger.trim_start_matches("NPS "))).unchecked_ref::<HtmlElement>().click();
-    leptos::task::tick().await;
+    let pin = format!("pin-{}", bigger.trim_start_matches("NPS "));
+    let button = find(&root, &pin).unchecked_into::<HtmlElement>();
+    button.focus().unwrap();
+    button.click();
+    next_frame().await;
     assert_eq!(text(&root, "proposed-size"), bigger);
     assert!(text(&root, "answer").contains("Checked size"));
+    // The rows are written afresh: the button pressed, now "Unpin", keeps
+    // the keyboard's focus.
+    let focused = web_sys::window().unwrap().document().unwrap().active_element().unwrap();
+    assert_eq!(focused.get_attribute("data-testid").as_deref(), Some(pin.as_str()));
+    assert_eq!(focused.get_attribute("aria-pressed").as_deref(), Some("true"), "{:?}", focused.outer_html());
+    assert_eq!(focused.text_content().as_deref(), Some("Unpin"));
     // Tick both lines: the path total is the sum of their total drops.
     let ticks = root.query_selector_all("[data-testid=row-path]").unwrap();
     for i in 0..2 {

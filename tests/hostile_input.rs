@@ -127,3 +127,49 @@ fn csv_cells_cannot_start_a_formula() {
     assert!(out.contains("\"'\tlead tab\""), "{out}");
     assert!(out.contains("\"'\rlead cr\""), "{out}");
 }
+
+#[test]
+fn typed_text_in_the_answer_and_the_review_sheet_stays_text() {
+    // OWASP "Cross Site Scripting Prevention": text placed in HTML is
+    // encoded (& < > " '), so a name or a value from someone's link cannot
+    // add an element or an attribute to the page.
+    use headroom::sheet::library::display_name;
+    use headroom::sheet::panes::{answer, size_rows};
+    use headroom::sheet::report::{detail, tree_lines};
+    use headroom::sheet::review::{review_sheet, Review};
+    let attack = r#"<img src=x onerror="alert(1)">"#;
+    let mut s = demo();
+    s.project = attack.into();
+    s.lines[0].name = attack.into();
+    s.lines[5].flow = format!("{attack} L/s");
+    let reports = evaluate(&s);
+    assert!(reports[5].outcome.is_err(), "the flow that is not a number is a field error");
+    let lines: Vec<_> = s.lines.iter().cloned().zip(reports.iter().cloned()).collect();
+    let tree = tree_lines(&s, &reports);
+    let sheet = review_sheet(&Review {
+        project: &display_name(&s.project),
+        date: "2026-12-03",
+        circuit: "",
+        lines: &lines,
+        tree: &tree,
+        system: &[],
+        plot: None,
+    });
+    let units = s.units();
+    let mut answers = String::new();
+    for r in &reports {
+        let o = r.outcome.as_ref().ok();
+        answers.push_str(&answer(o).1);
+        if let Some(o) = o {
+            answers.push_str(&size_rows(o, &detail(o, &units)));
+        }
+    }
+    for out in [&sheet, &answers] {
+        assert!(!out.contains("<img") && !out.contains("onerror=\""), "{out}");
+    }
+    let escaped = "&lt;img src=x onerror=&quot;alert(1)&quot;&gt;";
+    assert!(sheet.contains(&format!("<h1>{escaped}</h1>")), "the project's name, as text");
+    assert!(sheet.contains(&format!("<h3>1. {escaped}</h3>")), "the first line's name, as text");
+    let echoed = format!("Not sized — inputs to fix: flow: &#39;{escaped} L/s&#39; is not a number");
+    assert!(sheet.contains(&echoed), "the error echoes the flow as text: {sheet}");
+}

@@ -104,10 +104,8 @@ pub fn SystemPanel() -> impl IntoView {
         <Show when=move || is_system.get()>
             <div class="system-panel" data-testid="system" aria-live="polite">
                 <h3>"System"</h3>
-                <div data-testid="system-lines">
-                    {move || answer.with(|(lines, _)| lines.iter().map(|l| view! { <p>{l.clone()}</p> }).collect_view())}
-                </div>
-                {move || answer.with(|(_, plot)| plot.clone().map(|p| view! { <DutyPlot plot=p/> }))}
+                <div data-testid="system-lines" inner_html=move || answer.with(|(lines, _)| paragraphs(lines))></div>
+                <div inner_html=move || answer.with(|(_, plot)| plot_markup(plot.as_ref()))></div>
                 <details class="system-settings" data-testid="system-settings">
                     <summary>"Source, outlets and pump"</summary>
                     <Show when=open>
@@ -144,23 +142,20 @@ pub(crate) fn system_answer(sheet: Sheet, is_system: bool) -> (Vec<String>, Opti
     })
 }
 
-/// The pump-and-system plot.
-#[component]
-pub fn DutyPlot(plot: Plot) -> impl IntoView {
-    let (l, t, r, b) = duty_plot::frame();
-    let frame = format!("{l},{t} {l},{b} {r},{b}");
-    view! {
-        <figure class="duty-plot" data-testid="duty-plot">
-            <svg viewBox=format!("0 0 {} {}", duty_plot::WIDTH, duty_plot::HEIGHT) role="img" aria-label=plot.description.clone()>
-                <polyline class="axis" points=frame/>
-                {plot.x_ticks.iter().map(|(x, s)| view! { <text class="tick" x=format!("{x:.1}") y=format!("{:.1}", b + 14.0) text-anchor="middle">{s.clone()}</text> }).collect_view()}
-                {plot.y_ticks.iter().map(|(y, s)| view! { <text class="tick" x=format!("{:.1}", l - 4.0) y=format!("{:.1}", y + 3.0) text-anchor="end">{s.clone()}</text> }).collect_view()}
-                <polyline class="system-curve" points=plot.system.clone()/>
-                {plot.pump.clone().map(|p| view! { <polyline class="pump-curve" points=p/> })}
-                <circle class="duty-point" cx=format!("{:.1}", plot.duty.0) cy=format!("{:.1}", plot.duty.1) r="4"/>
-                {plot.operating.map(|(x, y)| view! { <circle class="operating-point" cx=format!("{x:.1}") cy=format!("{y:.1}") r="5"/> })}
-            </svg>
-            <figcaption>"Head against flow: system curve (solid), pump curve (dashed), duty point (dot), where the pump runs (ring)."</figcaption>
-        </figure>
+/// Each text as a paragraph.
+fn paragraphs(texts: &[String]) -> String {
+    let mut m = crate::sheet::markup::Markup::new();
+    for t in texts {
+        m.el("p", &[], t);
     }
+    m.finish()
+}
+
+/// The pump-and-system plot's markup ("" without a plot).
+fn plot_markup(plot: Option<&Plot>) -> String {
+    let mut m = crate::sheet::markup::Markup::new();
+    if let Some(p) = plot {
+        crate::sheet::panes::duty_figure(&mut m, p);
+    }
+    m.finish()
 }
