@@ -23,6 +23,7 @@ pub fn sentence(t: &str) -> String {
     c.next().map(|f| f.to_uppercase().chain(c).collect()).unwrap_or_default()
 }
 
+// Over 60 lines on purpose: the answer box in reading order, kept whole so it reads as shown.
 /// The answer box: its class and its content. `None` is a line whose
 /// fields do not read.
 pub fn answer(o: Option<&Outcome>) -> (&'static str, String) {

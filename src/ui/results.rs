@@ -11,6 +11,7 @@ use crate::sheet::report::designation;
 /// The answer for the selected line. Its views only show results, so
 /// each is markup text set in one step ([`crate::sheet::panes`]); the
 /// elements around them are drawn once.
+// Over 60 lines on purpose: the markup of one panel, kept whole so its layout reads in one place.
 #[component]
 pub fn LineResults(
     /// The line.
