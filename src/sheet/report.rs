@@ -3,7 +3,7 @@
 
 use serde::Serialize;
 
-use super::file::{FieldError, LineFile, SheetFile, Units};
+use super::file::{FieldError, LineFile, SheetFile, SystemFile, Units};
 use super::system::Carried;
 use super::units::{format_number, from_si, show, show_flow, Unit};
 use crate::hydraulics::field::Field;
@@ -615,16 +615,23 @@ pub fn system_lines(sheet: &SheetFile, reports: &[impl AsRef<LineReport>]) -> Ve
     if !tree.is_system() {
         return Vec::new();
     }
-    let sum = super::system::summarise(&tree, reports, &sheet.units(), &sheet.system);
-    system_lines_of(sheet, &sum)
+    let u = sheet.units();
+    let sum = super::system::summarise(&tree, reports, &u, &sheet.system);
+    let lines: Vec<&LineFile> = sheet.lines.iter().collect();
+    system_lines_of(&lines, &u, &sheet.system, &sum)
 }
 
-/// As [`system_lines`], from a summary the caller already has.
-pub fn system_lines_of(sheet: &SheetFile, sum: &super::system::Summary) -> Vec<String> {
-    let u = sheet.units();
+/// As [`system_lines`], from a summary the caller already has, the sheet's
+/// lines in order, its units and its system settings.
+pub fn system_lines_of(
+    lines: &[&LineFile],
+    u: &Units,
+    system: &SystemFile,
+    sum: &super::system::Summary,
+) -> Vec<String> {
     let water = super::units::find(super::units::Dimension::Pressure, "m H₂O").expect("m H₂O");
     let name = |i: usize| {
-        let n = sheet.lines[i].name.trim();
+        let n = lines[i].name.trim();
         if n.is_empty() {
             format!("line {}", i + 1)
         } else {
@@ -648,8 +655,7 @@ pub fn system_lines_of(sheet: &SheetFile, sum: &super::system::Summary) -> Vec<S
         }
         (Some(p), Some(h), Some(q)) => {
             let rho = sum.source_density;
-            let supplied =
-                u.basis.circuit == super::file::Circuit::Open && !sheet.system.source_pressure.trim().is_empty();
+            let supplied = u.basis.circuit == super::file::Circuit::Open && !system.source_pressure.trim().is_empty();
             out.push(if supplied {
                 format!(
                     "Index circuit: {} — {} ({}) from the source to its end, {} at the source",
@@ -751,7 +757,7 @@ pub fn system_lines_of(sheet: &SheetFile, sum: &super::system::Summary) -> Vec<S
             show(pv, u.pressure, None, 3)
         ));
     }
-    if sheet.lines.iter().any(|l| l.load.is_none() && l.fixtures.is_some()) {
+    if lines.iter().any(|l| l.load.is_none() && l.fixtures.is_some()) {
         out.push(format!("Fixtures to flow: {}", u.basis.demand.label()));
     }
     for (_, m) in &sum.problems {

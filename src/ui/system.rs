@@ -9,7 +9,7 @@ use super::fields::TextField;
 use super::state::{after_paint, Sheet};
 use crate::hydraulics::line::Circuit;
 use crate::sheet::duty_plot::{self, Plot};
-use crate::sheet::file::SystemFile;
+use crate::sheet::file::{LineFile, SystemFile};
 use crate::sheet::report::LineReport;
 use crate::sheet::units::Dimension;
 
@@ -130,15 +130,17 @@ pub(crate) fn system_answer(sheet: Sheet, is_system: bool) -> (Vec<String>, Opti
     if !is_system {
         return (Vec::new(), None);
     }
-    let file = sheet.to_file();
-    let u = file.units();
-    // Read in place: cloning every line's report on each edit cost
+    let u = sheet.resolved.get_untracked();
+    let system = sheet.system.get_untracked();
+    // Read in place: cloning every line's text or report on each edit cost
     // milliseconds on a long sheet.
-    sheet.lines.with(|v| {
+    sheet.lines.with_untracked(|v| {
         let guards: Vec<_> = v.iter().map(|s| s.report.read()).collect();
         let reports: Vec<&LineReport> = guards.iter().map(|g| &**g).collect();
-        let sum = sheet.joined.with(|j| crate::sheet::system::summarise(&j.tree, &reports, &u, &file.system));
-        (crate::sheet::report::system_lines_of(&file, &sum), duty_plot::plot(&sum, &u))
+        let files: Vec<_> = v.iter().map(|s| s.file.read_untracked()).collect();
+        let lines: Vec<&LineFile> = files.iter().map(|f| &**f).collect();
+        let sum = sheet.joined.with_untracked(|j| crate::sheet::system::summarise(&j.tree, &reports, &u, &system));
+        (crate::sheet::report::system_lines_of(&lines, &u, &system, &sum), duty_plot::plot(&sum, &u))
     })
 }
 
