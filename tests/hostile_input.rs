@@ -144,13 +144,13 @@ fn typed_text_in_the_answer_and_the_review_sheet_stays_text() {
     s.lines[5].flow = format!("{attack} L/s");
     let reports = evaluate(&s);
     assert!(reports[5].outcome.is_err(), "the flow that is not a number is a field error");
-    let lines: Vec<_> = s.lines.iter().cloned().zip(reports.iter().cloned()).collect();
     let tree = tree_lines(&s, &reports);
     let sheet = review_sheet(&Review {
         project: &display_name(&s.project),
         date: "2026-12-03",
         circuit: "",
-        lines: &lines,
+        lines: &s.lines,
+        reports: &reports,
         tree: &tree,
         system: &[],
         plot: None,

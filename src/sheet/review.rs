@@ -21,8 +21,10 @@ pub struct Review<'a> {
     pub date: &'a str,
     /// The design basis's circuit in one sentence.
     pub circuit: &'a str,
-    /// Every line's text and result, in order.
-    pub lines: &'a [(LineFile, LineReport)],
+    /// Every line's text, in order.
+    pub lines: &'a [LineFile],
+    /// Every line's result, in the same order.
+    pub reports: &'a [LineReport],
     /// The system's tree drawn in text (empty for lines on their own).
     pub tree: &'a [String],
     /// The system's lines of text (empty for lines on their own).
@@ -273,7 +275,7 @@ pub fn review_sheet(r: &Review) -> String {
     m.el("p", &[], &stamp);
     m.open("p", &[("class", "print-caution")]).el("strong", &[], "Caution: ").text(CAUTION).close("p");
     m.el("p", &[("data-testid", "print-circuit")], r.circuit).close("header");
-    for (i, (f, rep)) in r.lines.iter().enumerate() {
+    for (i, (f, rep)) in r.lines.iter().zip(r.reports).enumerate() {
         line_record(&mut m, i + 1, f, rep);
     }
     if !r.system.is_empty() {

@@ -36,24 +36,21 @@ pub fn PrintSheet() -> impl IntoView {
 
 /// The review sheet's markup, read from the worksheet as it is.
 fn printed(sheet: Sheet) -> String {
-    let slots = sheet.lines.get_untracked();
-    let lines: Vec<_> = slots.iter().map(|s| (s.file.get_untracked(), s.report.get_untracked())).collect();
+    // One copy of the lines, for the records and the tree alike.
+    let file = sheet.to_file();
+    let reports: Vec<_> = sheet.lines.with_untracked(|v| v.iter().map(|s| s.report.get_untracked()).collect());
     let is_system = sheet.joined.with_untracked(|j| j.tree.is_system());
     // The same lines and plot as the page's system panel.
     let (system, plot) = super::system::system_answer(sheet, is_system);
-    let tree = if is_system {
-        let reports: Vec<_> = lines.iter().map(|(_, r)| r).collect();
-        crate::sheet::report::tree_lines(&sheet.to_file(), &reports)
-    } else {
-        Vec::new()
-    };
+    let tree = if is_system { crate::sheet::report::tree_lines(&file, &reports) } else { Vec::new() };
     let project = sheet.project.with_untracked(|p| display_name(p));
     let date = sheet.date.get_untracked();
     review_sheet(&Review {
         project: &project,
         date: &date,
         circuit: circuit_note(&sheet.resolved.get_untracked()),
-        lines: &lines,
+        lines: &file.lines,
+        reports: &reports,
         tree: &tree,
         system: &system,
         plot: plot.as_ref(),
