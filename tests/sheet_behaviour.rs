@@ -179,3 +179,21 @@ fn the_view_model_holds_what_every_view_shows() {
     assert_eq!(d.trace, sizing::trace(&o.line, &o.sizing.candidates[shown]));
     assert!(o.figures.unwrap().checks.iter().all(|k| k.met));
 }
+
+#[test]
+fn compact_json_is_what_serde_json_writes_without_spaces() {
+    // The reference is serde_json's own compact writer (`to_string`): links
+    // and stored sheets are written pretty and squeezed, and must come out
+    // byte for byte the same. Text with quotes, backslashes, spaces, line
+    // breaks and non-ASCII inside strings must pass through untouched.
+    use headroom::sheet::file::compact_json;
+    for path in ["examples/clinic-chilled-water.json", "examples/clinic-domestic-water.json"] {
+        let text = std::fs::read_to_string(format!("{}/{path}", env!("CARGO_MANIFEST_DIR"))).unwrap();
+        let mut file = SheetFile::from_json(&text).unwrap();
+        file.project = "Bay \"A\" \\ west :  { [\n\t] } , ÷ 5 °C".to_owned();
+        assert_eq!(file.to_compact_json(), serde_json::to_string(&file).unwrap(), "{path}");
+        assert_eq!(SheetFile::from_json(&file.to_compact_json()).unwrap(), file);
+    }
+    let list = vec![("a \"b\" c", 1.5e-7), ("\\\"", -0.0)];
+    assert_eq!(compact_json(&list), serde_json::to_string(&list).unwrap());
+}

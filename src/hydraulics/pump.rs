@@ -76,8 +76,14 @@ impl PumpCurve {
     /// Two points with one flow, or a head that does not fall as the flow
     /// rises.
     pub fn through(points: [(f64, f64); 3]) -> Result<PumpCurve, CurveError> {
+        // Three points in order of flow: swap neighbours (as a sort would,
+        // without its code in the module).
         let mut p = points;
-        p.sort_by(|a, b| a.0.total_cmp(&b.0));
+        for (i, j) in [(0, 1), (1, 2), (0, 1)] {
+            if p[j].0.total_cmp(&p[i].0).is_lt() {
+                p.swap(i, j);
+            }
+        }
         let [(x0, y0), (x1, y1), (x2, y2)] = p;
         if x1 - x0 <= 0.0 || x2 - x1 <= 0.0 {
             return Err(CurveError::SameFlow);
@@ -143,6 +149,10 @@ mod tests {
         let c = PumpCurve::through(pts).unwrap();
         for (q, h) in pts {
             assert!((c.head(q) - h).abs() < 1e-6, "{q}: {}", c.head(q));
+        }
+        // The points may come in any order.
+        for [i, j, k] in [[0, 1, 2], [0, 2, 1], [1, 0, 2], [1, 2, 0], [2, 0, 1], [2, 1, 0]] {
+            assert_eq!(PumpCurve::through([pts[i], pts[j], pts[k]]), Ok(c));
         }
         assert_eq!(PumpCurve::through([(1.0, 3.0), (1.0, 2.0), (2.0, 1.0)]), Err(CurveError::SameFlow));
         assert_eq!(PumpCurve::through([(0.0, 1.0), (1.0, 2.0), (2.0, 0.5)]), Err(CurveError::Rising));

@@ -560,6 +560,38 @@ impl ComponentKind {
     }
 }
 
+/// Writes a value as JSON without spaces. It is written pretty and then
+/// squeezed, so the module holds one copy of each type's writer (serde
+/// instantiates it once per formatter): byte for byte what
+/// `serde_json::to_string` writes, at the cost of a second pass.
+pub fn compact_json<T: Serialize + ?Sized>(value: &T) -> String {
+    squeeze(&serde_json::to_string_pretty(value).unwrap_or_default())
+}
+
+/// Drops the whitespace outside strings.
+fn squeeze(json: &str) -> String {
+    let mut out = String::with_capacity(json.len());
+    let (mut in_string, mut escaped) = (false, false);
+    for c in json.chars() {
+        if in_string {
+            out.push(c);
+            if escaped {
+                escaped = false;
+            } else if c == '\\' {
+                escaped = true;
+            } else if c == '"' {
+                in_string = false;
+            }
+        } else if c == '"' {
+            in_string = true;
+            out.push(c);
+        } else if !c.is_ascii_whitespace() {
+            out.push(c);
+        }
+    }
+    out
+}
+
 fn is_false(b: &bool) -> bool {
     !*b
 }
@@ -995,6 +1027,11 @@ impl SheetFile {
     /// Writes the sheet as pretty JSON.
     pub fn to_json(&self) -> String {
         serde_json::to_string_pretty(self).unwrap_or_default()
+    }
+
+    /// Writes the sheet as JSON without spaces (links and storage).
+    pub fn to_compact_json(&self) -> String {
+        compact_json(self)
     }
 
     /// Resolved units (defaults where the file chose none), with the

@@ -17,7 +17,8 @@
 
 use serde::{Deserialize, Serialize};
 
-use super::file::{SheetError, SheetFile};
+use super::file::{compact_json, SheetError, SheetFile};
+use super::order::sorted_by;
 
 /// Key of the index.
 pub const INDEX_KEY: &str = "headroom.v1.index";
@@ -205,9 +206,9 @@ impl<K: Kv> Library<K> {
     /// tabs writing it at once can each drop the other's entry.
     pub fn reconcile(&self) -> Vec<Entry> {
         let listed: Vec<Entry> = self.kv.get(INDEX_KEY).and_then(|t| serde_json::from_str(&t).ok()).unwrap_or_default();
-        let mut stored: Vec<String> =
+        let stored: Vec<String> =
             self.kv.keys().into_iter().filter_map(|k| k.strip_prefix(SHEET_PREFIX).map(str::to_owned)).collect();
-        stored.sort();
+        let stored = sorted_by(stored, &|a, b| a.cmp(b));
         let mut list: Vec<Entry> = listed.iter().filter(|e| stored.contains(&e.id)).cloned().collect();
         for id in stored {
             if !list.iter().any(|e| e.id == id) {
@@ -226,7 +227,7 @@ impl<K: Kv> Library<K> {
     }
 
     fn write_index(&self, list: &[Entry]) -> Result<(), StoreError> {
-        self.kv.set(INDEX_KEY, &serde_json::to_string(list).unwrap_or_default())
+        self.kv.set(INDEX_KEY, &compact_json(list))
     }
 
     fn drop_from_index(&self, id: &str) {
@@ -297,7 +298,7 @@ impl<K: Kv> Library<K> {
         if self.revision(id) != based_on {
             return Err(Problem::Conflict { id: id.to_owned() });
         }
-        self.kv.set(&sheet_key(id), &serde_json::to_string(sheet).unwrap_or_default()).map_err(Problem::NotSaved)?;
+        self.kv.set(&sheet_key(id), &sheet.to_compact_json()).map_err(Problem::NotSaved)?;
         let rev = based_on + 1;
         self.kv.set(&rev_key(id), &rev.to_string()).map_err(Problem::NotSaved)?;
         let (mut list, _) = self.entries();
@@ -326,9 +327,7 @@ impl<K: Kv> Library<K> {
             updated: String::new(),
         });
         let trashed = Trashed { entry, deleted: deleted.to_owned(), text };
-        self.kv
-            .set(&format!("{TRASH_PREFIX}{id}"), &serde_json::to_string(&trashed).unwrap_or_default())
-            .map_err(Problem::NotSaved)?;
+        self.kv.set(&format!("{TRASH_PREFIX}{id}"), &compact_json(&trashed)).map_err(Problem::NotSaved)?;
         self.kv.remove(&key);
         self.kv.remove(&rev_key(id));
         self.drop_from_index(id);
@@ -337,15 +336,14 @@ impl<K: Kv> Library<K> {
 
     /// What is in the trash, most recently deleted first.
     pub fn trash(&self) -> Vec<Trashed> {
-        let mut list: Vec<Trashed> = self
+        let list: Vec<Trashed> = self
             .kv
             .keys()
             .into_iter()
             .filter(|k| k.starts_with(TRASH_PREFIX))
             .filter_map(|k| self.kv.get(&k).and_then(|t| serde_json::from_str(&t).ok()))
             .collect();
-        list.sort_by(|a: &Trashed, b| b.deleted.cmp(&a.deleted));
-        list
+        sorted_by(list, &|a: &Trashed, b| b.deleted.cmp(&a.deleted))
     }
 
     /// Puts a deleted worksheet back where it was listed (at the end).

@@ -68,7 +68,7 @@ impl std::error::Error for LinkError {}
 
 /// The fragment (without `#`) for a sheet.
 pub fn encode(sheet: &SheetFile) -> String {
-    let json = serde_json::to_string(sheet).unwrap_or_default();
+    let json = sheet.to_compact_json();
     let packed = miniz_oxide::deflate::compress_to_vec(json.as_bytes(), 9);
     format!("{PREFIX_V1}{}", URL_SAFE_NO_PAD.encode(packed))
 }

@@ -13,6 +13,7 @@ pub mod library;
 pub mod link;
 pub mod markup;
 pub mod number;
+pub mod order;
 pub mod panes;
 pub mod presets;
 pub mod reader;

@@ -69,6 +69,7 @@ impl Joint {
     }
 }
 use super::number::parse_decimal;
+use super::order::{order_by, sorted_by};
 use super::report::LineReport;
 use super::units::{self, Dimension};
 
@@ -328,9 +329,8 @@ pub fn carried(lines: &[LineFile], tree: &Tree, u: &Units) -> Vec<Option<Carried
 /// As [`carried`], from the lines' joints.
 pub fn carried_of(lines: &[Joint], tree: &Tree, u: &Units) -> Vec<Option<Carried>> {
     let n = lines.len();
-    let mut order: Vec<usize> = (0..n).collect();
     // Deepest first, so every branch is done before its parent.
-    order.sort_by_key(|&i| std::cmp::Reverse(tree.depth[i]));
+    let order = order_by(n, &|a, b| tree.depth[b].cmp(&tree.depth[a]));
     let method = u.basis.demand;
     let fixtures: Vec<Option<(Vec<f64>, f64)>> = lines.iter().map(|l| own_fixtures(l, u)).collect();
     let mut out: Vec<Option<Carried>> = lines
@@ -520,7 +520,7 @@ pub fn summarise(tree: &Tree, reports: &[impl AsRef<LineReport>], u: &Units, sys
             .filter(|o| o.length_given)
             .and_then(|o| o.shown.map(|k| (o.sizing.candidates[k].point, o.line.flow.value)))
     };
-    let mut paths: Vec<Path> = tree
+    let paths: Vec<Path> = tree
         .ends()
         .into_iter()
         .filter(|&e| tree.parent[e].is_some())
@@ -539,7 +539,7 @@ pub fn summarise(tree: &Tree, reports: &[impl AsRef<LineReport>], u: &Units, sys
             Path { lines, drop_pa, static_pa, complete }
         })
         .collect();
-    paths.sort_by(|a, b| b.drop_pa.total_cmp(&a.drop_pa));
+    let paths = sorted_by(paths, &|a, b| b.drop_pa.total_cmp(&a.drop_pa));
     let mirrored = u.basis.circuit == Circuit::Closed && u.basis.return_run == ReturnRun::Mirrored;
     let index = paths.first().filter(|p| p.complete);
     let head_pa = index.map(|p| if mirrored { 2.0 * p.drop_pa } else { p.drop_pa });
@@ -580,14 +580,14 @@ pub fn summarise(tree: &Tree, reports: &[impl AsRef<LineReport>], u: &Units, sys
     } else {
         (None, None)
     };
-    let mut residuals: Vec<Residual> = match source_pa {
+    let residuals: Vec<Residual> = match source_pa {
         Some(p0) => paths
             .iter()
             .map(|p| Residual { end: p.lines[0], pressure_pa: p0 - p.drop_pa, complete: p.complete })
             .collect(),
         None => Vec::new(),
     };
-    residuals.sort_by(|a, b| a.pressure_pa.total_cmp(&b.pressure_pa));
+    let residuals = sorted_by(residuals, &|a, b| a.pressure_pa.total_cmp(&b.pressure_pa));
     let mut pump_points = Vec::new();
     for (i, pt) in sys.pump.iter().enumerate() {
         let q = measure(Field::PumpPoint, Dimension::Flow, &pt.flow, u.flow, rho, Reading::AsTyped, &mut problems);
