@@ -197,3 +197,104 @@ fn compact_json_is_what_serde_json_writes_without_spaces() {
     let list = vec![("a \"b\" c", 1.5e-7), ("\\\"", -0.0)];
     assert_eq!(compact_json(&list), serde_json::to_string(&list).unwrap());
 }
+
+/// The fluid as serde's own reader for a tagged enum reads it: the shape
+/// the file's fluid had before it was read through one flat record. The
+/// reference for `fluids_are_read_as_serdes_tagged_enum_reads_them`.
+#[derive(Debug, serde::Serialize, serde::Deserialize)]
+#[serde(tag = "kind", rename_all = "lowercase", deny_unknown_fields)]
+enum TaggedFluid {
+    Water {
+        temperature: String,
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        pressure: Option<String>,
+    },
+    Glycol {
+        glycol: headroom::hydraulics::fluid::Glycol,
+        percent: String,
+        temperature: String,
+    },
+    Custom {
+        density_kg_m3: String,
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        viscosity_mpa_s: Option<String>,
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        kinematic_viscosity_mm2_s: Option<String>,
+    },
+    Gas {
+        gas: String,
+        temperature: String,
+        pressure: String,
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        relative_density: Option<String>,
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        molar_mass: Option<String>,
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        viscosity_mpa_s: Option<String>,
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        z: Option<String>,
+    },
+    Steam {
+        pressure: String,
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        temperature: Option<String>,
+    },
+}
+
+#[test]
+fn fluids_are_read_as_serdes_tagged_enum_reads_them() {
+    // Reference: serde's derived reader for an internally tagged enum with
+    // unknown fields denied (above). Every fluid it accepts is read the
+    // same; every one it refuses is refused, in the same words.
+    use headroom::sheet::file::FluidFile;
+    let cases = [
+        r#"{"kind":"water","temperature":"7 °C"}"#,
+        r#"{"temperature":"7 °C","pressure":"3 bar","kind":"water"}"#,
+        r#"{"kind":"glycol","glycol":"ethylene","percent":"30","temperature":"-5 °C"}"#,
+        r#"{"kind":"glycol","glycol":"propylene","percent":"40","temperature":"0"}"#,
+        r#"{"kind":"custom","density_kg_m3":"870","viscosity_mpa_s":"12"}"#,
+        r#"{"kind":"custom","density_kg_m3":"870","kinematic_viscosity_mm2_s":"14"}"#,
+        r#"{"kind":"gas","gas":"air","temperature":"20","pressure":"7 barg"}"#,
+        r#"{"kind":"gas","gas":"custom","temperature":"20","pressure":"7 barg","molar_mass":"30","viscosity_mpa_s":"0.02","z":"0.98"}"#,
+        r#"{"kind":"gas","gas":"natural-gas","temperature":"20","pressure":"2 bar","relative_density":"0.6"}"#,
+        r#"{"kind":"steam","pressure":"8 barg"}"#,
+        r#"{"kind":"steam","pressure":"8 barg","temperature":"200 °C"}"#,
+        // Refused: a field of another kind, an unknown field, a missing
+        // field, an unknown kind, no kind, a glycol not in the list, a
+        // number for text, a field given twice.
+        r#"{"kind":"water","temperature":"7","percent":"30"}"#,
+        r#"{"kind":"steam","pressure":"8","gas":"air"}"#,
+        r#"{"kind":"water","temperature":"7","colour":"blue"}"#,
+        r#"{"kind":"glycol","glycol":"ethylene","temperature":"7"}"#,
+        r#"{"kind":"gas","gas":"air","temperature":"20"}"#,
+        r#"{"kind":"custom"}"#,
+        r#"{"kind":"oil","temperature":"7"}"#,
+        r#"{"temperature":"7"}"#,
+        r#"{"kind":"glycol","glycol":"brine","percent":"30","temperature":"7"}"#,
+        r#"{"kind":"water","temperature":7}"#,
+        r#"{"kind":"water","temperature":"7","temperature":"8"}"#,
+        r#"{"kind":"glycol","glycol":"ethylene","glycol":"ethylene","percent":"30","temperature":"7"}"#,
+    ];
+    let (mut accepted, mut refused) = (0, 0);
+    for text in cases {
+        let ours = serde_json::from_str::<FluidFile>(text);
+        let reference = serde_json::from_str::<TaggedFluid>(text);
+        match (ours, reference) {
+            (Ok(a), Ok(b)) => {
+                assert_eq!(serde_json::to_value(&a).unwrap(), serde_json::to_value(&b).unwrap(), "{text}");
+                accepted += 1;
+            }
+            (Err(a), Err(b)) => {
+                // serde_json adds where it stopped reading; the words before that are compared.
+                let words =
+                    |e: serde_json::Error| e.to_string().split(" at line").next().unwrap_or_default().to_owned();
+                let (a, b) = (words(a), words(b));
+                let same = a == b || (b.starts_with("invalid type") && a.starts_with("invalid type"));
+                assert!(same, "{text}: ours «{a}», serde's «{b}»");
+                refused += 1;
+            }
+            (a, b) => panic!("{text}: ours {a:?}, serde's {b:?}"),
+        }
+    }
+    assert_eq!((accepted, refused), (11, 12));
+}

@@ -20,7 +20,9 @@ pub const TRANSITION: &str = "Re is in the transition zone (2000–4000): the fr
 /// The text with its first letter capitalised, to stand as a sentence.
 pub fn sentence(t: &str) -> String {
     let mut c = t.chars();
-    c.next().map(|f| f.to_uppercase().chain(c).collect()).unwrap_or_default()
+    // ASCII's upper case: our sentences start with a Latin letter (the
+    // Unicode case tables would cost the module about 20 KB).
+    c.next().map(|f| std::iter::once(f.to_ascii_uppercase()).chain(c).collect()).unwrap_or_default()
 }
 
 // Over 60 lines on purpose: the answer box in reading order, kept whole so it reads as shown.

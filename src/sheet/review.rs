@@ -53,7 +53,7 @@ fn fluid_text(f: &LineFile) -> String {
     match &f.fluid {
         FluidFile::Water { temperature, pressure } => {
             let p = pressure.clone().unwrap_or_else(|| "101.325 kPa".into());
-            let marked = ["barg", "psig", "bara", "psia"].iter().any(|u| p.trim().to_lowercase().ends_with(u));
+            let marked = ["barg", "psig", "bara", "psia"].iter().any(|u| p.trim().to_ascii_lowercase().ends_with(u));
             if marked {
                 format!("water at {temperature}, {p} (gauge taken against 101.325 kPa)")
             } else {
@@ -61,7 +61,8 @@ fn fluid_text(f: &LineFile) -> String {
             }
         }
         FluidFile::Glycol { glycol, percent, temperature } => {
-            format!("{percent} % {glycol:?} glycol in water at {temperature}").to_lowercase()
+            let glycol = format!("{glycol:?}").to_ascii_lowercase();
+            format!("{percent} % {glycol} glycol in water at {temperature}")
         }
         FluidFile::Custom { density_kg_m3, viscosity_mpa_s, kinematic_viscosity_mm2_s } => format!(
             "entered: ρ {density_kg_m3} kg/m³, {}",

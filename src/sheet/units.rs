@@ -216,9 +216,14 @@ pub const UNITS: &[Unit] = &[
 ];
 
 /// Lower-cases and strips what people vary: spaces, superscripts, "per".
+/// Units are Latin letters and a few signs, so the lower-casing is ASCII's
+/// (plus the Greek capital mu): the full Unicode case tables would add
+/// about 20 KB to the page's module for nothing a unit uses.
 pub fn normalise(s: &str) -> String {
     s.trim()
-        .to_lowercase()
+        .chars()
+        .map(|c| if c == 'Μ' { 'μ' } else { c.to_ascii_lowercase() })
+        .collect::<String>()
         .replace(" per ", "/")
         .chars()
         .filter(|c| !c.is_whitespace() && *c != '°' && *c != '·')
@@ -547,6 +552,21 @@ pub fn show(si: f64, unit: &'static Unit, density: Option<f64>, significant: usi
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn every_spelling_is_found_in_capitals_too() {
+        // Reference: the standard library's full Unicode upper case, which
+        // turns the micro sign into a Greek capital mu; `normalise` lowers
+        // only ASCII and that letter.
+        for u in UNITS {
+            for spelling in std::iter::once(u.symbol).chain(u.aliases.iter().copied()) {
+                let found = find(u.dimension, spelling).map(|f| f.symbol);
+                assert_eq!(find(u.dimension, &spelling.to_uppercase()).map(|f| f.symbol), found, "{spelling}");
+                assert_eq!(find(u.dimension, &format!("  {spelling} ")).map(|f| f.symbol), found, "{spelling}");
+            }
+        }
+        assert_eq!(find(Dimension::Roughness, "ΜM").map(|u| u.symbol), Some("µm"));
+    }
 
     fn si(dim: Dimension, text: &str, rho: Option<f64>) -> f64 {
         let d = of(dim).next().unwrap();

@@ -12,7 +12,7 @@
 use leptos::prelude::*;
 use wasm_bindgen::JsCast;
 
-use super::state::{after_redraw, listen, Sheet};
+use super::state::{after, after_paint, listen, Sheet};
 use crate::sheet::file::{SheetFile, FORMAT};
 use crate::sheet::library::{
     display_name, Entry, Kv, Library, Problem, StoreError, Trashed, ASIDE_PREFIX, BUILD_KEY, INDEX_KEY, REV_PREFIX,
@@ -143,6 +143,11 @@ fn now() -> String {
     js_sys::Date::new_0().to_iso_string().as_string().unwrap_or_default()
 }
 
+/// When a change is saved if no frame has come to save it after (a hidden
+/// page paints none), ms. In a shown page the frame comes first and this
+/// finds nothing left to save.
+const HIDDEN_SAVE_MS: i32 = 200;
+
 /// How long deleted worksheets stay in the trash (a choice of ours).
 pub const TRASH_DAYS: f64 = 30.0;
 
@@ -260,9 +265,10 @@ impl Keeper {
     fn autosave(&self) {
         let k = *self;
         // Saving a big sheet takes a few milliseconds, so it runs in a task
-        // of its own right after the change (never after a delay), one
-        // save for however many changes arrived meanwhile. The results are
-        // on screen first.
+        // of its own right after the frame that shows the change (never
+        // after a delay), one save for however many changes arrived
+        // meanwhile: the results are on screen first. A hidden page paints
+        // no frames, so a timer saves it there.
         let seen = StoredValue::new(None::<Sheet>);
         Effect::new(move |_| {
             let sheet = k.sheet.get();
@@ -282,7 +288,8 @@ impl Keeper {
                 return; // a save is already on its way
             }
             k.dirty.set_value(true);
-            after_redraw(move || k.save_now());
+            after_paint(move || k.save_now());
+            after(HIDDEN_SAVE_MS, move || k.save_now());
         });
     }
 
