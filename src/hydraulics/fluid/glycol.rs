@@ -32,7 +32,28 @@ pub const SOURCES: &str = "Melinder (2010) via CoolProp INCOMP tables, interpola
 /// Highest temperature tabulated, °C.
 pub const T_MAX_C: f64 = 100.0;
 
-fn tables(g: Glycol) -> (&'static [f64; 11], &'static [[f32; table::NT]; 11], &'static [[f32; table::NT]; 11]) {
+/// One property on the grid, in whole steps: each row's first value and
+/// the change from each column to the next (how `glycol_table.rs` stores
+/// it, because small changes compress far better than f32 values).
+pub struct Packed {
+    /// The size of one step, in the property's unit.
+    pub step: f64,
+    /// Each row's value at the first column, in steps.
+    pub starts: [i32; 11],
+    /// Each row's change from one column to the next, in steps.
+    pub changes: [[i16; table::NT - 1]; 11],
+}
+
+impl Packed {
+    /// The value at row `r`, column `c`: exact to the step (the changes
+    /// sum without error).
+    pub fn at(&self, r: usize, c: usize) -> f64 {
+        let q = self.starts[r] + self.changes[r][..c].iter().map(|&d| i32::from(d)).sum::<i32>();
+        self.step * f64::from(q)
+    }
+}
+
+fn tables(g: Glycol) -> (&'static [f64; 11], &'static Packed, &'static Packed) {
     match g {
         Glycol::Ethylene => (&table::ETHYLENE_FREEZE_C, &table::ETHYLENE_RHO, &table::ETHYLENE_LN_MU),
         Glycol::Propylene => (&table::PROPYLENE_FREEZE_C, &table::PROPYLENE_RHO, &table::PROPYLENE_LN_MU),
@@ -92,8 +113,8 @@ fn locate(g: Glycol, fraction: f64, t: ThermodynamicTemperature) -> Result<(usiz
 }
 
 /// Bilinear interpolation in one table at a located state.
-fn bilinear(m: &[[f32; table::NT]; 11], (i, wx, j, wt): (usize, f64, usize, f64)) -> f64 {
-    let at = |r: usize, c: usize| f64::from(m[r][c]);
+fn bilinear(m: &Packed, (i, wx, j, wt): (usize, f64, usize, f64)) -> f64 {
+    let at = |r: usize, c: usize| m.at(r, c);
     let a = at(i, j) * (1.0 - wt) + at(i, j + 1) * wt;
     let b = at(i + 1, j) * (1.0 - wt) + at(i + 1, j + 1) * wt;
     a * (1.0 - wx) + b * wx
