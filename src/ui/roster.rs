@@ -220,7 +220,7 @@ const WINDOW_ROWS: usize = 36;
 /// Rows drawn above the first in view, so a short scroll draws nothing.
 const OVERSCAN: usize = 6;
 /// A row's height and gap before one has been measured (the stylesheet's
-/// 10.5rem + 0.4rem at 16 px).
+/// 10.5rem + 0.4rem at 16 px; 8rem at 640-999 px wide, until measured).
 const DEFAULT_PITCH_PX: f64 = 174.4;
 
 /// Which rows of a long list are drawn.
