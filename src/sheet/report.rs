@@ -1149,5 +1149,5 @@ pub fn json(sheet: &SheetFile, reports: &[LineReport]) -> String {
         npsh_available_m: summary.as_ref().and_then(|s| s.npsh).map(|n| n.0),
         lines,
     };
-    serde_json::to_string_pretty(&report).unwrap_or_default()
+    super::file::pretty_json(&report)
 }
