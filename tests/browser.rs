@@ -21,13 +21,14 @@ use web_sys::{HtmlElement, HtmlInputElement};
 
 mod web;
 
-use web::{all_text, choose, click, find, next_frame, text, type_into};
+use web::{all_text, choose, click, find, next_frame, observe_as_near, tell_near, text, type_into};
 
 wasm_bindgen_test_configure!(run_in_browser);
 
 /// Mounts the page around a worksheet set up by `setup`; returns the host
 /// element and the worksheet.
 fn mount_sheet(setup: impl FnOnce(&Sheet) + 'static) -> (HtmlElement, Sheet) {
+    observe_as_near();
     let document = web_sys::window().unwrap().document().unwrap();
     let host: HtmlElement = document.create_element("div").unwrap().unchecked_into();
     document.body().unwrap().append_child(&host).unwrap();
@@ -324,6 +325,49 @@ async fn drawing_results_runs_no_solve_and_an_edit_solves_one_line_only() {
     let d = slot.detail.get_untracked().unwrap().1;
     let one_line = 2 + (d.nearby.len() - 1) + usize::from(o.shown.is_some());
     assert_eq!(SOLVES.load(Ordering::Relaxed) - before, one_line);
+}
+
+#[wasm_bindgen_test]
+async fn an_answer_panel_off_the_screen_is_left_alone_and_never_shows_an_old_answer() {
+    use headroom::hydraulics::sizing::SOLVES;
+    let (root, sheet) = mount_sheet(|s| chilled(s, "riser", "4"));
+    // The observer is made once the panel is in the page.
+    next_frame().await;
+    let stale = || find(&root, "results").class_list().contains("stale");
+    let first = text(&root, "proposed-size");
+    let table = text(&root, "size-table");
+    assert_eq!(first, core_answer(&sheet, 0));
+    assert!(!stale());
+    // The panel leaves the screen (the fields above it are being edited):
+    // an edit shows its answer in the bar and leaves the panel as it was,
+    // marked stale (hidden), without working out its table and chart.
+    tell_near(false);
+    leptos::task::tick().await;
+    assert!(!stale(), "leaving the screen alone changes nothing");
+    let before = SOLVES.load(Ordering::Relaxed);
+    type_into(&root, "flow", "30");
+    leptos::task::tick().await;
+    let away = SOLVES.load(Ordering::Relaxed) - before;
+    let answer = core_answer(&sheet, 0);
+    assert_ne!(answer, first, "the edit changes the answer");
+    assert_eq!(text(&root, "bar-size"), answer);
+    assert!(stale());
+    assert_eq!(text(&root, "proposed-size"), first);
+    assert_eq!(text(&root, "size-table"), table);
+    // Back on the screen: written afresh, the core's answer, not stale.
+    tell_near(true);
+    leptos::task::tick().await;
+    assert!(!stale());
+    assert_eq!(text(&root, "proposed-size"), answer);
+    assert_ne!(text(&root, "size-table"), table);
+    // The same kind of edit with the panel on the screen also works out the
+    // sizes around the answer (their capacities): more solves than away.
+    let before = SOLVES.load(Ordering::Relaxed);
+    type_into(&root, "flow", "4");
+    leptos::task::tick().await;
+    let near = SOLVES.load(Ordering::Relaxed) - before;
+    assert!(away < near, "{away} solves off the screen, {near} on it");
+    assert_eq!(text(&root, "proposed-size"), first);
 }
 
 #[wasm_bindgen_test]

@@ -115,6 +115,8 @@ async fn a_new_user_sizes_a_line_adds_another_and_switches_units() {
         h.client.set_window_size(w, hgt).await.unwrap();
         h.screenshot(name).await;
         h.client.execute("document.querySelector('[data-testid=results]').scrollIntoView()", vec![]).await.unwrap();
+        // The panel is written once it is near the screen (the next frame).
+        tokio::time::sleep(std::time::Duration::from_millis(200)).await;
         h.screenshot(&format!("results-{name}")).await;
         h.client.execute("window.scrollTo(0, 0)", vec![]).await.unwrap();
     }
@@ -149,11 +151,21 @@ async fn edit_to_results_time_on_a_200_line_sheet() {
     h.cdp("Emulation.setCPUThrottlingRate", serde_json::json!({"rate": 4})).await;
     let tablet = time_edits(&h).await;
     let typed_tablet = typed_keys(&h).await;
+    // The same, with the answer panel on the screen (a screen wide enough
+    // to show it beside the fields, or scrolled to it): it is written on
+    // every edit then.
+    h.show_answer_panel().await;
+    let tablet_panel = time_edits(&h).await;
     h.cdp("Emulation.setCPUThrottlingRate", serde_json::json!({"rate": 1})).await;
+    let panel = time_edits(&h).await;
     let typed = typed_keys(&h).await;
-    for (label, (update, painted)) in
-        [(format!("{n}-line"), small), ("200-line".to_owned(), big), ("200-line, CPU throttled 4×,".to_owned(), tablet)]
-    {
+    for (label, (update, painted)) in [
+        (format!("{n}-line"), small),
+        ("200-line".to_owned(), big),
+        ("200-line, CPU throttled 4×,".to_owned(), tablet),
+        ("200-line, answer panel on the screen,".to_owned(), panel),
+        ("200-line, answer panel on the screen, CPU throttled 4×,".to_owned(), tablet_panel),
+    ] {
         println!(
             "{label} sheet, release build, edit → results updated: median {:.1} ms, worst {:.1} ms; → painted: median {:.1} ms, worst {:.1} ms ({} edits)",
             update[update.len() / 2], update[update.len() - 1], painted[painted.len() / 2], painted[painted.len() - 1], update.len()
@@ -989,6 +1001,8 @@ async fn a_user_builds_a_three_level_tree_and_a_fixture_branch_in_the_served_pag
 /// Opens the worked steps and the design basis, and waits until the steps'
 /// table (drawn only while open) is there.
 async fn open_the_folded_parts(h: &Harness) {
+    // Opened where they are, as a person does: on the screen.
+    h.show_answer_panel().await;
     h.client
         .execute(
             "document.querySelector('[data-testid=explain]').open = true; \

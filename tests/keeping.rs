@@ -15,7 +15,7 @@ use web_sys::{HtmlElement, HtmlInputElement};
 
 mod web;
 
-use web::{all_text, click, find, type_into};
+use web::{all_text, click, find, observe_as_near, type_into};
 
 wasm_bindgen_test_configure!(run_in_browser);
 
@@ -70,6 +70,7 @@ fn clear_pages() {
 }
 
 fn mount_app() -> HtmlElement {
+    observe_as_near();
     let document = web_sys::window().unwrap().document().unwrap();
     let host: HtmlElement = document.create_element("div").unwrap().unchecked_into();
     host.set_class_name("test-host");

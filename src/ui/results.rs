@@ -19,18 +19,44 @@ pub fn LineResults(
 ) -> impl IntoView {
     let file = line.file;
     let shown = line.detail;
+    // Whether the panel is on the screen or near it. Off it, the panel is
+    // left as it was: a keystroke in the fields above does not work out,
+    // lay out and paint a panel nobody sees (the answer bar shows the
+    // answer meanwhile). An answer that changes while it is off the screen
+    // marks the panel stale, hidden until it is written again on the way
+    // back, so it never shows an old answer.
+    let near = RwSignal::new(true);
+    let section = NodeRef::<leptos::html::Section>::new();
+    Effect::new(move |_| {
+        if let Some(el) = section.get() {
+            super::state::watch_near(&el, NEAR_MARGIN, near);
+        }
+    });
+    let stale = RwSignal::new(false);
+    Effect::new(move |was_near: Option<bool>| {
+        line.report.track();
+        let now = near.get();
+        // Away, and not just gone: the answer has changed since.
+        let old = !now && was_near == Some(false);
+        if stale.get_untracked() != old {
+            stale.set(old);
+        }
+        now
+    });
     // Whether the worked steps are open: their rows are written only then.
     let steps_open = RwSignal::new(false);
     // Whether there is no result: the table, steps and chart are hidden.
     // One memo, so their classes change only when this does.
-    let none = Memo::new(move |_| shown.with(Option::is_none));
-    let answer = Memo::new(move |_| shown.with(|s| panes::answer(s.as_ref().map(|(o, _)| o))));
-    let rows = move || shown.with(|s| s.as_ref().map(|(o, d)| panes::size_rows(o, d)).unwrap_or_default());
-    let points = move || shown.with(|s| s.as_ref().map(|(o, _)| panes::moody_points(o)).unwrap_or_default());
-    let steps = move || match steps_open.get() {
+    let none = while_near(near, move || shown.with(Option::is_none));
+    let answer = while_near(near, move || shown.with(|s| panes::answer(s.as_ref().map(|(o, _)| o))));
+    let rows =
+        while_near(near, move || shown.with(|s| s.as_ref().map(|(o, d)| panes::size_rows(o, d)).unwrap_or_default()));
+    let points =
+        while_near(near, move || shown.with(|s| s.as_ref().map(|(o, _)| panes::moody_points(o)).unwrap_or_default()));
+    let steps = while_near(near, move || match steps_open.get() {
         true => shown.with(|s| s.as_ref().map(|(_, d)| panes::step_rows(&d.trace)).unwrap_or_default()),
         false => String::new(),
-    };
+    });
     // One handler for the table's Check buttons: the row's size is in
     // `data-pin`. The rows are written afresh after a pin, so the button
     // pressed takes the focus back once they are.
@@ -61,7 +87,7 @@ pub fn LineResults(
     };
     let details = NodeRef::<leptos::html::Details>::new();
     view! {
-        <section class="results" id="answer-panel" aria-label="Answer" data-testid="results">
+        <section class="results" class:stale=stale id="answer-panel" aria-label="Answer" data-testid="results" node_ref=section>
             <div class=move || answer.with(|a| a.0) data-testid="answer" role="status" inner_html=move || answer.with(|a| a.1.clone())></div>
             <div class="table-wrap" class:hidden=none>
                 <table class="sizes" data-testid="size-table">
@@ -71,7 +97,7 @@ pub fn LineResults(
                         <th scope="col">"f"</th><th scope="col">"Regime"</th><th scope="col">"Δp/L"</th><th scope="col">"Δp total"</th>
                         <th scope="col">"Capacity"</th><th scope="col">"Verdict"</th><th scope="col">"Binding limit"</th><th scope="col"><span class="sr">"Check mode"</span></th>
                     </tr></thead>
-                    <tbody node_ref=rows_body on:click=pin inner_html=rows></tbody>
+                    <tbody node_ref=rows_body on:click=pin inner_html=move || rows.get()></tbody>
                 </table>
             </div>
             <details class="explain" class:hidden=none data-testid="explain" node_ref=details prop:open=move || steps_open.get()
@@ -80,19 +106,35 @@ pub fn LineResults(
                 <p>"The friction factor depends only on the Reynolds number and the relative roughness, f = φ(Re, ε/D); every other number here follows from the fluid, the pipe and the line."</p>
                 <table>
                     <thead><tr><th scope="col">"Quantity"</th><th scope="col">"Formula"</th><th scope="col">"Value (SI)"</th><th scope="col">"Source"</th></tr></thead>
-                    <tbody inner_html=steps></tbody>
+                    <tbody inner_html=move || steps.get()></tbody>
                 </table>
             </details>
             <figure class="moody" class:hidden=none>
                 <svg viewBox=format!("0 0 {} {}", chart::WIDTH, chart::HEIGHT) role="img" aria-labelledby="moody-title" data-testid="moody">
                     <title id="moody-title">"Moody chart: friction factor against Reynolds number, with each size's operating point"</title>
                     <g inner_html=panes::moody_background()></g>
-                    <g class="points" inner_html=points></g>
+                    <g class="points" inner_html=move || points.get()></g>
                 </svg>
                 <figcaption>"Laminar f = 64/Re; curves are Colebrook (1939) for the ε/D shown; the shaded band is the transition zone. Large dot: the proposed size; hollow: sizes that fail."</figcaption>
             </figure>
         </section>
     }
+}
+
+/// How near the screen the answer panel is drawn: about two lines of
+/// text, so a panel scrolled into view is written a frame before it shows.
+const NEAR_MARGIN: &str = "150px 0px";
+
+/// A memo of `f` that follows it while `near` is true and keeps its last
+/// value otherwise (reading nothing but `near`, so nothing reruns it).
+fn while_near<T: Clone + PartialEq + Send + Sync + 'static>(
+    near: RwSignal<bool>,
+    f: impl Fn() -> T + Send + Sync + 'static,
+) -> Memo<T> {
+    Memo::new(move |last: Option<&T>| match (near.get(), last) {
+        (false, Some(last)) => last.clone(),
+        _ => f(),
+    })
 }
 
 /// The answer in one line that stays on screen while the inputs above the
@@ -128,7 +170,7 @@ pub fn AnswerBar(
         })
     });
     view! {
-        <aside class=move || format!("answer-bar state-{}", summary.with(|s| s.2)) aria-label="Answer for this line" data-testid="answer-bar">
+        <aside class=move || format!("answer-bar state-{}", summary.with(|s| s.2)) aria-label="Answer for this line" aria-live="polite" data-testid="answer-bar">
             <strong data-testid="bar-size">{move || summary.with(|s| s.0.clone())}</strong>
             <span class="bar-figures" data-testid="bar-figures">{move || summary.with(|s| s.1.clone())}</span>
             <a class="bar-jump" href="#answer-panel" data-testid="bar-jump">"Full answer ↓"</a>

@@ -140,6 +140,41 @@ pub fn after_paint(f: impl FnOnce() + 'static) {
     let _ = w.request_animation_frame(wasm_bindgen::JsCast::unchecked_ref(&f));
 }
 
+/// Keeps `near` saying whether `el` is on the screen or within `margin`
+/// of it (an `IntersectionObserver`), for as long as the current reactive
+/// owner lives: the observer lets go of the element when it is disposed.
+pub fn watch_near(el: &web_sys::Element, margin: &str, near: RwSignal<bool>) {
+    use wasm_bindgen::JsCast;
+    let seen = wasm_bindgen::closure::Closure::<dyn FnMut(js_sys::Array)>::new(move |entries: js_sys::Array| {
+        // The newest entry says where the element is now.
+        let now = js_sys::Reflect::get(&entries.at(-1), &"isIntersecting".into()).ok().and_then(|v| v.as_bool());
+        if let (Some(now), Some(before)) = (now, near.try_get_untracked()) {
+            if now != before {
+                near.set(now);
+            }
+        }
+    });
+    let init = web_sys::IntersectionObserverInit::new();
+    init.set_root_margin(margin);
+    let Ok(observer) = web_sys::IntersectionObserver::new_with_options(seen.as_ref().unchecked_ref(), &init) else {
+        return; // no observer: `near` stays as it is (drawn)
+    };
+    observer.observe(el);
+    StoredValue::new_local(Watch { observer, _seen: seen });
+}
+
+/// An observer and its callback: disconnected before the callback is freed.
+struct Watch {
+    observer: web_sys::IntersectionObserver,
+    _seen: wasm_bindgen::closure::Closure<dyn FnMut(js_sys::Array)>,
+}
+
+impl Drop for Watch {
+    fn drop(&mut self) {
+        self.observer.disconnect();
+    }
+}
+
 /// Calls `f` on every `event` at `target`, for as long as the page lives.
 pub fn listen(target: &web_sys::EventTarget, event: &str, f: impl FnMut(web_sys::Event) + 'static) {
     let f = wasm_bindgen::closure::Closure::<dyn FnMut(web_sys::Event)>::new(f);

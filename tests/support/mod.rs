@@ -238,6 +238,9 @@ impl Harness {
     }
 
     pub async fn wait_for(&self, testid: &str) -> fantoccini::elements::Element {
+        if in_answer_panel(testid) {
+            self.show_answer_panel().await;
+        }
         self.client
             .wait()
             .at_most(Duration::from_secs(30))
@@ -246,6 +249,27 @@ impl Harness {
             .unwrap_or_else(|e| panic!("[data-testid={testid}] never appeared: {e}"))
     }
 
+    /// Scrolls the answer panel into view, as a person does to read it, and
+    /// waits two frames: the panel is written only while it is on or near
+    /// the screen (`src/ui/results.rs`), so what it shows elsewhere may be
+    /// an earlier answer, hidden.
+    pub async fn show_answer_panel(&self) {
+        self.client
+            .execute_async(
+                r#"const done = arguments[arguments.length - 1];
+                   const panel = document.getElementById('answer-panel');
+                   if (!panel) return done();
+                   const r = panel.getBoundingClientRect();
+                   if (r.bottom < 0 || r.top > innerHeight) panel.scrollIntoView({block: 'start'});
+                   requestAnimationFrame(() => requestAnimationFrame(() => setTimeout(done, 0)));"#,
+                vec![],
+            )
+            .await
+            .expect("scroll to the answer panel");
+    }
+
+    /// The element's text as shown (a part of the answer panel is read on
+    /// the screen: see [`Harness::show_answer_panel`]).
     pub async fn text(&self, testid: &str) -> String {
         self.wait_for(testid).await.text().await.expect("element text")
     }
@@ -390,4 +414,13 @@ impl Harness {
         assert!(!self.requests.is_empty(), "the performance log recorded no requests at all");
         assert!(foreign.is_empty(), "requests left the origin {origin}: {foreign:#?}");
     }
+}
+
+/// Whether the element with this `data-testid` is part of the answer panel
+/// (`src/ui/results.rs`; the answer bar is not: it stays on the screen).
+fn in_answer_panel(testid: &str) -> bool {
+    testid == "results"
+        || testid == "proposed-size"
+        || (testid.starts_with("answer") && testid != "answer-bar")
+        || ["size-", "explain", "moody"].iter().any(|p| testid.starts_with(p))
 }

@@ -61,3 +61,31 @@ pub async fn next_frame() {
     wasm_bindgen_futures::JsFuture::from(p).await.unwrap();
     leptos::task::tick().await;
 }
+
+/// Puts a stand-in `IntersectionObserver` in the page: it says every
+/// element it watches is on the screen, and a test can say otherwise with
+/// [`tell_near`]. The answer panel is written only while near the screen
+/// (`src/ui/results.rs`), and these tests mount page after page below each
+/// other, most far below the test runner's screen; the real observer is
+/// exercised by the end-to-end tests, which scroll.
+pub fn observe_as_near() {
+    let install = js_sys::Function::new_no_args(
+        r#"if (window.headroomObservers) return;
+           window.headroomObservers = [];
+           window.IntersectionObserver = class {
+             constructor(callback) { this.callback = callback; this.targets = []; window.headroomObservers.push(this); }
+             observe(target) { this.targets.push(target); queueMicrotask(() => this.tell(true)); }
+             unobserve() {}
+             disconnect() { this.targets = []; }
+             tell(near) { if (this.targets.length) this.callback(this.targets.map(target => ({ target, isIntersecting: near })), this); }
+           };"#,
+    );
+    install.call0(&wasm_bindgen::JsValue::NULL).unwrap();
+}
+
+/// Tells every stand-in observer still watching that its elements are
+/// (`true`) or are not near the screen.
+pub fn tell_near(near: bool) {
+    let tell = js_sys::Function::new_with_args("near", "for (const o of window.headroomObservers) o.tell(near);");
+    tell.call1(&wasm_bindgen::JsValue::NULL, &near.into()).unwrap();
+}
