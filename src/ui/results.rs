@@ -121,8 +121,9 @@ pub fn LineResults(
     }
 }
 
-/// How near the screen the answer panel is drawn: about two lines of
-/// text, so a panel scrolled into view is written a frame before it shows.
+/// How near the screen the answer panel is written: 150 px, so a panel
+/// scrolled into view at an ordinary pace is written before it shows (a
+/// jump to it may show it hidden for one frame, never with an old answer).
 const NEAR_MARGIN: &str = "150px 0px";
 
 /// A memo of `f` that follows it while `near` is true and keeps its last
