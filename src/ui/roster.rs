@@ -5,7 +5,7 @@ use leptos::prelude::*;
 
 use crate::hydraulics::line::Circuit;
 
-use super::state::{after_paint, Sheet, Slot};
+use super::state::{a_frame_behind, Sheet, Slot};
 use crate::sheet::presets::SERVICES;
 use crate::sheet::units;
 
@@ -400,25 +400,20 @@ fn RosterRow(line: Slot) -> impl IntoView {
     // (measured on a 200-line sheet with the CPU slowed 4×: the row's
     // texts were about a fifth of an edit's time to the painted frame).
     let shown = RwSignal::new(untrack(move || (answer(), carried())));
-    let pending = StoredValue::new(false);
-    Effect::new(move |ran: Option<()>| {
-        report.track();
-        place.track();
-        sheet.resolved.track();
-        file.track();
-        if ran.is_none() || pending.get_value() {
-            return;
-        }
-        pending.set_value(true);
-        // `try_`: the row may be gone by then.
-        after_paint(move || {
-            pending.try_set_value(false);
+    a_frame_behind(
+        move || {
+            report.track();
+            place.track();
+            sheet.resolved.track();
+            file.track();
+        },
+        move || {
             let now = untrack(move || (answer(), carried()));
             if shown.try_with_untracked(|s| *s != now) == Some(true) {
                 shown.try_set(now);
             }
-        });
-    });
+        },
+    );
     let depth = move || line.place.with(|p| p.depth.min(6));
     view! {
         // Indented by a stylesheet rule per depth: the CSP allows no inline style.

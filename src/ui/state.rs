@@ -140,6 +140,26 @@ pub fn after_paint(f: impl FnOnce() + 'static) {
     let _ = w.request_animation_frame(wasm_bindgen::JsCast::unchecked_ref(&f));
 }
 
+/// Calls `then` in a task after the next frame has painted whenever what
+/// `track` reads changes, once however many changes come before that frame
+/// (not for the first reading): for what may follow an edit a frame
+/// behind the answer. `then` reads with `try_`: the frame may come after
+/// its view is gone.
+pub fn a_frame_behind(track: impl Fn() + 'static, then: impl Fn() + Copy + 'static) {
+    let pending = StoredValue::new(false);
+    Effect::new(move |ran: Option<()>| {
+        track();
+        if ran.is_none() || pending.get_value() {
+            return;
+        }
+        pending.set_value(true);
+        after_paint(move || {
+            pending.try_set_value(false);
+            then();
+        });
+    });
+}
+
 /// Keeps `near` saying whether `el` is on the screen or within `margin`
 /// of it (an `IntersectionObserver`), for as long as the current reactive
 /// owner lives: the observer lets go of the element when it is disposed.

@@ -6,7 +6,7 @@
 use leptos::prelude::*;
 
 use super::fields::TextField;
-use super::state::{after_paint, Sheet};
+use super::state::{a_frame_behind, Sheet};
 use crate::hydraulics::line::Circuit;
 use crate::sheet::duty_plot::{self, Plot};
 use crate::sheet::file::{LineFile, SystemFile};
@@ -70,25 +70,20 @@ pub fn SystemPanel() -> impl IntoView {
     // the CPU slowed 4×). One catch-up for however many changes came
     // before that frame.
     let caught_up = RwSignal::new(0u32);
-    let pending = StoredValue::new(false);
-    Effect::new(move |first: Option<()>| {
-        // A line's result changes only with its text, the units, the
-        // system settings or where it sits in the tree.
-        sheet.lines.track();
-        sheet.edited.track();
-        sheet.joined.track();
-        sheet.system.track();
-        sheet.resolved.track();
-        if first.is_none() || pending.get_value() {
-            return;
-        }
-        pending.set_value(true);
-        // `try_`: the frame may come after this worksheet was replaced.
-        after_paint(move || {
-            pending.try_set_value(false);
+    a_frame_behind(
+        move || {
+            // A line's result changes only with its text, the units, the
+            // system settings or where it sits in the tree.
+            sheet.lines.track();
+            sheet.edited.track();
+            sheet.joined.track();
+            sheet.system.track();
+            sheet.resolved.track();
+        },
+        move || {
             caught_up.try_update(|n| *n = n.wrapping_add(1));
-        });
-    });
+        },
+    );
     let answer = Memo::new(move |_| {
         let shown = is_system.get();
         caught_up.track();
