@@ -7,6 +7,7 @@ use super::state::Slot;
 use crate::sheet::chart;
 use crate::sheet::panes::{self, sentence};
 use crate::sheet::report::designation;
+use crate::sheet::report::{Detail, LineReport, Outcome};
 
 /// The answer for the selected line. Its views only show results, so
 /// each is markup text set in one step ([`crate::sheet::panes`]); the
@@ -45,22 +46,72 @@ pub fn LineResults(
     });
     // Whether the worked steps are open: their rows are written only then.
     let steps_open = RwSignal::new(false);
+    // The answer bar follows every edit in the frame that paints it; the
+    // panel follows a frame behind it (after that frame has painted), as
+    // the list's rows do: on a tablet the panel's card, table and chart
+    // are laid out and painted in a frame of their own. Where the bar is
+    // not shown (wide screens) the card still follows every edit.
+    let sheet = expect_context::<super::state::Sheet>();
+    let caught_up = RwSignal::new(0u32);
+    super::state::a_frame_behind(
+        move || {
+            line.report.track();
+            sheet.resolved.track();
+        },
+        move || {
+            caught_up.try_update(|n| *n = n.wrapping_add(1));
+        },
+    );
+    // What the panel draws from: the detail as of the last frame behind.
+    let lag = move |f: fn(&Option<(Outcome, Detail)>) -> String| {
+        move || {
+            caught_up.track();
+            shown.with_untracked(f)
+        }
+    };
     // Whether there is no result: the table, steps and chart are hidden.
     // One memo, so their classes change only when this does.
-    let none = while_near(near, move || shown.with(Option::is_none));
-    let answer = while_near(near, move || shown.with(|s| panes::answer(s.as_ref().map(|(o, _)| o))));
-    let rows =
-        while_near(near, move || shown.with(|s| s.as_ref().map(|(o, d)| panes::size_rows(o, d)).unwrap_or_default()));
-    let points =
-        while_near(near, move || shown.with(|s| s.as_ref().map(|(o, _)| panes::moody_points(o)).unwrap_or_default()));
+    let none = while_near(near, move || {
+        caught_up.track();
+        shown.with_untracked(Option::is_none)
+    });
+    let answer = while_near(near, move || {
+        let card = |r: &LineReport| panes::answer(r.outcome.as_ref().ok());
+        if bar_shown() {
+            caught_up.track();
+            line.report.with_untracked(card)
+        } else {
+            line.report.with(card)
+        }
+    });
+    let rows = while_near(near, lag(|s| s.as_ref().map(|(o, d)| panes::size_rows(o, d)).unwrap_or_default()));
+    let points = while_near(near, lag(|s| s.as_ref().map(|(o, _)| panes::moody_points(o)).unwrap_or_default()));
     let steps = while_near(near, move || match steps_open.get() {
-        true => shown.with(|s| s.as_ref().map(|(_, d)| panes::step_rows(&d.trace)).unwrap_or_default()),
+        true => lag(|s| s.as_ref().map(|(_, d)| panes::step_rows(&d.trace)).unwrap_or_default())(),
         false => String::new(),
     });
     // One handler for the table's Check buttons: the row's size is in
-    // `data-pin`. The rows are written afresh after a pin, so the button
-    // pressed takes the focus back once they are.
+    // `data-pin`. The rows are written afresh after a pin (a frame later),
+    // so the button pressed takes the focus back once they are.
     let rows_body = NodeRef::<leptos::html::Tbody>::new();
+    let refocus = StoredValue::new(None::<String>);
+    Effect::new(move |_| {
+        let html = rows.get();
+        let Some(body) = rows_body.get() else { return };
+        body.set_inner_html(&html);
+        let Some(size) = refocus.try_update_value(Option::take).flatten() else { return };
+        // Only if the focus went down with the old button (not elsewhere since).
+        let body_has_focus = document().active_element().is_none_or(|a| a.tag_name() == "BODY");
+        if !body_has_focus {
+            return;
+        }
+        let buttons = body.query_selector_all("button[data-pin]").ok();
+        let again = buttons.into_iter().flat_map(|l| (0..l.length()).filter_map(move |i| l.item(i)));
+        let mut again = again.filter_map(|n| wasm_bindgen::JsCast::dyn_into::<web_sys::HtmlElement>(n).ok());
+        if let Some(b) = again.find(|b| b.get_attribute("data-pin").as_deref() == Some(size.as_str())) {
+            let _ = b.focus();
+        }
+    });
     let pin = move |ev: leptos::ev::MouseEvent| {
         use wasm_bindgen::JsCast;
         let pressed = ev.target().and_then(|t| t.dyn_into::<web_sys::Element>().ok());
@@ -70,20 +121,8 @@ pub fn LineResults(
         else {
             return;
         };
+        refocus.set_value(Some(size.clone()));
         file.update(|f| f.toggle_check(&size));
-        set_timeout(
-            move || {
-                // `try_`: this line's answer may be gone by now.
-                let buttons =
-                    rows_body.try_get_untracked().flatten().and_then(|r| r.query_selector_all("button[data-pin]").ok());
-                let again = buttons.into_iter().flat_map(|l| (0..l.length()).filter_map(move |i| l.item(i)));
-                let mut again = again.filter_map(|n| n.dyn_into::<web_sys::HtmlElement>().ok());
-                if let Some(b) = again.find(|b| b.get_attribute("data-pin").as_deref() == Some(size.as_str())) {
-                    let _ = b.focus();
-                }
-            },
-            std::time::Duration::ZERO,
-        );
     };
     let details = NodeRef::<leptos::html::Details>::new();
     view! {
@@ -97,7 +136,7 @@ pub fn LineResults(
                         <th scope="col">"f"</th><th scope="col">"Regime"</th><th scope="col">"Δp/L"</th><th scope="col">"Δp total"</th>
                         <th scope="col">"Capacity"</th><th scope="col">"Verdict"</th><th scope="col">"Binding limit"</th><th scope="col"><span class="sr">"Check mode"</span></th>
                     </tr></thead>
-                    <tbody node_ref=rows_body on:click=pin inner_html=move || rows.get()></tbody>
+                    <tbody node_ref=rows_body on:click=pin></tbody>
                 </table>
             </div>
             <details class="explain" class:hidden=none data-testid="explain" node_ref=details prop:open=move || steps_open.get()
@@ -125,6 +164,13 @@ pub fn LineResults(
 /// scrolled into view at an ordinary pace is written before it shows (a
 /// jump to it may show it hidden for one frame, never with an old answer).
 const NEAR_MARGIN: &str = "150px 0px";
+
+/// Whether the answer bar is on the screen: below the style sheet's
+/// 1500 px breakpoint (`.answer-bar`), read from the window's width, which
+/// needs no layout.
+fn bar_shown() -> bool {
+    web_sys::window().and_then(|w| w.inner_width().ok()).and_then(|w| w.as_f64()).is_none_or(|w| w < 1500.0)
+}
 
 /// A memo of `f` that follows it while `near` is true and keeps its last
 /// value otherwise (reading nothing but `near`, so nothing reruns it).
