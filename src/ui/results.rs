@@ -55,8 +55,11 @@ pub fn LineResults(
     let caught_up = RwSignal::new(0u32);
     super::state::a_frame_behind(
         move || {
-            line.report.track();
-            sheet.resolved.track();
+            // Away, nothing is scheduled (coming back writes the panel).
+            if near.get() {
+                line.report.track();
+                sheet.resolved.track();
+            }
         },
         move || {
             caught_up.try_update(|n| *n = n.wrapping_add(1));
