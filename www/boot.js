@@ -33,16 +33,21 @@ function cannotStart(error) {
   document.body.append(box);
 }
 
+let started;
 try {
-  init({ module_or_path: "./__HEADROOM_WASM__" }).catch(cannotStart);
+  started = init({ module_or_path: "./__HEADROOM_WASM__" }).catch(cannotStart);
 } catch (e) {
   cannotStart(e);
+  started = Promise.resolve();
 }
 
 // Offline: a service worker keeps every file of this version. When a newer
 // version has been installed, offer to switch; the page keeps running on
 // the version it loaded until the person says so, so files never mix.
-if ("serviceWorker" in navigator) {
+// It is registered once the page has started and painted its first frame:
+// on a first visit its install fetches every file again, which should not
+// compete with the page's own start (common practice).
+function registerWorker() {
   let asked = false;
   const offer = (worker) => {
     if (!worker || document.getElementById("update-offer")) return;
@@ -80,4 +85,8 @@ if ("serviceWorker" in navigator) {
     window.headroomOffline = true;
     window.dispatchEvent(new Event("headroom-offline-ready"));
   });
+}
+
+if ("serviceWorker" in navigator) {
+  started.then(() => requestAnimationFrame(() => setTimeout(registerWorker, 0)));
 }
