@@ -88,5 +88,16 @@ function registerWorker() {
 }
 
 if ("serviceWorker" in navigator) {
-  started.then(() => requestAnimationFrame(() => setTimeout(registerWorker, 0)));
+  // A page opened in a background tab paints no frames until it is shown:
+  // a timer registers the worker there.
+  let registered = false;
+  const registerOnce = () => {
+    if (registered) return;
+    registered = true;
+    registerWorker();
+  };
+  started.then(() => {
+    requestAnimationFrame(() => setTimeout(registerOnce, 0));
+    setTimeout(registerOnce, 3000);
+  });
 }
