@@ -6,8 +6,7 @@ use leptos::prelude::*;
 use super::state::Slot;
 use crate::sheet::chart;
 use crate::sheet::panes::{self, sentence};
-use crate::sheet::report::designation;
-use crate::sheet::report::{Detail, LineReport, Outcome};
+use crate::sheet::report::{designation, Detail, LineReport, Outcome};
 
 /// The answer for the selected line. Its views only show results, so
 /// each is markup text set in one step ([`crate::sheet::panes`]); the
@@ -65,19 +64,9 @@ pub fn LineResults(
             caught_up.try_update(|n| *n = n.wrapping_add(1));
         },
     );
-    // What the panel draws from: the detail as of the last frame behind.
-    let lag = move |f: fn(&Option<(Outcome, Detail)>) -> String| {
-        move || {
-            caught_up.track();
-            shown.with_untracked(f)
-        }
-    };
     // Whether there is no result: the table, steps and chart are hidden.
     // One memo, so their classes change only when this does.
-    let none = while_near(near, move || {
-        caught_up.track();
-        shown.with_untracked(Option::is_none)
-    });
+    let none = while_near(near, behind(caught_up, shown, Option::is_none));
     let answer = while_near(near, move || {
         let card = |r: &LineReport| panes::answer(r.outcome.as_ref().ok());
         if bar_shown() {
@@ -87,10 +76,18 @@ pub fn LineResults(
             line.report.with(card)
         }
     });
-    let rows = while_near(near, lag(|s| s.as_ref().map(|(o, d)| panes::size_rows(o, d)).unwrap_or_default()));
-    let points = while_near(near, lag(|s| s.as_ref().map(|(o, _)| panes::moody_points(o)).unwrap_or_default()));
+    let rows = while_near(
+        near,
+        behind(caught_up, shown, |s| s.as_ref().map(|(o, d)| panes::size_rows(o, d)).unwrap_or_default()),
+    );
+    let points = while_near(
+        near,
+        behind(caught_up, shown, |s| s.as_ref().map(|(o, _)| panes::moody_points(o)).unwrap_or_default()),
+    );
+    let step_rows =
+        behind(caught_up, shown, |s| s.as_ref().map(|(_, d)| panes::step_rows(&d.trace)).unwrap_or_default());
     let steps = while_near(near, move || match steps_open.get() {
-        true => lag(|s| s.as_ref().map(|(_, d)| panes::step_rows(&d.trace)).unwrap_or_default())(),
+        true => step_rows(),
         false => String::new(),
     });
     // One handler for the table's Check buttons: the row's size is in
@@ -173,6 +170,19 @@ const NEAR_MARGIN: &str = "150px 0px";
 /// needs no layout.
 fn bar_shown() -> bool {
     web_sys::window().and_then(|w| w.inner_width().ok()).and_then(|w| w.as_f64()).is_none_or(|w| w < 1500.0)
+}
+
+/// `f` of the line's result and detail as of the last frame behind the
+/// answer: it reruns when `caught_up` moves, not when the result changes.
+fn behind<T: 'static>(
+    caught_up: RwSignal<u32>,
+    shown: Memo<Option<(Outcome, Detail)>>,
+    f: fn(&Option<(Outcome, Detail)>) -> T,
+) -> impl Fn() -> T + Copy + Send + Sync + 'static {
+    move || {
+        caught_up.track();
+        shown.with_untracked(f)
+    }
 }
 
 /// A memo of `f` that follows it while `near` is true and keeps its last
