@@ -86,6 +86,20 @@ async fn typing_a_flow_updates_the_proposal() {
 }
 
 #[wasm_bindgen_test]
+async fn a_sheets_date_is_shown_and_kept_as_written() {
+    // A sheet's date is free text in the file (a link or a hand-edited
+    // file may carry "3 Dec 2026, rev B"); a date-only field would show
+    // it blank and lose it on the next save.
+    let (root, sheet) = mount_sheet(|s| s.date.set("3 Dec 2026, rev B".into()));
+    next_frame().await;
+    let input: HtmlInputElement = find(&root, "date").unchecked_into();
+    assert_eq!(input.value(), "3 Dec 2026, rev B");
+    type_into(&root, "date", "2026-12-04");
+    next_frame().await;
+    assert_eq!(sheet.date.get_untracked(), "2026-12-04");
+}
+
+#[wasm_bindgen_test]
 async fn a_bad_value_shows_its_message_and_other_lines_keep_their_results() {
     let (root, sheet) = mount_sheet(|s| {
         chilled(s, "first", "4");

@@ -80,7 +80,11 @@ pub fn Desk(
             <div class="sheet-meta">
                 <label>"Project"<input type="text" data-testid="project" prop:value=move || sheet.project.get()
                     on:input=move |ev| sheet.project.set(event_target_value(&ev))/></label>
-                <label>"Date"<input type="date" data-testid="date" prop:value=move || sheet.date.get()
+                // A text field, not `type="date"`: a sheet's date is free text
+                // (a file or link may carry any), and the first date field a
+                // page draws costs 10-30 ms of the browser's setup at start.
+                <label>"Date"<input type="text" data-testid="date" placeholder="YYYY-MM-DD" autocomplete="off"
+                    prop:value=move || sheet.date.get()
                     on:input=move |ev| sheet.date.set(event_target_value(&ev))/></label>
                 <div class="system" role="group" aria-label="Unit system">
                     <button type="button" data-testid="units-si" aria-pressed=move || if system() == System::Si { "true" } else { "false" }
