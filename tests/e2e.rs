@@ -1212,9 +1212,15 @@ async fn start_time_beside_a_bare_leptos_page() {
         return; // serves its own two folders
     }
     const LOADS: usize = 9;
-    let bare = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("target/bare-dist");
-    assert!(bare.join("index.html").is_file(), "{} missing: scripts/test build makes it", bare.display());
-    let pages = [("bare Leptos page", bare, "ready"), ("Headroom (empty worksheet)", support::dist_dir(), "add-line")];
+    let bare = yardstick("bare-dist");
+    // The first screen alone (benches/first-screen): the same elements,
+    // texts and style sheet as Headroom's, with no program behind them.
+    let alone = yardstick("first-screen-dist");
+    let pages = [
+        ("bare Leptos page", bare, "ready"),
+        ("first screen alone", alone, "add-line"),
+        ("Headroom (empty worksheet)", support::dist_dir(), "add-line"),
+    ];
     // Two ways: a first visit, every load in a browser of its own (no
     // HTTP cache, no service worker, and no wasm compiled by an earlier
     // load: a browser keeps a module it has compiled and reuses it for the
@@ -1225,8 +1231,8 @@ async fn start_time_beside_a_bare_leptos_page() {
     for fresh in [true, false] {
         for rate in [1.0, 4.0] {
             let mut kept: Vec<Option<Harness>> = pages.iter().map(|_| None).collect();
-            // The two pages loaded in turn, so a busy moment of the machine
-            // falls on both.
+            // The pages loaded in turn, so a busy moment of the machine
+            // falls on each.
             let mut times = vec![(Vec::new(), Vec::new()); pages.len()];
             for _ in 0..LOADS {
                 for (((_, dist, ready), (mounted, painted)), slot) in
@@ -1268,12 +1274,70 @@ async fn start_time_beside_a_bare_leptos_page() {
             let of =
                 |who: &str| medians.iter().find(|m| m.0.starts_with(who) && m.1 == fresh && m.2 == rate).unwrap().4;
             println!(
-                "start, {}, CPU {rate}×: Headroom takes {:.2}× the bare page's time to a painted page",
+                "start, {}, CPU {rate}×: Headroom takes {:.2}× the bare page's time to a painted page \
+                 (its first screen alone {:.2}×; Headroom {:.2}× its first screen alone)",
                 how(fresh),
-                of("Headroom") / of("bare")
+                of("Headroom") / of("bare"),
+                of("first screen") / of("bare"),
+                of("Headroom") / of("first screen")
             );
         }
     }
+}
+
+/// A yardstick page's release build under `target/` (scripts/test builds
+/// both).
+fn yardstick(folder: &str) -> std::path::PathBuf {
+    let dist = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("target").join(folder);
+    assert!(dist.join("index.html").is_file(), "{} missing: scripts/test build makes it", dist.display());
+    dist
+}
+
+/// Every element of the page's body in order (tag, classes, test id) and
+/// the text it shows, for comparing two pages' first screens.
+const SCREEN_OUTLINE: &str = r#"return [
+  [...document.body.querySelectorAll('*')]
+    .filter(e => e.tagName !== 'NOSCRIPT')
+    .map(e => [e.tagName, e.className, e.getAttribute('data-testid') || ''].join(' ')),
+  document.body.innerText,
+];"#;
+
+#[tokio::test(flavor = "multi_thread")]
+#[ignore = "needs dist/, target/first-screen-dist and chromedriver: scripts/test runs it"]
+async fn first_screen_alone_matches() {
+    if std::env::var_os("HEADROOM_BASE_URL").is_some() {
+        return; // serves its own folders
+    }
+    // The start test's second yardstick stands for Headroom's first screen
+    // only while it draws the same elements and texts: a first visit of
+    // each, the same window. The start test keeps service workers out, so
+    // its Headroom shows "Not yet ready offline" throughout; here the page
+    // is kept from registering one, or the status could change while it
+    // is read.
+    let mut outlines = Vec::new();
+    for dist in [yardstick("first-screen-dist"), support::dist_dir()] {
+        let mut h = Harness::start_serving(1024, 768, dist).await;
+        h.cdp(
+            "Page.addScriptToEvaluateOnNewDocument",
+            serde_json::json!({"source": "delete Navigator.prototype.serviceWorker;"}),
+        )
+        .await;
+        h.open("/", "add-line").await;
+        outlines.push(h.client.execute(SCREEN_OUTLINE, vec![]).await.unwrap());
+        h.finish().await;
+    }
+    let (alone, headroom) = (&outlines[0], &outlines[1]);
+    assert_eq!(
+        alone[1], headroom[1],
+        "the first screen alone shows other texts than Headroom's first visit: \
+         write benches/first-screen/src/main.rs again from the page"
+    );
+    assert_eq!(
+        alone[0], headroom[0],
+        "the first screen alone has other elements than Headroom's first visit: \
+         write benches/first-screen/src/main.rs again from the page"
+    );
+    assert!(alone[0].as_array().is_some_and(|e| e.len() > 40), "an outline of the screen: {:?}", alone[0]);
 }
 
 /// A browser on `dist` with the start clock installed, for the control
