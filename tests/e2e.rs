@@ -1206,10 +1206,10 @@ const READY_CLOCK: &str = r#"(() => {
 })();"#;
 
 #[tokio::test(flavor = "multi_thread")]
-#[ignore = "needs dist/, target/bare-dist and chromedriver: scripts/test runs it"]
+#[ignore = "needs dist/, target/bare-dist, target/first-screen-dist and chromedriver: scripts/test runs it"]
 async fn start_time_beside_a_bare_leptos_page() {
     if std::env::var_os("HEADROOM_BASE_URL").is_some() {
-        return; // serves its own two folders
+        return; // serves its own folders
     }
     const LOADS: usize = 9;
     let bare = yardstick("bare-dist");
