@@ -317,6 +317,23 @@ async fn an_error_that_belongs_to_no_input_is_shown_in_the_answer() {
 }
 
 #[wasm_bindgen_test]
+async fn a_change_made_as_the_page_is_drawn_reaches_the_answer_panel() {
+    // Regression: the panel follows a frame behind the answer, from a watch
+    // whose first look came a task after the page was drawn; a line changed
+    // in between (here before any task has run) left the panel showing the
+    // answer it was drawn with until the next edit.
+    let (root, sheet) = mount_sheet(|s| chilled(s, "CHW riser", "2"));
+    let drawn = text(&root, "proposed-size");
+    sheet.lines.with_untracked(|v| v[0].file.update(|f| f.flow = "40".into()));
+    next_frame().await;
+    next_frame().await;
+    let want = core_answer(&sheet, 0);
+    assert_ne!(drawn, want, "the change must move the answer for this check to mean anything");
+    assert_eq!(text(&root, "bar-size"), want);
+    assert_eq!(text(&root, "proposed-size"), want);
+}
+
+#[wasm_bindgen_test]
 async fn drawing_results_runs_no_solve_and_an_edit_solves_one_line_only() {
     use headroom::hydraulics::sizing::SOLVES;
     let (root, sheet) = mount_sheet(|s| {

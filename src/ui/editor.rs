@@ -4,7 +4,7 @@
 
 use leptos::prelude::*;
 
-use super::fields::{errors_except, errors_for, TextField};
+use super::fields::{errors_except, TextField};
 use super::state::{Sheet, Slot};
 use crate::hydraulics::demand::{self, Supply};
 use crate::hydraulics::field::Field;
@@ -12,9 +12,10 @@ use crate::hydraulics::fluid::Glycol;
 use crate::hydraulics::losses::Fitting;
 use crate::hydraulics::pipes::{Material, SERIES};
 use crate::sheet::edit::{gas_choices, FlowFrom, FluidKind, CUSTOM_BORE};
-use crate::sheet::file::{FluidFile, MethodName};
+use crate::sheet::file::{FluidFile, LineFile, MethodName};
 use crate::sheet::number::parse_count;
 use crate::sheet::presets::{Service, SERVICES};
+use crate::sheet::report::LineReport;
 use crate::sheet::units::{self, Dimension};
 
 /// The fields whose errors the editor shows beside an input (each fitting
@@ -57,6 +58,133 @@ pub const BESIDE_INPUTS: [Field; 35] = [
     Field::MaxDropPercent,
 ];
 
+/// The typed inputs of a line: what [`Mirror`] leaves out of the line's
+/// shape, and keeps a signal of text and of error for.
+const TYPED: [Field; 26] = [
+    Field::Name,
+    Field::Flow,
+    Field::LoadPower,
+    Field::LoadDeltaT,
+    Field::Diversity,
+    Field::ContinuousFlow,
+    Field::FluidTemperature,
+    Field::FluidPressure,
+    Field::FluidPercent,
+    Field::FluidDensity,
+    Field::FluidViscosity,
+    Field::FluidRelativeDensity,
+    Field::FluidMolarMass,
+    Field::FluidZ,
+    Field::PipeDiameter,
+    Field::Roughness,
+    Field::Length,
+    Field::Rise,
+    Field::ExtraK,
+    Field::EquivalentLength,
+    Field::MaxDropPerLength,
+    Field::MaxTotalDrop,
+    Field::MaxVelocity,
+    Field::MinVelocity,
+    Field::MaxDropPercent,
+    Field::HazenWilliamsC,
+];
+
+/// What the editor is drawn from, kept apart from the line's file so that
+/// a keystroke reaches only what it changes. Reading the file itself, every
+/// menu, row, branch and input of the editor (some forty readers) was
+/// marked and re-read on every keystroke in any input.
+///
+/// - `shape` is the file without the texts of its typed inputs ([`TYPED`]):
+///   the menus, rows and branches read it. It is set only when it changes,
+///   so typing into an input leaves them all alone.
+/// - Each typed input, and each field whose error the editor shows beside
+///   an input, has a signal of its text and one of its error, set only when
+///   that text or error changes.
+#[derive(Clone, Copy)]
+struct Mirror {
+    shape: RwSignal<LineFile>,
+    /// (field, text, error), one per field asked for, made in the editor's
+    /// own scope so that they outlive the input that first asked.
+    fields: StoredValue<Vec<Shown>>,
+    owner: StoredValue<Owner>,
+    file: RwSignal<LineFile>,
+    report: Memo<LineReport>,
+}
+
+/// A field of the editor: its text and its error.
+type Shown = (Field, RwSignal<String>, RwSignal<String>);
+
+/// The file without the texts of its typed inputs.
+fn shape_of(f: &LineFile) -> LineFile {
+    let mut s = f.clone();
+    for field in TYPED {
+        s.set_text(field, String::new());
+    }
+    s
+}
+
+/// The messages for one field of a result.
+fn message_for(r: &LineReport, field: Field) -> String {
+    match &r.outcome {
+        Err(errs) => {
+            errs.iter().filter(|e| e.field == field).map(|e| e.message.as_str()).collect::<Vec<_>>().join("; ")
+        }
+        Ok(_) => String::new(),
+    }
+}
+
+impl Mirror {
+    /// Made in the line editor's scope: follows the line's file and result.
+    fn new(line: &Slot) -> Mirror {
+        let (file, report) = (line.file, line.report);
+        let shape = RwSignal::new(file.with_untracked(shape_of));
+        let fields: StoredValue<Vec<Shown>> = StoredValue::new(Vec::new());
+        // One effect for both: a keystroke changes the file and the result
+        // together, and this runs once for the two.
+        Effect::new(move |_| {
+            file.with(|f| {
+                let s = shape_of(f);
+                if shape.with_untracked(|x| *x != s) {
+                    shape.set(s);
+                }
+                report.with(|r| {
+                    fields.with_value(|v| {
+                        for (field, text, error) in v {
+                            let t = f.text(*field);
+                            if text.with_untracked(|x| *x != t) {
+                                text.set(t);
+                            }
+                            let e = message_for(r, *field);
+                            if error.with_untracked(|x| *x != e) {
+                                error.set(e);
+                            }
+                        }
+                    })
+                })
+            })
+        });
+        let owner = StoredValue::new(Owner::current().unwrap_or_default());
+        Mirror { shape, fields, owner, file, report }
+    }
+
+    /// The text and error signals of `field`, made on first asking.
+    fn field(self, field: Field) -> (RwSignal<String>, RwSignal<String>) {
+        if let Some((_, t, e)) = self.fields.with_value(|v| v.iter().find(|(f, ..)| *f == field).copied()) {
+            return (t, e);
+        }
+        let text = self.file.with_untracked(|f| f.text(field));
+        let error = self.report.with_untracked(|r| message_for(r, field));
+        let made = self.owner.with_value(|o| o.with(|| (RwSignal::new(text), RwSignal::new(error))));
+        self.fields.update_value(|v| v.push((field, made.0, made.1)));
+        made
+    }
+
+    /// The error shown for `field`, as a signal.
+    fn error(self, field: Field) -> Signal<String> {
+        self.field(field).1.into()
+    }
+}
+
 /// One text input of the selected line, with its error beside it.
 #[component]
 fn LineText(
@@ -79,12 +207,11 @@ fn LineText(
     #[prop(default = "decimal")]
     inputmode: &'static str,
 ) -> impl IntoView {
-    let line = expect_context::<Slot>();
-    let file = line.file;
+    let file = expect_context::<Slot>().file;
+    let (text, error) = expect_context::<Mirror>().field(field);
     view! {
         <TextField label=label id=id unit=unit suffix=suffix placeholder=placeholder inputmode=inputmode
-            value=Signal::derive(move || file.with(|f| f.text(field)))
-            error=errors_for(line.report, field)
+            value=text error=error
             on_input=move |v| file.update(|f| f.set_text(field, v))/>
     }
 }
@@ -97,6 +224,7 @@ pub fn LineEditor(
 ) -> impl IntoView {
     let file = line.file;
     let report = line.report;
+    provide_context(Mirror::new(&line));
     provide_context(line);
     let apply_service = move |id: String| {
         if let Some(s) = Service::by_id(&id) {
@@ -130,24 +258,27 @@ pub fn LineEditor(
 /// Flow, and the fluid with its state.
 #[component]
 fn FlowAndFluid() -> impl IntoView {
+    let mirror = expect_context::<Mirror>();
+    let shape = mirror.shape;
     let line = expect_context::<Slot>();
     let file = line.file;
     // Memos, not closures: a keystroke in the flow must not redraw the
     // fluid's fields (it did, every one of them, on every keystroke).
-    let kind = Memo::new(move |_| file.with(|f| f.fluid_kind()));
+    let kind = Memo::new(move |_| shape.with(|f| f.fluid_kind()));
     let kind = move || kind.get();
-    let from = Memo::new(move |_| file.with(|f| f.flow_from()));
+    let from = Memo::new(move |_| shape.with(|f| f.flow_from()));
     let sheet = expect_context::<Sheet>();
     // Every line's name, as a memo: a keystroke that changes no name leaves
     // the "fed from" list as it is (on a 200-line sheet, 200 options).
     let all_names = Memo::new(move |_| {
         sheet.lines.with(|v| v.iter().map(|s| s.joint.with(|j| j.name.trim().to_owned())).collect::<Vec<_>>())
     });
-    let own_name = Memo::new(move |_| file.with(|f| f.name.trim().to_owned()));
+    let name = mirror.field(Field::Name).0;
+    let own_name = Memo::new(move |_| name.with(|n| n.trim().to_owned()));
     let long = sheet.long;
-    let fed_from = Memo::new(move |_| file.with(|f| f.fed_from.clone()));
+    let fed_from = Memo::new(move |_| shape.with(|f| f.fed_from.clone()));
     let is_glycol =
-        move |g: Glycol| file.with(|f| matches!(&f.fluid, FluidFile::Glycol { glycol, .. } if *glycol == g));
+        move |g: Glycol| shape.with(|f| matches!(&f.fluid, FluidFile::Glycol { glycol, .. } if *glycol == g));
     view! {
         <fieldset>
             <legend>"Flow and fluid"</legend>
@@ -185,7 +316,7 @@ fn FlowAndFluid() -> impl IntoView {
                     }}
                 </select>
                 }.into_any() }}
-                <span class="field-error" data-testid="fed-from-error" aria-live="polite">{move || errors_for(line.report, Field::FedFrom).get()}{move || line.report.with(|r| r.outcome.as_ref().ok().map(|o| o.sizing.warnings.iter().filter_map(|w| w.strip_prefix("fed from: ")).collect::<Vec<_>>().join("; ")).unwrap_or_default())}</span>
+                <span class="field-error" data-testid="fed-from-error" aria-live="polite">{move || mirror.error(Field::FedFrom).get()}{move || line.report.with(|r| r.outcome.as_ref().ok().map(|o| o.sizing.warnings.iter().filter_map(|w| w.strip_prefix("fed from: ")).collect::<Vec<_>>().join("; ")).unwrap_or_default())}</span>
             </div>
             <div class="field">
                 <label for="flow-from">"Flow from"</label>
@@ -213,7 +344,7 @@ fn FlowAndFluid() -> impl IntoView {
                     on:change=move |ev| { if let Some(k) = FluidKind::from_id(&event_target_value(&ev)) { file.update(|f| f.set_fluid_kind(k)) } }>
                     {FluidKind::ALL.into_iter().map(|k| view! { <option value=k.id() selected=move || kind() == k>{k.label()}</option> }).collect_view()}
                 </select>
-                <span class="field-error" data-testid="fluid-error" aria-live="polite">{move || errors_for(line.report, Field::Fluid).get()}</span>
+                <span class="field-error" data-testid="fluid-error" aria-live="polite">{move || mirror.error(Field::Fluid).get()}</span>
             </div>
             {move || match kind() {
                 FluidKind::Water => view! {
@@ -250,9 +381,11 @@ fn FlowAndFluid() -> impl IntoView {
 /// natural or custom gas needs.
 #[component]
 fn GasFields() -> impl IntoView {
+    let mirror = expect_context::<Mirror>();
+    let shape = mirror.shape;
     let line = expect_context::<Slot>();
     let file = line.file;
-    let gas = Memo::new(move |_| file.with(|f| f.gas_choice().unwrap_or("air").to_owned()));
+    let gas = Memo::new(move |_| shape.with(|f| f.gas_choice().unwrap_or("air").to_owned()));
     view! {
         <div class="field">
             <label for="gas-kind">"Gas"</label>
@@ -280,15 +413,17 @@ fn GasFields() -> impl IntoView {
 /// The pipe: a standard series or a custom bore, and its roughness.
 #[component]
 fn PipeFields() -> impl IntoView {
+    let mirror = expect_context::<Mirror>();
+    let shape = mirror.shape;
     let sheet = expect_context::<Sheet>();
     let line = expect_context::<Slot>();
     let file = line.file;
-    let choice = Memo::new(move |_| file.with(|f| f.series_choice().to_owned()));
+    let choice = Memo::new(move |_| shape.with(|f| f.series_choice().to_owned()));
     let choice = move || choice.get();
-    let smallest = Memo::new(move |_| file.with(|f| f.smallest_size.clone()));
-    let can_age = Memo::new(move |_| file.with(|f| f.can_age()));
+    let smallest = Memo::new(move |_| shape.with(|f| f.smallest_size.clone()));
+    let can_age = Memo::new(move |_| shape.with(|f| f.can_age()));
     let roughness_hint = Signal::derive(move || {
-        file.with(|f| {
+        shape.with(|f| {
             f.default_roughness_mm()
                 .map(|(mm, m)| {
                     let unit = sheet.resolved.get().roughness;
@@ -310,7 +445,7 @@ fn PipeFields() -> impl IntoView {
                     }).collect_view()}
                     <option value=CUSTOM_BORE selected=move || choice() == CUSTOM_BORE>"Custom bore (enter the inside diameter)"</option>
                 </select>
-                <span class="field-error" aria-live="polite">{move || errors_for(line.report, Field::PipeSeries).get()}</span>
+                <span class="field-error" aria-live="polite">{move || mirror.error(Field::PipeSeries).get()}</span>
             </div>
             {move || crate::hydraulics::pipes::series(&choice()).map(|s| view! {
                 <div class="field">
@@ -323,7 +458,7 @@ fn PipeFields() -> impl IntoView {
                             view! { <option value=n selected=move || smallest.with(|m| m.as_deref() == Some(n))>{s.designation(n)}</option> }
                         }).collect_view()}
                     </select>
-                    <span class="field-error" aria-live="polite">{move || errors_for(line.report, Field::SmallestSize).get()}</span>
+                    <span class="field-error" aria-live="polite">{move || mirror.error(Field::SmallestSize).get()}</span>
                 </div>
             })}
             {move || (choice() == CUSTOM_BORE).then(|| view! {
@@ -333,7 +468,7 @@ fn PipeFields() -> impl IntoView {
                     <select id="pipe-material" data-testid="pipe-material"
                         on:change=move |ev| { let v = event_target_value(&ev); file.update(|f| f.set_material(&v)) }>
                         {Material::ALL.into_iter().map(|m| {
-                            view! { <option value=m.id() selected=move || file.with(|f| f.material() == Some(m))>{m.name()}</option> }
+                            view! { <option value=m.id() selected=move || shape.with(|f| f.material() == Some(m))>{m.name()}</option> }
                         }).collect_view()}
                     </select>
                 </div>
@@ -341,7 +476,7 @@ fn PipeFields() -> impl IntoView {
             <LineText field=Field::Roughness label="Roughness ε" id="roughness" unit=Dimension::Roughness placeholder=roughness_hint/>
             {move || can_age.get().then(|| view! {
                 <label class="check">
-                    <input type="checkbox" data-testid="aged" prop:checked=move || file.with(|f| f.aged)
+                    <input type="checkbox" data-testid="aged" prop:checked=move || shape.with(|f| f.aged)
                         on:change=move |ev| { let on = event_target_checked(&ev); file.update(|f| f.aged = on) }/>
                     "Aged pipe (published aged roughness)"
                 </label>
@@ -369,12 +504,14 @@ fn RunFields() -> impl IntoView {
 /// The design limits.
 #[component]
 fn LimitFields() -> impl IntoView {
+    let mirror = expect_context::<Mirror>();
+    let shape = mirror.shape;
     let line = expect_context::<Slot>();
-    let compressible = Memo::new(move |_| line.file.with(|f| f.fluid.is_compressible()));
+    let compressible = Memo::new(move |_| shape.with(|f| f.fluid.is_compressible()));
     view! {
         <fieldset>
             <legend>"Limits"</legend>
-            <span class="field-error" data-testid="limits-error" aria-live="polite">{move || errors_for(line.report, Field::Limits).get()}</span>
+            <span class="field-error" data-testid="limits-error" aria-live="polite">{move || mirror.error(Field::Limits).get()}</span>
             <LineText field=Field::MaxDropPerLength label="Largest friction drop per length" id="max-drop-per-length" unit=Dimension::DropPerLength/>
             <LineText field=Field::MaxTotalDrop label="Largest total drop" id="max-total-drop" unit=Dimension::Pressure placeholder="none"/>
             <LineText field=Field::MaxVelocity label="Largest velocity" id="max-velocity" unit=Dimension::Velocity placeholder="none"/>
@@ -386,14 +523,14 @@ fn LimitFields() -> impl IntoView {
                 <label for="velocity-by-size">"Largest velocity by size"</label>
                 <select id="velocity-by-size" data-testid="velocity-by-size"
                     on:change=move |ev| { let v = event_target_value(&ev); line.file.update(|f| f.limits.velocity_by_size = (!v.is_empty()).then_some(v)) }>
-                    <option value="" selected=move || line.file.with(|f| f.limits.velocity_by_size.is_none())>"None"</option>
+                    <option value="" selected=move || shape.with(|f| f.limits.velocity_by_size.is_none())>"None"</option>
                     {crate::hydraulics::velocity::RULES.iter().map(|r| {
                         let id = r.id;
-                        view! { <option value=id title=r.source selected=move || line.file.with(|f| f.limits.velocity_by_size.as_deref() == Some(id))>{r.label}" (common practice)"</option> }
+                        view! { <option value=id title=r.source selected=move || shape.with(|f| f.limits.velocity_by_size.as_deref() == Some(id))>{r.label}" (common practice)"</option> }
                     }).collect_view()}
                 </select>
-                <span class="hint">{move || line.file.with(|f| f.limits.velocity_by_size.as_deref().and_then(crate::hydraulics::velocity::rule).map(|r| r.source).unwrap_or(""))}</span>
-                <span class="field-error" aria-live="polite">{move || errors_for(line.report, Field::VelocityBySize).get()}</span>
+                <span class="hint">{move || shape.with(|f| f.limits.velocity_by_size.as_deref().and_then(crate::hydraulics::velocity::rule).map(|r| r.source).unwrap_or(""))}</span>
+                <span class="field-error" aria-live="polite">{move || mirror.error(Field::VelocityBySize).get()}</span>
             </div>
         </fieldset>
     }
@@ -402,11 +539,13 @@ fn LimitFields() -> impl IntoView {
 /// The friction method.
 #[component]
 fn MethodFields() -> impl IntoView {
+    let mirror = expect_context::<Mirror>();
+    let shape = mirror.shape;
     let file = expect_context::<Slot>().file;
-    let method = move || file.with(|f| f.method);
+    let method = move || shape.with(|f| f.method);
     let is_hw = move || method() == MethodName::HazenWilliams;
     let hw_hint = Signal::derive(move || {
-        file.with(|f| {
+        shape.with(|f| {
             f.material().map(|m| format!("default {} for {}", m.hazen_williams_c().0, m.name())).unwrap_or_default()
         })
     });
@@ -431,18 +570,20 @@ fn MethodFields() -> impl IntoView {
 /// a rated flow, a butterfly valve, a reducer.
 #[component]
 fn ComponentList() -> impl IntoView {
+    let mirror = expect_context::<Mirror>();
+    let shape = mirror.shape;
     use crate::sheet::file::ComponentKind;
     let line = expect_context::<Slot>();
     let file = line.file;
     let rows = move || {
-        file.with(|f| {
+        shape.with(|f| {
             let n = f.components.len();
             f.components.iter().map(|c| c.kind).enumerate().map(|(i, k)| (n, i, k)).collect::<Vec<_>>()
         })
     };
     let text = move |i: usize, which: &'static str, label: &'static str, hint: &'static str| {
         let value = move || {
-            file.with(|f| {
+            shape.with(|f| {
                 f.components
                     .get(i)
                     .map(|c| match which {
@@ -484,7 +625,7 @@ fn ComponentList() -> impl IntoView {
                         on:click=move |_| file.update(|f| f.remove_component(i))>"✕"</button>
                 </div>
             }/>
-            <span class="field-error" data-testid="components-error" aria-live="polite">{move || errors_for(line.report, Field::Components).get()}</span>
+            <span class="field-error" data-testid="components-error" aria-live="polite">{move || mirror.error(Field::Components).get()}</span>
             <button type="button" class="quiet" data-testid="add-component" on:click=move |_| file.update(|f| f.add_component())>
                 "+ Add a valve or equipment"
             </button>
@@ -496,15 +637,17 @@ fn ComponentList() -> impl IntoView {
 /// supply they are read on, and a continuous flow.
 #[component]
 fn FixtureFields() -> impl IntoView {
+    let mirror = expect_context::<Mirror>();
+    let shape = mirror.shape;
     let sheet = expect_context::<Sheet>();
     let line = expect_context::<Slot>();
     let file = line.file;
     let method = Memo::new(move |_| sheet.basis.with(|b| b.demand));
     // Memos, so a keystroke in a count does not redraw every row's options.
-    let supply = Memo::new(move |_| file.with(|f| f.fixtures.as_ref().map(|x| x.supply).unwrap_or_default()));
+    let supply = Memo::new(move |_| shape.with(|f| f.fixtures.as_ref().map(|x| x.supply).unwrap_or_default()));
     let supply = move || supply.get();
     let rows = move || {
-        file.with(|f| {
+        shape.with(|f| {
             let items = f.fixtures.as_ref().map(|x| x.items.clone()).unwrap_or_default();
             let n = items.len();
             items.into_iter().enumerate().map(|(i, r)| (n, i, r)).collect::<Vec<_>>()
@@ -557,7 +700,7 @@ fn FixtureFields() -> impl IntoView {
                 on:click=move |_| { let k = method.get_untracked().kinds()[0].id; file.update(|f| f.add_fixture(k)) }>
                 "+ Add a fixture"
             </button>
-            <span class="field-error" data-testid="fixtures-error" aria-live="polite">{move || errors_for(line.report, Field::Fixtures).get()}{move || errors_for(line.report, Field::FixtureCount).get()}</span>
+            <span class="field-error" data-testid="fixtures-error" aria-live="polite">{move || mirror.error(Field::Fixtures).get()}{move || mirror.error(Field::FixtureCount).get()}</span>
         </div>
         <LineText field=Field::ContinuousFlow label="Continuous flow added (circulation, irrigation)" id="fixture-continuous" unit=Dimension::Flow placeholder="none"/>
         <p class="derived" data-testid="derived-flow" aria-live="polite">{move || line.report.with(|r| match &r.outcome {
@@ -570,11 +713,13 @@ fn FixtureFields() -> impl IntoView {
 /// Counted fittings: a kind and a count per row.
 #[component]
 fn FittingList() -> impl IntoView {
+    let mirror = expect_context::<Mirror>();
+    let shape = mirror.shape;
     let file = expect_context::<Slot>().file;
     // Keyed by list length, position and kind (not count), so typing a
     // count keeps focus and removing a row re-draws the rows after it.
     let rows = move || {
-        file.with(|f| {
+        shape.with(|f| {
             let n = f.fittings.len();
             f.fittings.iter().cloned().enumerate().map(|(i, fc)| (n, i, fc)).collect::<Vec<_>>()
         })
@@ -597,7 +742,7 @@ fn FittingList() -> impl IntoView {
                             data-testid=format!("fitting-{i}-count") prop:value=fc.count.clone()
                             on:input=move |ev| { let n = event_target_value(&ev); file.update(|f| f.set_fitting_count(i, n)) }/>
                         <span class="field-error" data-testid=format!("fitting-{i}-count-error") aria-live="polite">
-                            {move || file.with(|f| f.fittings.get(i).and_then(|r| parse_count(&r.count).err()).map(|e| e.to_string()).unwrap_or_default())}
+                            {move || shape.with(|f| f.fittings.get(i).and_then(|r| parse_count(&r.count).err()).map(|e| e.to_string()).unwrap_or_default())}
                         </span>
                         <button type="button" class="quiet" aria-label="remove this fitting"
                             on:click=move |_| file.update(|f| f.remove_fitting(i))>"✕"</button>

@@ -5,24 +5,8 @@ use leptos::prelude::*;
 
 use super::state::Sheet;
 use crate::hydraulics::field::Field;
-use crate::sheet::file::FieldError;
 use crate::sheet::report::LineReport;
 use crate::sheet::units::{self, Dimension};
-
-/// The messages for one field (and its sub-fields) of a line's result.
-pub fn errors_for(report: Memo<LineReport>, field: Field) -> Signal<String> {
-    Signal::derive(move || {
-        report.with(|r| match &r.outcome {
-            Err(errs) => errs
-                .iter()
-                .filter(|e: &&FieldError| e.field == field)
-                .map(|e| e.message.clone())
-                .collect::<Vec<_>>()
-                .join("; "),
-            Ok(_) => String::new(),
-        })
-    })
-}
 
 /// The messages of the fields not in `shown` (errors that belong to no
 /// input the editor has: a fitting kind not known, the line as a whole),

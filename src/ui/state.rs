@@ -131,13 +131,36 @@ pub fn after_redraw(f: impl FnOnce() + 'static) {
     after(0, f);
 }
 
-/// Runs `f` in a task of its own after the next frame has been painted
-/// (a task queued from the frame callback runs after that frame's paint).
-/// A hidden page paints no frames: `f` waits until it is shown.
+/// Runs `f` after the next frame has been painted (in a task queued from
+/// the frame callback, which runs after that frame's paint). A hidden page
+/// paints no frames: `f` waits until it is shown.
+///
+/// Everything asked for before a frame runs in one task after it, in the
+/// order asked, from one frame callback: a keystroke asks three or four
+/// times (the answer panel, the list's row, the system box, the save), and
+/// a frame callback and a task of its own for each cost script before the
+/// answer's frame.
 pub fn after_paint(f: impl FnOnce() + 'static) {
+    let first = AFTER_PAINT.with_borrow_mut(|q| {
+        q.push(Box::new(f));
+        q.len() == 1
+    });
+    if !first {
+        return;
+    }
     let Some(w) = web_sys::window() else { return };
-    let f = wasm_bindgen::closure::Closure::once_into_js(move || after(0, f));
-    let _ = w.request_animation_frame(wasm_bindgen::JsCast::unchecked_ref(&f));
+    let run = wasm_bindgen::closure::Closure::once_into_js(|| {
+        // Taken in the frame callback: what is asked for from here on
+        // waits for the frame after this one.
+        let ready = AFTER_PAINT.with_borrow_mut(std::mem::take);
+        after(0, move || ready.into_iter().for_each(|f| f()));
+    });
+    let _ = w.request_animation_frame(wasm_bindgen::JsCast::unchecked_ref(&run));
+}
+
+thread_local! {
+    /// What waits for the next frame to be painted ([`after_paint`]).
+    static AFTER_PAINT: std::cell::RefCell<Vec<Box<dyn FnOnce()>>> = const { std::cell::RefCell::new(Vec::new()) };
 }
 
 /// Calls `then` in a task after the next frame has painted whenever what
@@ -145,9 +168,15 @@ pub fn after_paint(f: impl FnOnce() + 'static) {
 /// (not for the first reading): for what may follow an edit a frame
 /// behind the answer. `then` reads with `try_`: the frame may come after
 /// its view is gone.
+///
+/// The first reading is made here, while the views around it are drawn
+/// (a render effect's first run is immediate), so a change made after they
+/// were drawn and before the page's effects first run is still followed:
+/// an effect's first run comes a task later, and would take such a change
+/// for the state the views were drawn from.
 pub fn a_frame_behind(track: impl Fn() + 'static, then: impl Fn() + Copy + 'static) {
     let pending = StoredValue::new(false);
-    Effect::new(move |ran: Option<()>| {
+    let effect = RenderEffect::new(move |ran: Option<()>| {
         track();
         if ran.is_none() || pending.get_value() {
             return;
@@ -158,6 +187,8 @@ pub fn a_frame_behind(track: impl Fn() + 'static, then: impl Fn() + Copy + 'stat
             then();
         });
     });
+    // Kept for as long as the current scope: dropping it stops it.
+    StoredValue::new_local(effect);
 }
 
 /// Keeps `near` saying whether `el` is on the screen or within `margin`
