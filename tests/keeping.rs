@@ -15,7 +15,7 @@ use web_sys::{HtmlElement, HtmlInputElement};
 
 mod web;
 
-use web::{all_text, click, find, observe_as_near, type_into};
+use web::{all_text, click, find, next_frame, observe_as_near, type_into};
 
 wasm_bindgen_test_configure!(run_in_browser);
 
@@ -79,8 +79,9 @@ fn mount_app() -> HtmlElement {
     host
 }
 
-/// Lets the page finish reacting, including the save that runs in a task of
-/// its own right after a change.
+/// Lets the page finish reacting, including the save and the answer, which
+/// follow a change after the next frame has painted (`state::after_paint`):
+/// tasks alone may all run before that frame.
 async fn settle() {
     for _ in 0..3 {
         leptos::task::tick().await;
@@ -89,6 +90,8 @@ async fn settle() {
         });
         wasm_bindgen_futures::JsFuture::from(p).await.unwrap();
     }
+    next_frame().await;
+    next_frame().await;
 }
 
 #[wasm_bindgen_test]
