@@ -1088,21 +1088,19 @@ async fn the_answer_stays_in_view_while_the_inputs_are_edited() {
             .unwrap();
         h.type_into("length", "48").await;
         // Polled, not slept on: the panel follows the bar a frame behind,
-        // and a busy machine's frame can be late.
-        until(&h, &in_view("answer-bar"), "true").await;
-        until(
-            &h,
-            "const t = id => document.querySelector(`[data-testid=${id}]`).textContent; \
-             return t('bar-size') === t('proposed-size') ? 'same' : t('bar-size') + ' / ' + t('proposed-size')",
-            "same",
-        )
-        .await;
+        // and a busy machine's frame can be late. The comment names the
+        // screen in a failure's message.
+        let at = format!("/* at {w}×{hgt} */ ");
+        until(&h, &(at.clone() + &in_view("answer-bar")), "true").await;
+        let same = "const t = id => document.querySelector(`[data-testid=${id}]`).textContent; \
+                    return t('bar-size') === t('proposed-size') ? 'same' : t('bar-size') + ' / ' + t('proposed-size')";
+        until(&h, &(at.clone() + same), "same").await;
         if w >= 600 {
             assert!(h.text("bar-figures").await.contains("set by"), "{}", h.text("bar-figures").await);
         }
         // One tap away: the bar's link brings the full answer into view.
         h.click("bar-jump").await;
-        until(&h, &in_view("proposed-size"), "true").await;
+        until(&h, &(at + &in_view("proposed-size")), "true").await;
     }
     h.finish().await;
 }
