@@ -337,6 +337,19 @@ async fn a_sheet_of_two_thousand_lines_opens_quickly_and_its_list_scrolls() {
         h.client.set_window_size(w, hgt).await.unwrap();
         h.screenshot(name).await;
         assert_eq!(rows_cut_off(&h).await, Vec::<String>::new(), "{w}×{hgt}");
+        // Wherever the box is scrolled — and after the window grows taller,
+        // as from 1024×768 to 768×1024 — the rows drawn cover it edge to
+        // edge (the rows not drawn are padding: blank room if shown), and
+        // only the rows near the view are drawn: those the box shows, six
+        // above (up to eight: the first row drawn moves in steps of three)
+        // and six below.
+        for at in [0.0, 0.13, 0.5, 0.77, 1.0] {
+            let (drawn, fit) = scroll_list_until_covered(&h, at, &format!("{w}×{hgt}")).await;
+            assert!(
+                drawn as f64 <= fit.ceil() + 16.0,
+                "{w}×{hgt} at {at}: {drawn} rows drawn for a box of {fit:.1} rows"
+            );
+        }
     }
     println!(
         "2000-line sheet file, release build: imported and first results painted in {shown:.0} ms; choosing a row: median {:.1} ms, worst {:.1} ms ({} clicks)",
@@ -345,6 +358,44 @@ async fn a_sheet_of_two_thousand_lines_opens_quickly_and_its_list_scrolls() {
         clicks.len()
     );
     h.finish().await;
+}
+
+/// Scrolls the long list's box to `at` (0 the top, 1 the end) and waits
+/// until the rows drawn cover the box from edge to edge; returns how many
+/// rows are drawn and how many rows the box's height holds.
+async fn scroll_list_until_covered(h: &Harness, at: f64, screen: &str) -> (usize, f64) {
+    let script = format!(
+        r#"/* {screen}, scrolled to {at} */
+           const box = document.querySelector('.roster-box.windowed');
+           if (!window.scrolledTo || window.scrolledTo !== '{screen} {at}') {{
+             box.scrollTop = {at} * (box.scrollHeight - box.clientHeight);
+             window.scrolledTo = '{screen} {at}';
+           }}
+           const b = box.getBoundingClientRect();
+           const rows = [...box.querySelectorAll('.roster-row')];
+           const top = rows[0].getBoundingClientRect().top;
+           const bottom = rows[rows.length - 1].getBoundingClientRect().bottom;
+           const atEnd = box.scrollTop + box.clientHeight >= box.scrollHeight - 2;
+           const covered = top <= b.top + 1 && (bottom >= b.bottom - 1 || atEnd);
+           const pitch = rows[1].getBoundingClientRect().top - rows[0].getBoundingClientRect().top;
+           return [covered, rows.length, box.clientHeight / pitch, Math.round(top - b.top), Math.round(bottom - b.bottom)];"#
+    );
+    let deadline = std::time::Instant::now() + std::time::Duration::from_secs(10);
+    loop {
+        let v = h.client.execute(&script, vec![]).await.unwrap();
+        let v = v.as_array().unwrap();
+        if v[0].as_bool() == Some(true) {
+            return (v[1].as_u64().unwrap() as usize, v[2].as_f64().unwrap());
+        }
+        assert!(
+            std::time::Instant::now() < deadline,
+            "{screen} at {at}: the rows drawn leave the box partly blank (first row's top {} px from the box's, last row's bottom {} px from its bottom; {} rows drawn)",
+            v[3],
+            v[4],
+            v[1]
+        );
+        tokio::time::sleep(std::time::Duration::from_millis(100)).await;
+    }
 }
 
 /// Types 26 keys into the selected line's flow as a person would (a digit,

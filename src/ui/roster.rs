@@ -25,9 +25,13 @@ pub fn Roster() -> impl IntoView {
     // position) and the measured distance from one row to the next.
     let first = RwSignal::new(0usize);
     let pitch = RwSignal::new(DEFAULT_PITCH_PX);
+    // The height of the list's box: until it is measured, the stylesheet's
+    // most (60 % of the window's height).
+    let seen_px = RwSignal::new(window().inner_height().ok().and_then(|h| h.as_f64()).map_or(900.0, |h| 0.6 * h));
     let window = Memo::new(move |_| {
         let shown = sheet.lines.with(|v| v.len()) - fold.hidden.with(Vec::len);
-        Window::of(long.get(), shown, first.get(), pitch.get())
+        let rows = Window::rows_for(seen_px.get(), pitch.get());
+        Window::of(long.get(), shown, first.get(), rows, pitch.get())
     });
     // `try_`: also run from a timer, which may come after this list was
     // replaced by another worksheet's.
@@ -39,12 +43,24 @@ pub fn Roster() -> impl IntoView {
                 pitch.try_set(p);
             }
         }
+        let h = f64::from(el.client_height());
+        if h > 0.0 && seen_px.try_get_untracked().is_some_and(|old| (h - old).abs() > 0.5) {
+            seen_px.try_set(h);
+        }
         let Some(p) = pitch.try_get_untracked() else { return };
         let k = Window::first_for(f64::from(el.scroll_top()), p);
         if first.try_get_untracked().is_some_and(|f| f != k) {
             first.try_set(k);
         }
     };
+    // A window made taller (a tablet turned) shows more of the box: the
+    // rows drawn follow its height.
+    let on_resize = window_event_listener_untyped("resize", move |_| {
+        if long.try_get_untracked() == Some(true) {
+            scrolled();
+        }
+    });
+    on_cleanup(move || on_resize.remove());
     // The box and the list follow the window: one effect writing the DOM
     // (each reactive attribute would cost a kilobyte of module).
     Effect::new(move |_| {
@@ -215,9 +231,11 @@ pub fn Roster() -> impl IntoView {
 /// the rows near its scroll position, so a sheet of thousands of lines
 /// opens and answers a click as fast as a short one.
 pub const WINDOW_FROM: usize = 80;
-/// Rows drawn at once in a long list: more than a tall screen's box holds.
+/// Rows drawn at most at once in a long list (a box taller than a tall
+/// screen's would show some of its room blank).
 const WINDOW_ROWS: usize = 36;
-/// Rows drawn above the first in view, so a short scroll draws nothing.
+/// Rows drawn above the first in view and below the last, so a short
+/// scroll draws nothing.
 const OVERSCAN: usize = 6;
 /// A row's height and gap before one has been measured (the stylesheet's
 /// 10.5rem + 0.4rem at 16 px; 8rem at 640-999 px wide, until measured).
@@ -235,12 +253,21 @@ struct Window {
 }
 
 impl Window {
-    fn of(long: bool, shown: usize, first: usize, pitch: f64) -> Window {
+    fn of(long: bool, shown: usize, first: usize, rows: usize, pitch: f64) -> Window {
         if !long {
             return Window { windowed: false, shown, start: 0, end: shown, pitch };
         }
-        let start = first.min(shown.saturating_sub(WINDOW_ROWS));
-        Window { windowed: true, shown, start, end: (start + WINDOW_ROWS).min(shown), pitch }
+        let start = first.min(shown.saturating_sub(rows));
+        Window { windowed: true, shown, start, end: (start + rows).min(shown), pitch }
+    }
+
+    /// How many rows to draw for a box `seen` px tall: the rows it shows
+    /// (one more for a row cut at each edge), the overscan above — up to
+    /// `OVERSCAN` + a step more, as `first_for` steps — and the overscan
+    /// below; never more than `WINDOW_ROWS`.
+    fn rows_for(seen: f64, pitch: f64) -> usize {
+        let in_view = (seen / pitch.max(1.0)).ceil().max(1.0) as usize + 1;
+        (in_view + 2 * OVERSCAN + OVERSCAN / 2).min(WINDOW_ROWS)
     }
 
     /// The first row to draw for a box scrolled `top` px: a few rows above
