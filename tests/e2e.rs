@@ -311,6 +311,31 @@ async fn a_sheet_of_two_thousand_lines_opens_quickly_and_its_list_scrolls() {
         designation(&o.line, o.sizing.candidates[o.shown.expect("a size")].nominal)
     };
     assert!(h.text("proposed-size").await.contains(&expected), "{} vs {expected}", h.text("proposed-size").await);
+    // A tap on a row the box shows whole leaves the list where it is.
+    let tapped = h
+        .client
+        .execute_async(
+            r#"const done = arguments[arguments.length - 1];
+               const box = document.querySelector('.roster-box');
+               box.scrollIntoView({ block: 'center' });
+               const frames = then => requestAnimationFrame(() => setTimeout(() => requestAnimationFrame(() => setTimeout(then, 200)), 0));
+               frames(() => {
+                 const b = box.getBoundingClientRect();
+                 const row = [...box.querySelectorAll('[data-testid=roster-row]')]
+                   .filter(r => { const q = r.getBoundingClientRect(); return q.top >= b.top && q.bottom <= b.bottom; })
+                   .find(r => !r.classList.contains('selected'));
+                 if (!row) { done('no unselected row shown whole in the box'); return; }
+                 const before = box.scrollTop;
+                 row.querySelector('.pick').click();
+                 frames(() => done([before, box.scrollTop, row.querySelector('[data-testid=row-name]').textContent]));
+               });"#,
+            vec![],
+        )
+        .await
+        .unwrap();
+    assert!(tapped.is_array(), "{tapped}");
+    assert_eq!(tapped[0], tapped[1], "the list moved when {} was tapped", tapped[2]);
+    assert_eq!(h.value("line-name").await, tapped[2].as_str().unwrap());
     // In a long sheet "fed from" is a typed name with suggestions, not a
     // menu of two thousand names.
     let tag =
@@ -329,6 +354,44 @@ async fn a_sheet_of_two_thousand_lines_opens_quickly_and_its_list_scrolls() {
     h.type_into("fed-from", "Riser 7\n").await;
     until(&h, "const r = document.querySelector('.roster-row.selected'); return r ? r.dataset.depth : 'none'", "1")
         .await;
+    // A copy of the lowest row the box shows goes in below it, out of
+    // view: the list scrolls to show the copy, which is now selected.
+    h.client
+        .execute(
+            r#"const box = document.querySelector('.roster-box');
+               box.scrollIntoView({ block: 'center' });
+               box.scrollTop = 500 * (box.scrollHeight / 2001);"#,
+            vec![],
+        )
+        .await
+        .unwrap();
+    tokio::time::sleep(std::time::Duration::from_millis(300)).await;
+    let copied = h
+        .client
+        .execute(
+            r#"const box = document.querySelector('.roster-box');
+               const b = box.getBoundingClientRect();
+               const whole = [...box.querySelectorAll('[data-testid=roster-row]')]
+                 .filter(r => { const q = r.getBoundingClientRect(); return q.top >= b.top && q.bottom <= b.bottom; });
+               const row = whole[whole.length - 1];
+               row.querySelector('[data-testid=row-duplicate]').click();
+               return row.querySelector('[data-testid=row-name]').textContent;"#,
+            vec![],
+        )
+        .await
+        .unwrap();
+    until(
+        &h,
+        r#"const box = document.querySelector('.roster-box');
+           const b = box.getBoundingClientRect();
+           const r = box.querySelector('.roster-row.selected');
+           if (!r) return 'none selected';
+           const q = r.getBoundingClientRect();
+           return q.top >= b.top - 1 && q.bottom <= b.bottom + 1 ? 'shown' : `${Math.round(q.top - b.top)} px from the box's top`;"#,
+        "shown",
+    )
+    .await;
+    assert_eq!(h.value("line-name").await, format!("{} (copy)", copied.as_str().unwrap()), "the copy is selected");
     let page_width = h.client.execute("return document.documentElement.scrollWidth", vec![]).await.unwrap();
     assert!(page_width.as_f64().unwrap() <= 1024.0);
     for (name, w, hgt) in
@@ -368,6 +431,7 @@ async fn scroll_list_until_covered(h: &Harness, at: f64, screen: &str) -> (usize
         r#"/* {screen}, scrolled to {at} */
            const box = document.querySelector('.roster-box.windowed');
            if (!window.scrolledTo || window.scrolledTo !== '{screen} {at}') {{
+             box.scrollIntoView({{ block: 'center' }});
              box.scrollTop = {at} * (box.scrollHeight - box.clientHeight);
              window.scrolledTo = '{screen} {at}';
            }}

@@ -107,7 +107,7 @@ pub fn Roster() -> impl IntoView {
         }
     });
     // A line selected from elsewhere (added, copied, opened) is scrolled to
-    // when the window does not hold it.
+    // when the box does not show it.
     Effect::new(move |_| {
         let Some(id) = sheet.selected.get() else { return };
         let w = window.get_untracked();
@@ -115,14 +115,16 @@ pub fn Roster() -> impl IntoView {
             return;
         }
         let Some(k) = shown_lines(sheet, fold).iter().position(|s| s.id == id) else { return };
-        // The rows in view are those after the overscan at the top and
-        // well before the window's end; a row chosen there stays put.
-        let above_view = w.start > 0 && k < w.start + OVERSCAN;
-        let below_view = k + OVERSCAN >= w.end && w.end < w.shown;
-        if above_view || below_view || k >= w.end {
-            if let Some(el) = list.get_untracked() {
-                el.set_scroll_top((k.saturating_sub(1) as f64 * w.pitch) as i32);
-            }
+        let Some(el) = list.get_untracked() else { return };
+        // A row chosen where the box shows it (its top, and all but a tenth
+        // of its pitch, the gap below it included) stays put: a tap on a
+        // row never moves the list. Any other is scrolled to.
+        let (top, seen) = (f64::from(el.scroll_top()), f64::from(el.client_height()));
+        let row_top = k as f64 * w.pitch;
+        let in_view =
+            (w.start..w.end).contains(&k) && row_top >= top - 1.0 && row_top + 0.9 * w.pitch <= top + seen + 1.0;
+        if !in_view {
+            el.set_scroll_top((k.saturating_sub(1) as f64 * w.pitch) as i32);
             first.set(k.saturating_sub(1 + OVERSCAN));
             // Once drawn, the row itself is brought into view (above the
             // answer bar: the page's scroll padding).
