@@ -28,6 +28,9 @@ pub fn Roster() -> impl IntoView {
     // The height of the list's box: until it is measured, the stylesheet's
     // most (60 % of the window's height).
     let seen_px = RwSignal::new(window().inner_height().ok().and_then(|h| h.as_f64()).map_or(900.0, |h| 0.6 * h));
+    // Where the box was last seen scrolled to (read when it scrolls, so
+    // choosing a line never makes the browser lay the page out early).
+    let seen_top = StoredValue::new(0.0f64);
     let window = Memo::new(move |_| {
         let shown = sheet.lines.with(|v| v.len()) - fold.hidden.with(Vec::len);
         let rows = Window::rows_for(seen_px.get(), pitch.get());
@@ -48,7 +51,9 @@ pub fn Roster() -> impl IntoView {
             seen_px.try_set(h);
         }
         let Some(p) = pitch.try_get_untracked() else { return };
-        let k = Window::first_for(f64::from(el.scroll_top()), p);
+        let top = f64::from(el.scroll_top());
+        seen_top.try_set_value(top);
+        let k = Window::first_for(top, p);
         if first.try_get_untracked().is_some_and(|f| f != k) {
             first.try_set(k);
         }
@@ -118,13 +123,17 @@ pub fn Roster() -> impl IntoView {
         let Some(el) = list.get_untracked() else { return };
         // A row chosen where the box shows it (its top, and all but a tenth
         // of its pitch, the gap below it included) stays put: a tap on a
-        // row never moves the list. Any other is scrolled to.
-        let (top, seen) = (f64::from(el.scroll_top()), f64::from(el.client_height()));
+        // row never moves the list. Any other is scrolled to. The box's
+        // place and height are those last seen: reading them here would
+        // make the browser lay out the page in the middle of the change.
+        let (top, seen) = (seen_top.get_value(), seen_px.get_untracked());
         let row_top = k as f64 * w.pitch;
         let in_view =
             (w.start..w.end).contains(&k) && row_top >= top - 1.0 && row_top + 0.9 * w.pitch <= top + seen + 1.0;
         if !in_view {
-            el.set_scroll_top((k.saturating_sub(1) as f64 * w.pitch) as i32);
+            let to = k.saturating_sub(1) as f64 * w.pitch;
+            el.set_scroll_top(to as i32);
+            seen_top.set_value(to);
             first.set(k.saturating_sub(1 + OVERSCAN));
             // Once drawn, the row itself is brought into view (above the
             // answer bar: the page's scroll padding).
@@ -297,12 +306,15 @@ fn shown_lines(sheet: Sheet, fold: Fold) -> Vec<Slot> {
 }
 
 /// The distance from one drawn row to the next, if two are drawn (`scroller`
-/// holds the list).
+/// holds the list): from the first drawn row to the last, in the layout's
+/// fractions of a pixel. (Whole pixels, as `offsetTop` gives, made it
+/// 174 or 175 px for rows 174.4 px apart, and the padding standing for a
+/// thousand rows above jumped by a thousand pixels between the two.)
 fn measured_pitch(scroller: &web_sys::HtmlElement) -> Option<f64> {
-    use wasm_bindgen::JsCast;
-    let a = scroller.first_element_child()?.first_element_child()?.dyn_into::<web_sys::HtmlElement>().ok()?;
-    let b = a.next_element_sibling()?.dyn_into::<web_sys::HtmlElement>().ok()?;
-    let p = f64::from(b.offset_top() - a.offset_top());
+    let list = scroller.first_element_child()?;
+    let n = list.child_element_count();
+    let (a, b) = (list.first_element_child()?, list.last_element_child()?);
+    let p = (b.get_bounding_client_rect().top() - a.get_bounding_client_rect().top()) / f64::from(n.checked_sub(1)?);
     (p > 0.0).then_some(p)
 }
 
