@@ -330,20 +330,18 @@ async fn a_sheet_of_two_thousand_lines_opens_quickly_and_its_list_scrolls() {
     let tapped = h
         .client
         .execute_async(
-            r#"const done = arguments[arguments.length - 1];
+            &(ROWS_SHOWN_WHOLE.to_owned()
+                + r#"const done = arguments[arguments.length - 1];
                const box = document.querySelector('.roster-box');
                box.scrollIntoView({ block: 'center' });
                const frames = then => requestAnimationFrame(() => setTimeout(() => requestAnimationFrame(() => setTimeout(then, 200)), 0));
                frames(() => {
-                 const b = box.getBoundingClientRect();
-                 const row = [...box.querySelectorAll('[data-testid=roster-row]')]
-                   .filter(r => { const q = r.getBoundingClientRect(); return q.top >= b.top && q.bottom <= b.bottom; })
-                   .find(r => !r.classList.contains('selected'));
+                 const row = shownWhole(box).find(r => !r.classList.contains('selected'));
                  if (!row) { done('no unselected row shown whole in the box'); return; }
                  const before = box.scrollTop;
                  row.querySelector('.pick').click();
                  frames(() => done([before, box.scrollTop, row.querySelector('[data-testid=row-name]').textContent]));
-               });"#,
+               });"#),
             vec![],
         )
         .await
@@ -384,13 +382,12 @@ async fn a_sheet_of_two_thousand_lines_opens_quickly_and_its_list_scrolls() {
     let copied = h
         .client
         .execute(
-            r#"const box = document.querySelector('.roster-box');
-               const b = box.getBoundingClientRect();
-               const whole = [...box.querySelectorAll('[data-testid=roster-row]')]
-                 .filter(r => { const q = r.getBoundingClientRect(); return q.top >= b.top && q.bottom <= b.bottom; });
+            &(ROWS_SHOWN_WHOLE.to_owned()
+                + r#"const box = document.querySelector('.roster-box');
+               const whole = shownWhole(box);
                const row = whole[whole.length - 1];
                row.querySelector('[data-testid=row-duplicate]').click();
-               return row.querySelector('[data-testid=row-name]').textContent;"#,
+               return row.querySelector('[data-testid=row-name]').textContent;"#),
             vec![],
         )
         .await
@@ -437,6 +434,12 @@ async fn a_sheet_of_two_thousand_lines_opens_quickly_and_its_list_scrolls() {
     );
     h.finish().await;
 }
+
+/// A script's first line: `shownWhole(box)`, the long list's rows that its
+/// box shows whole.
+const ROWS_SHOWN_WHOLE: &str = "const shownWhole = box => { const b = box.getBoundingClientRect(); \
+    return [...box.querySelectorAll('[data-testid=roster-row]')] \
+      .filter(r => { const q = r.getBoundingClientRect(); return q.top >= b.top && q.bottom <= b.bottom; }); };\n";
 
 /// Scrolls the long list's box to `at` (0 the top, 1 the end) and waits
 /// until the rows drawn cover the box from edge to edge; returns how many
