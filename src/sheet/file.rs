@@ -15,6 +15,7 @@
 pub use crate::hydraulics::line::Circuit;
 use serde::{Deserialize, Serialize};
 
+use super::json;
 use super::units::{self, Dimension, Unit};
 use crate::hydraulics::field::Field;
 use crate::hydraulics::fluid::Glycol;
@@ -1082,7 +1083,8 @@ impl SheetFile {
             format: Option<String>,
             version: Option<u32>,
         }
-        let head: Head = serde_json::from_str(text).map_err(|e| SheetError::Syntax(e.to_string()))?;
+        let tree = json::parse(text).map_err(|e| SheetError::Syntax(e.to_string()))?;
+        let head: Head = json::from_tree(&tree).map_err(|e| SheetError::Syntax(e.to_string()))?;
         match head.format.as_deref() {
             Some(FORMAT) => {}
             other => return Err(SheetError::NotASheet(other.unwrap_or("missing").to_owned())),
@@ -1092,7 +1094,7 @@ impl SheetFile {
             Some(v) if v >= 1 => {}
             _ => return Err(SheetError::Syntax("version must be a whole number from 1".to_owned())),
         }
-        let sheet: SheetFile = serde_json::from_str(text).map_err(|e| SheetError::Syntax(e.to_string()))?;
+        let sheet: SheetFile = json::from_tree(&tree).map_err(|e| SheetError::Syntax(e.to_string()))?;
         sheet.units.resolve().map_err(SheetError::Units)?;
         sheet.check_limits()?;
         Ok(sheet)

@@ -18,6 +18,7 @@
 use serde::{Deserialize, Serialize};
 
 use super::file::{compact_json, SheetError, SheetFile};
+use super::json;
 use super::order::sorted_by;
 
 /// Key of the index.
@@ -164,7 +165,7 @@ fn peek_name(text: &str) -> Option<String> {
         #[serde(default)]
         project: String,
     }
-    serde_json::from_str::<Head>(text).ok().map(|h| display_name(&h.project))
+    json::from_str::<Head>(text).ok().map(|h| display_name(&h.project))
 }
 
 fn sheet_key(id: &str) -> String {
@@ -188,7 +189,7 @@ impl<K: Kv> Library<K> {
 
     /// The stored worksheets in index order, rebuilding a damaged index.
     pub fn entries(&self) -> (Vec<Entry>, Option<Problem>) {
-        match self.kv.get(INDEX_KEY).map(|t| serde_json::from_str::<Vec<Entry>>(&t)) {
+        match self.kv.get(INDEX_KEY).map(|t| json::from_str::<Vec<Entry>>(&t)) {
             None => (Vec::new(), None),
             Some(Ok(list)) => (list, None),
             Some(Err(_)) => {
@@ -205,7 +206,7 @@ impl<K: Kv> Library<K> {
     /// Run at start and whenever another tab changed the index, since two
     /// tabs writing it at once can each drop the other's entry.
     pub fn reconcile(&self) -> Vec<Entry> {
-        let listed: Vec<Entry> = self.kv.get(INDEX_KEY).and_then(|t| serde_json::from_str(&t).ok()).unwrap_or_default();
+        let listed: Vec<Entry> = self.kv.get(INDEX_KEY).and_then(|t| json::from_str(&t).ok()).unwrap_or_default();
         let stored: Vec<String> =
             self.kv.keys().into_iter().filter_map(|k| k.strip_prefix(SHEET_PREFIX).map(str::to_owned)).collect();
         let stored = sorted_by(stored, &|a, b| a.cmp(b));
@@ -341,7 +342,7 @@ impl<K: Kv> Library<K> {
             .keys()
             .into_iter()
             .filter(|k| k.starts_with(TRASH_PREFIX))
-            .filter_map(|k| self.kv.get(&k).and_then(|t| serde_json::from_str(&t).ok()))
+            .filter_map(|k| self.kv.get(&k).and_then(|t| json::from_str(&t).ok()))
             .collect();
         sorted_by(list, &|a: &Trashed, b| b.deleted.cmp(&a.deleted))
     }
@@ -352,7 +353,7 @@ impl<K: Kv> Library<K> {
     /// [`Problem::NotSaved`] when the store refuses.
     pub fn restore(&self, id: &str) -> Result<(), Problem> {
         let key = format!("{TRASH_PREFIX}{id}");
-        let Some(t) = self.kv.get(&key).and_then(|t| serde_json::from_str::<Trashed>(&t).ok()) else { return Ok(()) };
+        let Some(t) = self.kv.get(&key).and_then(|t| json::from_str::<Trashed>(&t).ok()) else { return Ok(()) };
         // Another sheet never shares an id, but never overwrite one.
         if self.kv.get(&sheet_key(id)).is_some() {
             return Err(Problem::Conflict { id: id.to_owned() });

@@ -9,6 +9,7 @@ pub mod convert;
 pub mod duty_plot;
 pub mod edit;
 pub mod file;
+pub mod json;
 pub mod library;
 pub mod link;
 pub mod markup;
