@@ -81,8 +81,14 @@ fn pipe_dimensions_agree_with_fluids_tables() {
         for z in s.sizes {
             let row = table.get(z.nominal).unwrap_or_else(|| panic!("fluids has no {} {}", s.id, z.nominal));
             let (od, wall) = (f(&row["od_mm"]), f(&row["wall_mm"]));
-            assert!(od_ok(z.od_mm, od), "{} {}: OD {} vs fluids {od}", s.id, z.nominal, z.od_mm);
-            assert!((z.wall_mm - wall).abs() <= 0.02, "{} {}: wall {} vs fluids {wall}", s.id, z.nominal, z.wall_mm);
+            assert!(od_ok(z.od_mm(), od), "{} {}: OD {} vs fluids {od}", s.id, z.nominal, z.od_mm());
+            assert!(
+                (z.wall_mm() - wall).abs() <= 0.02,
+                "{} {}: wall {} vs fluids {wall}",
+                s.id,
+                z.nominal,
+                z.wall_mm()
+            );
             if !s.id.starts_with("en10255") {
                 let id = z.bore().get::<millimeter>();
                 worst_id = worst_id.max((id - f(&row["id_mm"])).abs());
