@@ -6,6 +6,7 @@ use leptos::prelude::*;
 use crate::hydraulics::line::Circuit;
 
 use super::state::{a_frame_behind, Sheet, Slot};
+use crate::sheet::order::sorted_by;
 use crate::sheet::presets::SERVICES;
 use crate::sheet::units;
 
@@ -299,8 +300,8 @@ impl Window {
 /// The lines the list shows (those not folded away under a collapsed line), in order.
 fn shown_lines(sheet: Sheet, fold: Fold) -> Vec<Slot> {
     fold.hidden.with(|h| {
-        let mut hidden = h.clone();
-        hidden.sort_unstable();
+        // Sorted through `sheet::order`, the page's one copy of a sort.
+        let hidden = sorted_by(h.clone(), &|a, b| a.cmp(b));
         sheet.lines.with(|v| v.iter().filter(|s| hidden.binary_search(&s.id).is_err()).cloned().collect())
     })
 }
@@ -334,8 +335,7 @@ impl Fold {
         let collapsed = RwSignal::new(Vec::<u32>::new());
         let parents = Memo::new(move |_| {
             sheet.joined.with(|j| {
-                let mut p: Vec<u32> = j.tree.parent.iter().flatten().map(|&p| j.ids[p]).collect();
-                p.sort_unstable();
+                let mut p = sorted_by(j.tree.parent.iter().flatten().map(|&p| j.ids[p]).collect(), &|a, b| a.cmp(b));
                 p.dedup();
                 p
             })
