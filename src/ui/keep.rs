@@ -576,10 +576,7 @@ impl Keeper {
         }
         let Ok(promise) = nav.storage().persist() else { return };
         let persisted = self.persisted;
-        wasm_bindgen_futures::spawn_local(async move {
-            let granted = wasm_bindgen_futures::JsFuture::from(promise).await.ok().and_then(|v| v.as_bool());
-            persisted.set(granted);
-        });
+        super::when_settled(promise, Box::new(move |r| persisted.set(r.ok().and_then(|v| v.as_bool()))));
     }
 }
 

@@ -35,6 +35,16 @@ pub fn App() -> impl IntoView {
     move || view! { <Desk sheet=keeper.sheet.get()/> }
 }
 
+/// Calls `then` with what `promise` settles to. Every wait on a browser
+/// promise goes through here, so the page's module holds one copy of the
+/// future that awaits it (each `spawn_local` of its own future was one).
+pub fn when_settled(
+    promise: js_sys::Promise,
+    then: Box<dyn FnOnce(Result<wasm_bindgen::JsValue, wasm_bindgen::JsValue>)>,
+) {
+    wasm_bindgen_futures::spawn_local(async move { then(wasm_bindgen_futures::JsFuture::from(promise).await) });
+}
+
 /// Which panel under the masthead is open ("" for none); kept across
 /// worksheet switches, which redraw the desk.
 #[derive(Clone, Copy)]

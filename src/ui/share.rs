@@ -71,12 +71,13 @@ pub fn SharePanel() -> impl IntoView {
     let copy = move |_| {
         let Some(w) = web_sys::window() else { return };
         let promise = w.navigator().clipboard().write_text(&url.get_untracked());
-        wasm_bindgen_futures::spawn_local(async move {
-            match wasm_bindgen_futures::JsFuture::from(promise).await {
+        super::when_settled(
+            promise,
+            Box::new(move |r| match r {
                 Ok(_) => copied.set(true),
                 Err(_) => notices.say("The link could not be copied here; select it and copy it by hand."),
-            }
-        });
+            }),
+        );
     };
     let can_share = web_sys::window()
         .map(|w| js_sys::Reflect::has(&w.navigator(), &"share".into()).unwrap_or(false))
@@ -87,9 +88,7 @@ pub fn SharePanel() -> impl IntoView {
         data.set_title(&format!("Headroom worksheet: {}", sheet.project.get_untracked()));
         data.set_url(&url.get_untracked());
         let promise = w.navigator().share_with_data(&data);
-        wasm_bindgen_futures::spawn_local(async move {
-            let _ = wasm_bindgen_futures::JsFuture::from(promise).await;
-        });
+        super::when_settled(promise, Box::new(|_| {}));
     };
     view! {
         <section class="panel share" aria-label="Share this worksheet" data-testid="share-panel">
@@ -148,26 +147,25 @@ pub fn FilesPanel() -> impl IntoView {
         let Some(input) = ev.target().and_then(|t| t.dyn_into::<web_sys::HtmlInputElement>().ok()) else { return };
         let Some(file) = input.files().and_then(|f| f.get(0)) else { return };
         input.set_value("");
-        wasm_bindgen_futures::spawn_local(async move {
-            if file.size() > crate::sheet::file::MAX_FILE_BYTES as f64 {
-                notices.say("That file is too large to be a Headroom worksheet.");
-                return;
-            }
-            let text = wasm_bindgen_futures::JsFuture::from(file.text())
-                .await
-                .ok()
-                .and_then(|t| t.as_string())
-                .unwrap_or_default();
-            match SheetFile::from_json(&text) {
-                Ok(s) => {
-                    let name = if s.project.is_empty() { file.name() } else { s.project.clone() };
-                    if keeper.create(s).is_ok() {
-                        notices.say(format!("Imported “{name}” as a new worksheet."));
+        if file.size() > crate::sheet::file::MAX_FILE_BYTES as f64 {
+            notices.say("That file is too large to be a Headroom worksheet.");
+            return;
+        }
+        let text = file.text();
+        super::when_settled(
+            text,
+            Box::new(move |text| {
+                match SheetFile::from_json(&text.ok().and_then(|t| t.as_string()).unwrap_or_default()) {
+                    Ok(s) => {
+                        let name = if s.project.is_empty() { file.name() } else { s.project.clone() };
+                        if keeper.create(s).is_ok() {
+                            notices.say(format!("Imported “{name}” as a new worksheet."));
+                        }
                     }
+                    Err(e) => notices.say(format!("{} could not be imported: {e}.", file.name())),
                 }
-                Err(e) => notices.say(format!("{} could not be imported: {e}.", file.name())),
-            }
-        });
+            }),
+        );
     };
     let print = move |_| {
         if let Some(w) = web_sys::window() {
