@@ -153,7 +153,18 @@ fn a_refusal_says_where() {
     assert!(theirs.starts_with("unknown field `flw`, expected one of"), "{theirs}");
     let lines = serde_json::from_str::<Value>(EXAMPLES[0]).unwrap()["lines"].as_array().unwrap().clone();
     let first = lines.iter().position(|l| l.get("flow").is_some()).unwrap();
-    assert!(ours.ends_with(&format!("(at lines[{first}])")), "{ours}");
+    // Counted from 1, as the page numbers its lines.
+    assert!(ours.ends_with(&format!("(at line {})", first + 1)), "{ours}");
+    // Deeper: a fitting row's count of the wrong kind, in the first line
+    // that has fittings.
+    let mut sheet = serde_json::from_str::<Value>(EXAMPLES[0]).unwrap();
+    let line = sheet["lines"].as_array().unwrap().iter().position(|l| l["fittings"][0].is_object()).unwrap();
+    sheet["lines"][line]["fittings"][0]["count"] = Value::Bool(true);
+    let text = sheet.to_string();
+    let ours = json::from_str::<SheetFile>(&text).unwrap_err().to_string();
+    assert!(serde_json::from_str::<SheetFile>(&text).is_err());
+    assert!(ours.starts_with("invalid type: boolean `true`"), "{ours}");
+    assert!(ours.ends_with(&format!("(at line {}, fittings item 1, count)", line + 1)), "{ours}");
     // A repeated field is refused, as serde_json refuses it.
     let text = EXAMPLES[0].replacen("\"project\":", "\"project\": \"x\", \"project\":", 1);
     assert!(json::from_str::<SheetFile>(&text).unwrap_err().to_string().starts_with("duplicate field `project`"));

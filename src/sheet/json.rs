@@ -10,7 +10,7 @@
 //! a small dispatch per type. Every key of an object reaches the visitor,
 //! so `deny_unknown_fields` and "duplicate field" work as with serde_json.
 //! A reading error says where in the file it is: a line and column for
-//! text that is not JSON, a path (`lines[3].fluid`) for JSON of the wrong
+//! text that is not JSON, a path (`line 4, fluid`) for JSON of the wrong
 //! shape.
 
 use std::fmt;
@@ -90,15 +90,27 @@ impl fmt::Display for Error {
         if let Some((line, column)) = self.at {
             write!(f, " at line {line} column {column}")?;
         }
-        if !self.path.is_empty() {
-            f.write_str(" (at ")?;
-            for (i, step) in self.path.iter().enumerate() {
-                match step {
-                    Step::Key(k) if i == 0 => f.write_str(k)?,
-                    Step::Key(k) => write!(f, ".{k}")?,
-                    Step::Index(n) => write!(f, "[{n}]")?,
+        // The path as a person reads it, items counted from 1 as the page
+        // numbers its lines: "(at line 6, fluid)", "(at line 2, fittings
+        // item 3, count)".
+        let mut steps = self.path.iter().peekable();
+        let mut first = true;
+        while let Some(step) = steps.next() {
+            f.write_str(if first { " (at " } else { ", " })?;
+            first = false;
+            match (step, steps.peek()) {
+                (Step::Key(k), Some(Step::Index(n))) => {
+                    match k.as_str() {
+                        "lines" => write!(f, "line {}", n + 1)?,
+                        _ => write!(f, "{k} item {}", n + 1)?,
+                    }
+                    steps.next();
                 }
+                (Step::Key(k), _) => f.write_str(k)?,
+                (Step::Index(n), _) => write!(f, "item {}", n + 1)?,
             }
+        }
+        if !first {
             f.write_str(")")?;
         }
         Ok(())
