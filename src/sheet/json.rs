@@ -3,8 +3,9 @@
 //!
 //! The text is parsed once into a tree by one small, non-generic parser
 //! (RFC 8259: no comments, no trailing commas, no NaN), and serde reads the
-//! tree through [`Reader`], which hands every value to the visitor as what
-//! it is (`deserialize_any`). serde_json's reader is generic over each type
+//! tree through [`Reader`], by the kind of value each type asks for (a
+//! string, a list, an object; any value where a type takes any).
+//! serde_json's reader is generic over each type
 //! it reads, so the page's module held a copy of its parser per list and
 //! struct type (about 36 KB of code); this keeps one copy of the parser and
 //! a small dispatch per type. Every key of an object reaches the visitor,
