@@ -18,27 +18,26 @@ const EXAMPLES: [&str; 4] = [
     include_str!("fixtures/link-v1-demo.json"),
 ];
 
-/// Both readers give the same `Value`, or both refuse.
-fn same_value(text: &str) {
-    let ours = json::from_str::<Value>(text);
-    let theirs = serde_json::from_str::<Value>(text);
-    match (&ours, &theirs) {
-        (Ok(a), Ok(b)) => assert_eq!(a, b, "{text:?}"),
-        (Err(_), Err(_)) => {}
-        _ => panic!("{text:?}: ours {ours:?}, serde_json {theirs:?}"),
-    }
-}
-
-/// Both readers give the same sheet, or both refuse it.
-fn same_sheet(text: &str) -> bool {
-    let ours = json::from_str::<SheetFile>(text);
-    let theirs = serde_json::from_str::<SheetFile>(text);
+/// Both readers give the same `T`, or both refuse the text; whether read.
+fn same<T: serde::de::DeserializeOwned + PartialEq + std::fmt::Debug>(text: &str) -> bool {
+    let ours = json::from_str::<T>(text);
+    let theirs = serde_json::from_str::<T>(text);
     match (&ours, &theirs) {
         (Ok(a), Ok(b)) => assert_eq!(a, b, "{text:?}"),
         (Err(_), Err(_)) => {}
         _ => panic!("{text:?}: ours {ours:?}, serde_json {theirs:?}"),
     }
     ours.is_ok()
+}
+
+/// Any JSON value.
+fn same_value(text: &str) {
+    same::<Value>(text);
+}
+
+/// A sheet.
+fn same_sheet(text: &str) -> bool {
+    same::<SheetFile>(text)
 }
 
 #[test]

@@ -190,60 +190,58 @@ impl Parser<'_> {
             Some(b'"') => self.string().map(Node::Text),
             Some(b'-' | b'0'..=b'9') => self.number(),
             Some(b'[') => {
-                self.i += 1;
                 let mut items = Vec::new();
-                self.space();
-                if self.peek() == Some(b']') {
-                    self.i += 1;
-                    return Ok(Node::List(items));
-                }
-                loop {
-                    items.push(self.value(depth + 1)?);
-                    self.space();
-                    match self.peek() {
-                        Some(b',') => self.i += 1,
-                        Some(b']') => {
-                            self.i += 1;
-                            return Ok(Node::List(items));
-                        }
-                        None => return Err(self.fail("EOF while parsing a list")),
-                        Some(_) => return Err(self.fail("expected `,` or `]`")),
-                    }
-                }
+                self.members(b']', |p| {
+                    items.push(p.value(depth + 1)?);
+                    Ok(())
+                })?;
+                Ok(Node::List(items))
             }
             Some(b'{') => {
-                self.i += 1;
                 let mut members = Vec::new();
-                self.space();
-                if self.peek() == Some(b'}') {
-                    self.i += 1;
-                    return Ok(Node::Object(members));
-                }
-                loop {
-                    self.space();
-                    if self.peek() != Some(b'"') {
-                        return Err(self.fail("key must be a string"));
+                self.members(b'}', |p| {
+                    p.space();
+                    if p.peek() != Some(b'"') {
+                        return Err(p.fail("key must be a string"));
                     }
-                    let key = self.string()?;
-                    self.space();
-                    if self.peek() != Some(b':') {
-                        return Err(self.fail("expected `:`"));
+                    let key = p.string()?;
+                    p.space();
+                    if p.peek() != Some(b':') {
+                        return Err(p.fail("expected `:`"));
                     }
-                    self.i += 1;
-                    members.push((key, self.value(depth + 1)?));
-                    self.space();
-                    match self.peek() {
-                        Some(b',') => self.i += 1,
-                        Some(b'}') => {
-                            self.i += 1;
-                            return Ok(Node::Object(members));
-                        }
-                        None => return Err(self.fail("EOF while parsing an object")),
-                        Some(_) => return Err(self.fail("expected `,` or `}`")),
-                    }
-                }
+                    p.i += 1;
+                    members.push((key, p.value(depth + 1)?));
+                    Ok(())
+                })?;
+                Ok(Node::Object(members))
             }
             Some(_) => Err(self.fail("expected value")),
+        }
+    }
+
+    /// The members of a list or an object, from its opening bracket to
+    /// `close`, each read by `member`, with commas between.
+    fn members(&mut self, close: u8, mut member: impl FnMut(&mut Self) -> Result<(), Error>) -> Result<(), Error> {
+        self.i += 1;
+        self.space();
+        if self.peek() == Some(close) {
+            self.i += 1;
+            return Ok(());
+        }
+        loop {
+            member(self)?;
+            self.space();
+            match self.peek() {
+                Some(b',') => self.i += 1,
+                Some(c) if c == close => {
+                    self.i += 1;
+                    return Ok(());
+                }
+                None => return Err(self.fail("EOF while parsing a list or object")),
+                Some(_) => {
+                    return Err(self.fail(if close == b']' { "expected `,` or `]`" } else { "expected `,` or `}`" }))
+                }
+            }
         }
     }
 
