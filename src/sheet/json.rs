@@ -83,6 +83,20 @@ impl Error {
         self.path.insert(0, step);
         self
     }
+
+    // One copy of each, called from every field and item a type reads
+    // (inlined, each was a copy per field).
+    #[inline(never)]
+    #[cold]
+    fn under_key(self, key: &str) -> Error {
+        self.within(Step::Key(key.to_owned()))
+    }
+
+    #[inline(never)]
+    #[cold]
+    fn under_index(self, index: usize) -> Error {
+        self.within(Step::Index(index))
+    }
 }
 
 impl fmt::Display for Error {
@@ -424,7 +438,7 @@ impl<'de> de::Deserializer<'de> for Reader<'_> {
             Node::Text(s) => visitor.visit_enum(s.as_str().into_deserializer()),
             Node::Object(members) if members.len() == 1 => {
                 let (key, value) = &members[0];
-                visitor.visit_enum(Variant { key, value }).map_err(|e| e.within(Step::Key(key.clone())))
+                visitor.visit_enum(Variant { key, value }).map_err(|e| e.under_key(key))
             }
             _ => Err(self.refused(&"a string or an object with one key")),
         }
@@ -537,7 +551,7 @@ impl<'de> de::SeqAccess<'de> for Items<'_> {
         let Some(item) = self.items.next() else { return Ok(None) };
         let index = self.index;
         self.index += 1;
-        seed.deserialize(Reader(item)).map(Some).map_err(|e| e.within(Step::Index(index)))
+        seed.deserialize(Reader(item)).map(Some).map_err(|e| e.under_index(index))
     }
 
     fn size_hint(&self) -> Option<usize> {
@@ -561,7 +575,7 @@ impl<'de> de::MapAccess<'de> for Members<'_> {
 
     fn next_value_seed<V: DeserializeSeed<'de>>(&mut self, seed: V) -> Result<V::Value, Error> {
         match self.value.take() {
-            Some((key, value)) => seed.deserialize(Reader(value)).map_err(|e| e.within(Step::Key(key.to_owned()))),
+            Some((key, value)) => seed.deserialize(Reader(value)).map_err(|e| e.under_key(key)),
             None => Err(de::Error::custom("a value asked for before its key")),
         }
     }
