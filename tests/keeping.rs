@@ -6,7 +6,8 @@ use headroom::sheet::file::SheetFile;
 use headroom::sheet::library::{
     ASIDE_PREFIX, BUILD_KEY, CURRENT_KEY, INDEX_KEY, REV_PREFIX, SHEET_PREFIX, TRASH_PREFIX,
 };
-use headroom::sheet::link;
+use headroom::sheet::link::{self, LinkError, MAX_INFLATED_BYTES, MAX_LINK_CHARS};
+use headroom::ui::share::{deflated, fragment_of, read_fragment};
 use headroom::ui::state::DEMO;
 use headroom::ui::App;
 use wasm_bindgen::JsCast;
@@ -190,7 +191,11 @@ async fn a_link_opens_as_a_new_worksheet_beside_local_work() {
     let path = w.location().pathname().unwrap();
     w.history()
         .unwrap()
-        .replace_state_with_url(&wasm_bindgen::JsValue::NULL, "", Some(&format!("{path}#{}", link::encode(&demo))))
+        .replace_state_with_url(
+            &wasm_bindgen::JsValue::NULL,
+            "",
+            Some(&format!("{path}#{}", fragment_of(&demo).await.unwrap())),
+        )
         .unwrap();
     clear_pages();
     let page = mount_app();
@@ -211,6 +216,62 @@ async fn a_link_opens_as_a_new_worksheet_beside_local_work() {
     let after: Vec<String> = keys().into_iter().filter(|k| k.starts_with(SHEET_PREFIX)).collect();
     assert_eq!(after.len(), 2);
     assert_eq!(storage().get_item(&before[0]).unwrap().unwrap(), mine, "local work untouched");
+}
+
+/// `bytes` as raw DEFLATE made of stored (uncompressed) blocks, built by
+/// hand from RFC 1951 section 3.2.4: no deflate library involved.
+fn stored_blocks(bytes: &[u8]) -> Vec<u8> {
+    let mut out = Vec::new();
+    let mut chunks = bytes.chunks(0xFFFF).peekable();
+    if chunks.peek().is_none() {
+        out.extend([1, 0, 0, 0xFF, 0xFF]);
+    }
+    while let Some(chunk) = chunks.next() {
+        let len = chunk.len() as u16;
+        out.push(u8::from(chunks.peek().is_none())); // BFINAL, BTYPE 00
+        out.extend(len.to_le_bytes());
+        out.extend((!len).to_le_bytes());
+        out.extend(chunk);
+    }
+    out
+}
+
+/// The page deflates and inflates links with the browser's Compression
+/// Streams, the batch command and the tests with miniz_oxide. Checked
+/// against: the version-1 link fixtures made by miniz_oxide (Headroom
+/// 0.1.0, 2026-12-01, never regenerated), and raw DEFLATE built by hand
+/// from RFC 1951's stored blocks; the same limits as `link::decode`
+/// (tests/links.rs checks those natively with the same hand-made blocks).
+#[wasm_bindgen_test]
+async fn the_browsers_deflate_reads_and_writes_the_links_miniz_oxide_does() {
+    let expected = SheetFile::from_json(include_str!("fixtures/link-v1-demo.json")).unwrap();
+    let read = |f: &str| read_fragment(f.trim().to_owned());
+    assert_eq!(read(include_str!("fixtures/link-v1-demo.txt")).await.unwrap(), expected);
+    let hostile = read(include_str!("fixtures/link-v1-hostile.txt")).await.unwrap();
+    assert_eq!(hostile.lines[0].name, "<script>alert('x')</script><img src=x onerror=alert(1)>");
+    // Hand-made DEFLATE of the sheet's JSON opens as the sheet.
+    let by_hand = link::wrap(&stored_blocks(expected.to_compact_json().as_bytes()));
+    assert_eq!(read(&by_hand).await.unwrap(), expected);
+    // The browser's own link opens, and is smaller than the JSON it holds.
+    let made = fragment_of(&expected).await.unwrap();
+    assert!(made.starts_with("h1.") && made.len() < expected.to_compact_json().len(), "{made}");
+    assert_eq!(read(&made).await.unwrap(), expected);
+    // Cut short or altered: an error, never a sheet.
+    for cut in [4, made.len() / 2, made.len() - 1] {
+        assert!(read(&made[..cut]).await.is_err(), "cut at {cut}");
+    }
+    assert_eq!(read(&link::wrap(&[0xFF; 8])).await, Err(LinkError::BadData));
+    // The inflate limit: exactly MAX_INFLATED_BYTES is inflated (and is
+    // then not a sheet), one byte more is refused before it is all read.
+    // (tests/links.rs: the same natively.)
+    let at_limit = link::wrap(&deflated(&vec![b' '; MAX_INFLATED_BYTES]).await.unwrap());
+    assert!(matches!(read(&at_limit).await, Err(LinkError::Sheet(_))));
+    let over = link::wrap(&deflated(&vec![b' '; MAX_INFLATED_BYTES + 1]).await.unwrap());
+    assert_eq!(read(&over).await, Err(LinkError::TooBig));
+    // A bomb: 4 MiB of spaces deflated to a short link.
+    let bomb = link::wrap(&deflated(&vec![b' '; 4 << 20]).await.unwrap());
+    assert!(bomb.len() < MAX_LINK_CHARS, "{}", bomb.len());
+    assert_eq!(read(&bomb).await, Err(LinkError::TooBig));
 }
 
 #[wasm_bindgen_test]
@@ -390,7 +451,7 @@ async fn switching_between_sheets_of_different_unit_systems_never_stops_the_page
     click(&page, "new-sheet");
     settle().await;
     us_sheet_with_a_line(&page).await;
-    set_fragment(&link::encode(&SheetFile::from_json(DEMO).unwrap()));
+    set_fragment(&fragment_of(&SheetFile::from_json(DEMO).unwrap()).await.unwrap());
     hashchange();
     settle().await;
     click(&page, "open-link");
@@ -465,7 +526,7 @@ async fn a_flood_of_links_stores_nothing_until_one_is_accepted() {
     let mut demo = SheetFile::from_json(DEMO).unwrap();
     for n in 0..40 {
         demo.project = format!("Flood {n}");
-        set_fragment(&link::encode(&demo));
+        set_fragment(&fragment_of(&demo).await.unwrap());
         hashchange();
     }
     settle().await;
@@ -483,7 +544,7 @@ async fn a_link_that_cannot_be_stored_stays_in_the_address() {
     fresh();
     let page = mount_app();
     settle().await;
-    let fragment = link::encode(&SheetFile::from_json(DEMO).unwrap());
+    let fragment = fragment_of(&SheetFile::from_json(DEMO).unwrap()).await.unwrap();
     set_fragment(&fragment);
     hashchange();
     settle().await;

@@ -4,7 +4,7 @@
 #![cfg(not(target_arch = "wasm32"))]
 
 use headroom::sheet::file::SheetFile;
-use headroom::sheet::link::{decode, encode, LinkError, MAX_INFLATED_BYTES};
+use headroom::sheet::link::{decode, encode, wrap, LinkError, MAX_INFLATED_BYTES};
 use proptest::prelude::*;
 
 /// Made by Headroom 0.1.0 from examples/clinic-chilled-water.json, 2026-12-01.
@@ -62,6 +62,34 @@ proptest! {
         let cut = cut.min(link.len() - 1);
         prop_assert!(decode(&link[..cut]).is_err());
     }
+}
+
+/// `bytes` as raw DEFLATE made of stored (uncompressed) blocks, built by
+/// hand from RFC 1951 section 3.2.4 (as tests/keeping.rs does for the
+/// page's inflate, so both are held to the same inputs).
+fn stored_blocks(bytes: &[u8]) -> Vec<u8> {
+    let mut out = Vec::new();
+    let mut chunks = bytes.chunks(0xFFFF).peekable();
+    while let Some(chunk) = chunks.next() {
+        let len = chunk.len() as u16;
+        out.push(u8::from(chunks.peek().is_none())); // BFINAL, BTYPE 00
+        out.extend(len.to_le_bytes());
+        out.extend((!len).to_le_bytes());
+        out.extend(chunk);
+    }
+    out
+}
+
+#[test]
+fn hand_made_deflate_and_the_inflate_limit() {
+    let expected = SheetFile::from_json(include_str!("fixtures/link-v1-demo.json")).unwrap();
+    assert_eq!(decode(&wrap(&stored_blocks(expected.to_compact_json().as_bytes()))).unwrap(), expected);
+    // Exactly MAX_INFLATED_BYTES is inflated (and is then not a sheet);
+    // one byte more is refused (tests/keeping.rs: the same in the page).
+    let packed = |n: usize| wrap(&miniz_oxide::deflate::compress_to_vec(&vec![b' '; n], 9));
+    assert!(matches!(decode(&packed(MAX_INFLATED_BYTES)), Err(LinkError::Sheet(_))));
+    assert_eq!(decode(&packed(MAX_INFLATED_BYTES + 1)), Err(LinkError::TooBig));
+    assert_eq!(decode(&wrap(&[0xFF; 8])), Err(LinkError::BadData));
 }
 
 #[test]

@@ -40,6 +40,8 @@ pub enum LinkError {
     TooBig,
     /// The sheet inside is not readable.
     Sheet(SheetError),
+    /// The browser has no Compression Streams (the page only).
+    Unsupported,
 }
 
 impl std::fmt::Display for LinkError {
@@ -60,6 +62,9 @@ impl std::fmt::Display for LinkError {
                 MAX_INFLATED_BYTES >> 20
             ),
             LinkError::Sheet(e) => write!(f, "the worksheet in this link cannot be read: {e}"),
+            LinkError::Unsupported => {
+                write!(f, "this browser cannot unpack worksheet links (it lacks Compression Streams); open it in a current browser")
+            }
         }
     }
 }
@@ -67,9 +72,17 @@ impl std::fmt::Display for LinkError {
 impl std::error::Error for LinkError {}
 
 /// The fragment (without `#`) for a sheet.
+///
+/// Natively only: the page deflates with the browser's own Compression
+/// Streams (`ui::share::fragment_of`), so the module holds no deflate of
+/// its own; either's output is raw DEFLATE, and each reads the other's.
+#[cfg(not(target_arch = "wasm32"))]
 pub fn encode(sheet: &SheetFile) -> String {
-    let json = sheet.to_compact_json();
-    let packed = miniz_oxide::deflate::compress_to_vec(json.as_bytes(), 9);
+    wrap(&miniz_oxide::deflate::compress_to_vec(sheet.to_compact_json().as_bytes(), 9))
+}
+
+/// The fragment for deflated JSON.
+pub fn wrap(packed: &[u8]) -> String {
     format!("{PREFIX_V1}{}", URL_SAFE_NO_PAD.encode(packed))
 }
 
@@ -83,10 +96,32 @@ pub fn is_link(fragment: &str) -> bool {
 
 /// Reads a sheet from a fragment (with or without the leading `#`).
 ///
+/// Natively only; the page reads links with `ui::share::read_fragment`,
+/// through the same [`unwrap`] and [`open`] around the browser's inflate.
+///
 /// # Errors
 /// A [`LinkError`] for anything that is not a complete, current-or-older
 /// worksheet link; never panics.
+#[cfg(not(target_arch = "wasm32"))]
 pub fn decode(fragment: &str) -> Result<SheetFile, LinkError> {
+    let packed = unwrap(fragment)?;
+    let json = miniz_oxide::inflate::decompress_to_vec_with_limit(&packed, MAX_INFLATED_BYTES).map_err(|e| {
+        if e.status == miniz_oxide::inflate::TINFLStatus::HasMoreOutput {
+            LinkError::TooBig
+        } else {
+            LinkError::BadData
+        }
+    })?;
+    open(json)
+}
+
+/// The deflated bytes a fragment carries, after the checks that come
+/// before any inflating: its length, its version, its base64url.
+///
+/// # Errors
+/// [`LinkError::TooLong`], [`LinkError::NotALink`],
+/// [`LinkError::NewerVersion`] or [`LinkError::Damaged`].
+pub fn unwrap(fragment: &str) -> Result<Vec<u8>, LinkError> {
     let f = fragment.trim().trim_start_matches('#');
     if f.len() > MAX_LINK_CHARS {
         return Err(LinkError::TooLong(f.len()));
@@ -98,19 +133,20 @@ pub fn decode(fragment: &str) -> Result<SheetFile, LinkError> {
         }
         return Err(LinkError::NotALink);
     };
-    let packed = URL_SAFE_NO_PAD.decode(body.as_bytes()).map_err(|_| LinkError::Damaged)?;
-    let json = miniz_oxide::inflate::decompress_to_vec_with_limit(&packed, MAX_INFLATED_BYTES).map_err(|e| {
-        if e.status == miniz_oxide::inflate::TINFLStatus::HasMoreOutput {
-            LinkError::TooBig
-        } else {
-            LinkError::BadData
-        }
-    })?;
-    let text = String::from_utf8(json).map_err(|_| LinkError::BadData)?;
+    URL_SAFE_NO_PAD.decode(body.as_bytes()).map_err(|_| LinkError::Damaged)
+}
+
+/// The sheet in a link's inflated bytes (at most [`MAX_INFLATED_BYTES`]).
+///
+/// # Errors
+/// [`LinkError::BadData`] when they are not UTF-8, [`LinkError::Sheet`]
+/// when they are not a sheet.
+pub fn open(inflated: Vec<u8>) -> Result<SheetFile, LinkError> {
+    let text = String::from_utf8(inflated).map_err(|_| LinkError::BadData)?;
     SheetFile::from_json(&text).map_err(LinkError::Sheet)
 }
 
-#[cfg(test)]
+#[cfg(all(test, not(target_arch = "wasm32")))]
 mod tests {
     use super::*;
 

@@ -539,10 +539,20 @@ impl Keeper {
         if self.pending.with_untracked(|p| p.as_ref().is_some_and(|p| p.fragment == fragment)) {
             return;
         }
-        match link::decode(&fragment) {
-            Ok(file) => self.pending.set(Some(PendingLink { fragment, file })),
-            Err(e) => self.notices.say(format!("The link could not be opened: {e}.")),
-        }
+        let (pending, notices) = (self.pending, self.notices);
+        wasm_bindgen_futures::spawn_local(async move {
+            let read = super::share::read_fragment(fragment.clone()).await;
+            // The browser inflates the link a moment later: if another
+            // link has come into the address meanwhile, only that one is
+            // offered (it is being read too).
+            if address_fragment() != fragment {
+                return;
+            }
+            match read {
+                Ok(file) => pending.set(Some(PendingLink { fragment, file })),
+                Err(e) => notices.say(format!("The link could not be opened: {e}.")),
+            }
+        });
     }
 
     /// Opens the pending link as a new worksheet beside the stored ones;

@@ -7,17 +7,80 @@ use wasm_bindgen::JsCast;
 use super::keep::{download, file_stem, Keeper, Notices};
 use super::state::Sheet;
 use crate::sheet::file::SheetFile;
-use crate::sheet::{link, report};
+use crate::sheet::link::{self, LinkError};
+use crate::sheet::report;
 
-/// The whole link for the open worksheet.
-fn share_url(sheet: &Sheet) -> String {
-    let base = web_sys::window()
+/// The address of the page itself, to which a link's fragment is added.
+fn page_address() -> String {
+    web_sys::window()
         .map(|w| {
             let l = w.location();
             l.origin().unwrap_or_default() + &l.pathname().unwrap_or_default()
         })
-        .unwrap_or_default();
-    format!("{base}#{}", link::encode(&sheet.to_file()))
+        .unwrap_or_default()
+}
+
+/// The fragment (without `#`) of a link to `file`: [`link`]'s format, the
+/// compact JSON deflated by the browser's own Compression Streams (so the
+/// page's module carries no deflate of its own). `None` when this browser
+/// has no Compression Streams.
+pub async fn fragment_of(file: &SheetFile) -> Option<String> {
+    Some(link::wrap(&deflated(file.to_compact_json().as_bytes()).await?))
+}
+
+/// `bytes` as raw DEFLATE, by the browser; `None` when it has no
+/// Compression Streams.
+pub async fn deflated(bytes: &[u8]) -> Option<Vec<u8>> {
+    through(bytes, false, usize::MAX).await.ok()
+}
+
+/// Reads a link's fragment as the native `link::decode` does: the same
+/// checks before inflating ([`link::unwrap`]), the same limit on what it
+/// inflates to, the same reading of the sheet ([`link::open`]).
+///
+/// # Errors
+/// A [`LinkError`], never a panic.
+pub async fn read_fragment(fragment: String) -> Result<SheetFile, LinkError> {
+    let packed = link::unwrap(&fragment)?;
+    link::open(through(&packed, true, link::MAX_INFLATED_BYTES).await?)
+}
+
+/// Raw DEFLATE (RFC 1951) out of or into `bytes` through the browser's
+/// Compression Streams, read a chunk at a time: more than `cap` bytes
+/// out is [`LinkError::TooBig`] (the rest is never inflated), a stream
+/// that fails is [`LinkError::BadData`].
+async fn through(bytes: &[u8], inflate: bool, cap: usize) -> Result<Vec<u8>, LinkError> {
+    // Looked up by name (web-sys offers these classes only behind its
+    // unstable-API switch): a browser without them cannot make or read links.
+    let class = js_sys::Reflect::get(
+        &js_sys::global(),
+        &if inflate { "DecompressionStream" } else { "CompressionStream" }.into(),
+    )
+    .ok()
+    .and_then(|c| c.dyn_into::<js_sys::Function>().ok())
+    .ok_or(LinkError::Unsupported)?;
+    let pair = js_sys::Reflect::construct(&class, &js_sys::Array::of1(&"deflate-raw".into()))
+        .map_err(|_| LinkError::Unsupported)?;
+    let parts = js_sys::Array::of1(&js_sys::Uint8Array::from(bytes));
+    let blob = web_sys::Blob::new_with_u8_array_sequence(&parts).map_err(|_| LinkError::BadData)?;
+    let out = blob.stream().pipe_through(pair.unchecked_ref());
+    let reader = web_sys::ReadableStreamDefaultReader::new(&out).map_err(|_| LinkError::BadData)?;
+    let mut got = Vec::new();
+    loop {
+        let step = wasm_bindgen_futures::JsFuture::from(reader.read()).await.map_err(|_| LinkError::BadData)?;
+        let field = |name: &str| js_sys::Reflect::get(&step, &name.into()).unwrap_or_default();
+        if field("done").as_bool() != Some(false) {
+            return Ok(got);
+        }
+        let chunk: js_sys::Uint8Array = field("value").unchecked_into();
+        let (at, n) = (got.len(), chunk.length() as usize);
+        if at + n > cap {
+            let _ = reader.cancel();
+            return Err(LinkError::TooBig);
+        }
+        got.resize(at + n, 0);
+        chunk.copy_to(&mut got[at..]);
+    }
 }
 
 /// SVG path of a QR code for `text`, with its size in modules (quiet zone
@@ -50,8 +113,13 @@ pub fn qr_path(text: &str) -> Option<(String, usize)> {
 pub fn SharePanel() -> impl IntoView {
     let sheet = expect_context::<Sheet>();
     let notices = expect_context::<Notices>();
-    // Recomputed when the panel is drawn and whenever the worksheet changes.
-    let url = Memo::new(move |_| {
+    // Made when the panel is drawn and again whenever the worksheet
+    // changes: the browser deflates it a moment later, so "" until then
+    // (and when this browser cannot); only the latest edit's link is kept.
+    let url = RwSignal::new(String::new());
+    let made = RwSignal::new(true);
+    let asked = StoredValue::new(0u32);
+    Effect::new(move |_| {
         sheet.project.track();
         sheet.date.track();
         sheet.units.track();
@@ -59,7 +127,16 @@ pub fn SharePanel() -> impl IntoView {
         sheet.system.track();
         sheet.lines.track();
         sheet.edited.track();
-        share_url(&sheet)
+        let file = sheet.to_file();
+        let n = asked.get_value().wrapping_add(1);
+        asked.set_value(n);
+        wasm_bindgen_futures::spawn_local(async move {
+            let fragment = fragment_of(&file).await;
+            if asked.get_value() == n {
+                made.set(fragment.is_some());
+                url.set(fragment.map(|f| format!("{}#{f}", page_address())).unwrap_or_default());
+            }
+        });
     });
     let copied = RwSignal::new(false);
     // The clipboard needs a secure context and a browser that offers it.
@@ -70,7 +147,11 @@ pub fn SharePanel() -> impl IntoView {
         .unwrap_or(false);
     let copy = move |_| {
         let Some(w) = web_sys::window() else { return };
-        let promise = w.navigator().clipboard().write_text(&url.get_untracked());
+        let link = url.get_untracked();
+        if link.is_empty() {
+            return;
+        }
+        let promise = w.navigator().clipboard().write_text(&link);
         super::when_settled(
             promise,
             Box::new(move |r| match r {
@@ -84,6 +165,9 @@ pub fn SharePanel() -> impl IntoView {
         .unwrap_or(false);
     let share = move |_| {
         let Some(w) = web_sys::window() else { return };
+        if url.with_untracked(String::is_empty) {
+            return;
+        }
         let data = web_sys::ShareData::new();
         data.set_title(&format!("Headroom worksheet: {}", sheet.project.get_untracked()));
         data.set_url(&url.get_untracked());
@@ -99,7 +183,7 @@ pub fn SharePanel() -> impl IntoView {
             <div class="row">
                 {can_copy.then(|| view! { <button type="button" data-testid="copy-link" on:click=copy>{move || if copied.get() { "Copied ✓" } else { "Copy link" }}</button> })}
                 {can_share.then(|| view! { <button type="button" data-testid="system-share" on:click=share>"Share…"</button> })}
-                <span class="hint">{move || format!("{} characters", url.get().len())}</span>
+                <span class="hint">{move || url.with(|u| if u.is_empty() { String::new() } else { format!("{} characters", u.len()) })}</span>
             </div>
             {(!can_copy || !can_share).then(|| view! {
                 <p class="hint" data-testid="share-fallback">{match (can_copy, can_share) {
@@ -108,7 +192,10 @@ pub fn SharePanel() -> impl IntoView {
                     _ => "To send it, copy the link into a message, or scan the QR code with another device.",
                 }}</p>
             })}
-            {move || match qr_path(&url.get()) {
+            {move || (!made.get()).then(|| view! {
+                <p class="warn" data-testid="link-unsupported">"This browser cannot make a worksheet link: it lacks the Compression Streams every current browser has. Save a sheet file instead (Files & print)."</p>
+            })}
+            {move || url.with(|u| if u.is_empty() { None } else { Some(qr_path(u)) }).map(|qr| match qr {
                 Some((d, n)) => view! {
                     <svg class="qr" data-testid="qr" viewBox=format!("0 0 {n} {n}") role="img" aria-label="QR code of the link" shape-rendering="crispEdges">
                         <rect width=n height=n fill="#fff"/>
@@ -116,7 +203,7 @@ pub fn SharePanel() -> impl IntoView {
                     </svg>
                 }.into_any(),
                 None => view! { <p class="warn" data-testid="qr-too-long">"This worksheet is too big for a QR code: copy or share the link instead."</p> }.into_any(),
-            }}
+            })}
         </section>
     }
 }
