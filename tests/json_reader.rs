@@ -203,3 +203,18 @@ fn damaged_sheets_are_refused_or_read_alike() {
     println!("damaged sheets: {read} read alike, {refused} refused by both");
     assert!(read > 100 && refused > 1000, "read {read}, refused {refused}");
 }
+
+#[test]
+fn a_record_written_as_a_list_is_refused_though_serde_json_takes_it() {
+    use headroom::sheet::file::PipeFile;
+    // Where the readers part on purpose: serde_json reads a record (a
+    // struct, or an enum's struct variant) from a list of its fields in
+    // order. A sheet file never writes one, so ours refuses it as the wrong
+    // shape rather than read values by their position.
+    let object = r#"{"bore": {"diameter": "52.5", "material": "pe"}}"#;
+    assert!(same::<PipeFile>(object));
+    let list = r#"{"bore": ["52.5", "pe"]}"#;
+    assert_eq!(serde_json::from_str::<PipeFile>(list).unwrap(), json::from_str::<PipeFile>(object).unwrap());
+    let ours = json::from_str::<PipeFile>(list).unwrap_err().to_string();
+    assert!(ours.starts_with("invalid type: sequence, expected struct variant PipeFile::Bore"), "{ours}");
+}

@@ -615,11 +615,12 @@ impl<'de> de::VariantAccess<'de> for Reader<'_> {
         seed.deserialize(self)
     }
 
+    // As a list and an object are read elsewhere: by their own paths.
     fn tuple_variant<V: Visitor<'de>>(self, _len: usize, visitor: V) -> Result<V::Value, Error> {
-        de::Deserializer::deserialize_any(self, visitor)
+        de::Deserializer::deserialize_seq(self, visitor)
     }
 
     fn struct_variant<V: Visitor<'de>>(self, _fields: &'static [&'static str], visitor: V) -> Result<V::Value, Error> {
-        de::Deserializer::deserialize_any(self, visitor)
+        de::Deserializer::deserialize_map(self, visitor)
     }
 }
