@@ -421,6 +421,29 @@ fn stored_sheets() -> Vec<String> {
 }
 
 #[wasm_bindgen_test]
+async fn closing_the_share_panel_while_its_link_is_made_is_harmless() {
+    // The browser deflates the panel's link a moment after the panel asks:
+    // the answer may come after the panel (and its values) are gone.
+    fresh();
+    watch_for_panics();
+    let page = mount_app();
+    settle().await;
+    click(&page, "open-demo");
+    settle().await;
+    click(&page, "show-share");
+    leptos::task::tick().await; // the panel asks for its link
+    click(&page, "show-share"); // and is closed before the answer
+    settle().await;
+    assert!(!PANICKED.load(std::sync::atomic::Ordering::SeqCst), "panicked");
+    assert!(page.query_selector("[data-testid=share-panel]").unwrap().is_none());
+    click(&page, "show-share");
+    settle().await;
+    let link: HtmlInputElement = find(&page, "share-link").unchecked_into();
+    assert!(link.value().contains("#h1."), "{}", link.value());
+    assert!(!PANICKED.load(std::sync::atomic::Ordering::SeqCst), "panicked");
+}
+
+#[wasm_bindgen_test]
 async fn switching_between_sheets_of_different_unit_systems_never_stops_the_page() {
     // Regression: switching from a US sheet with lines to another sheet
     // read values of the old lines after they were disposed, which with

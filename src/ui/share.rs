@@ -132,7 +132,9 @@ pub fn SharePanel() -> impl IntoView {
         asked.set_value(n);
         wasm_bindgen_futures::spawn_local(async move {
             let fragment = fragment_of(&file).await;
-            if asked.get_value() == n {
+            // The panel may be gone by now (closed, or another worksheet
+            // opened): its values with it, so only looked at if still there.
+            if asked.try_get_value() == Some(n) {
                 made.set(fragment.is_some());
                 url.set(fragment.map(|f| format!("{}#{f}", page_address())).unwrap_or_default());
             }
