@@ -14,8 +14,10 @@ use wasm_bindgen::JsCast;
 use wasm_bindgen_test::*;
 use web_sys::{HtmlElement, HtmlInputElement};
 
+mod deflate;
 mod web;
 
+use deflate::stored_blocks;
 use web::{all_text, click, find, next_frame, observe_as_near, type_into};
 
 wasm_bindgen_test_configure!(run_in_browser);
@@ -216,24 +218,6 @@ async fn a_link_opens_as_a_new_worksheet_beside_local_work() {
     let after: Vec<String> = keys().into_iter().filter(|k| k.starts_with(SHEET_PREFIX)).collect();
     assert_eq!(after.len(), 2);
     assert_eq!(storage().get_item(&before[0]).unwrap().unwrap(), mine, "local work untouched");
-}
-
-/// `bytes` as raw DEFLATE made of stored (uncompressed) blocks, built by
-/// hand from RFC 1951 section 3.2.4: no deflate library involved.
-fn stored_blocks(bytes: &[u8]) -> Vec<u8> {
-    let mut out = Vec::new();
-    let mut chunks = bytes.chunks(0xFFFF).peekable();
-    if chunks.peek().is_none() {
-        out.extend([1, 0, 0, 0xFF, 0xFF]);
-    }
-    while let Some(chunk) = chunks.next() {
-        let len = chunk.len() as u16;
-        out.push(u8::from(chunks.peek().is_none())); // BFINAL, BTYPE 00
-        out.extend(len.to_le_bytes());
-        out.extend((!len).to_le_bytes());
-        out.extend(chunk);
-    }
-    out
 }
 
 /// The page deflates and inflates links with the browser's Compression

@@ -7,6 +7,10 @@ use headroom::sheet::file::SheetFile;
 use headroom::sheet::link::{decode, encode, wrap, LinkError, MAX_INFLATED_BYTES};
 use proptest::prelude::*;
 
+mod deflate;
+
+use deflate::stored_blocks;
+
 /// Made by Headroom 0.1.0 from examples/clinic-chilled-water.json, 2026-12-01.
 /// Never regenerate: add a fixture for a new version instead.
 const V1_DEMO: &str = include_str!("fixtures/link-v1-demo.txt");
@@ -62,22 +66,6 @@ proptest! {
         let cut = cut.min(link.len() - 1);
         prop_assert!(decode(&link[..cut]).is_err());
     }
-}
-
-/// `bytes` as raw DEFLATE made of stored (uncompressed) blocks, built by
-/// hand from RFC 1951 section 3.2.4 (as tests/keeping.rs does for the
-/// page's inflate, so both are held to the same inputs).
-fn stored_blocks(bytes: &[u8]) -> Vec<u8> {
-    let mut out = Vec::new();
-    let mut chunks = bytes.chunks(0xFFFF).peekable();
-    while let Some(chunk) = chunks.next() {
-        let len = chunk.len() as u16;
-        out.push(u8::from(chunks.peek().is_none())); // BFINAL, BTYPE 00
-        out.extend(len.to_le_bytes());
-        out.extend((!len).to_le_bytes());
-        out.extend(chunk);
-    }
-    out
 }
 
 #[test]
