@@ -1008,6 +1008,8 @@ async fn a_module_that_cannot_start_says_so_with_a_reload_button() {
     h.open("/", "cannot-start").await;
     let text = h.text("cannot-start").await;
     assert!(text.contains("Headroom could not start") && text.contains("Reload"), "{text}");
+    // The stand-in that said it was starting is gone.
+    assert!(h.client.find_all(fantoccini::Locator::Css("#loading")).await.unwrap().is_empty());
     h.expected_errors.push("Headroom could not start");
     h.expected_errors.push("WebAssembly");
     h.finish().await;

@@ -14,6 +14,7 @@ window.headroomBuild = "__HEADROOM_BUILD__";
 function cannotStart(error) {
   console.error("Headroom could not start:", error);
   if (document.getElementById("cannot-start")) return;
+  document.getElementById("loading")?.remove();
   const box = document.createElement("div");
   box.id = "cannot-start";
   box.setAttribute("role", "alert");
