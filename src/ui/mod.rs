@@ -112,7 +112,7 @@ pub fn Desk(
                 <button type="button" data-testid="show-files" aria-pressed=pressed("files") on:click=toggle("files")>"Files & print"</button>
             </div>
         </header>
-        {keeper.map(|k| view! { <keep_views::Status keeper=k/><keep_views::HaltBanner keeper=k/><keep_views::LinkQuestion keeper=k/> })}
+        {keeper.map(|k| view! { <keep_views::HaltBanner keeper=k/><keep_views::LinkQuestion keeper=k/> })}
         <div class="notices screen-only" aria-live="polite" data-testid="notices">
             {move || notices.0.get().into_iter().enumerate().map(|(i, n)| view! {
                 <p class="notice" data-testid="notice">
@@ -144,6 +144,10 @@ pub fn Desk(
                 }}
             </section>
         </main>
+        // Under the worksheet, not above it: its text changes as the
+        // browser answers (offline copy ready, storage kept), and above the
+        // worksheet each change moved every control under a finger.
+        {keeper.map(|k| view! { <keep_views::Status keeper=k/> })}
         // The selected line's answer and the caution stay at the bottom of
         // the screen together.
         <div class="dock screen-only">

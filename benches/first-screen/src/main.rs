@@ -64,15 +64,6 @@ fn main() {
                 </button>
               </div>
             </header>
-            <p class="status screen-only" data-testid="status">
-              <span data-testid="offline-status">
-                "Not yet ready offline: keep this page open once while online."
-              </span>
-              " "
-              <span data-testid="storage-status">
-                "This browser may clear Headroom's storage when space runs low: export worksheets you need as files (Files & print)."
-              </span>
-            </p>
             <div class="notices screen-only" aria-live="polite" data-testid="notices">
             </div>
             <main class="desk screen-only">
@@ -138,6 +129,15 @@ fn main() {
                 </div>
               </section>
             </main>
+            <p class="status screen-only" data-testid="status">
+              <span data-testid="offline-status">
+                "Not yet ready offline: keep this page open once while online."
+              </span>
+              " "
+              <span data-testid="storage-status">
+                "This browser may clear Headroom's storage when space runs low: export worksheets you need as files (Files & print)."
+              </span>
+            </p>
             <div class="dock screen-only">
               <p class="caution" role="note" data-testid="caution">
                 "Design guidance only. Check every result against the governing code, manufacturer data and the judgement of a licensed professional before anything is built."
