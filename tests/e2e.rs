@@ -1200,6 +1200,49 @@ async fn nothing_makes_the_page_scroll_sideways_on_a_phone_or_a_tablet() {
     h.finish().await;
 }
 
+/// Installed before the page's scripts: adds up the layout shifts the
+/// browser reports (the Layout Instability API, what Lighthouse's
+/// cumulative layout shift counts), with what moved.
+const SHIFT_LOG: &str = r#"(() => {
+  window.shifts = [];
+  new PerformanceObserver(list => {
+    for (const e of list.getEntries()) {
+      if (e.hadRecentInput) continue;
+      window.shifts.push([e.value, e.sources.map(s => s.node ? (s.node.className || s.node.nodeName) : '?').join(' + ')]);
+    }
+  }).observe({ type: 'layout-shift', buffered: true });
+})();"#;
+
+#[tokio::test(flavor = "multi_thread")]
+#[ignore = "needs dist/ and chromedriver: scripts/test runs it"]
+async fn nothing_moves_under_a_finger_while_the_page_starts() {
+    // A first visit at each width, until the page has said it is ready
+    // offline and what the browser does with its storage (the status line
+    // changes twice after the page is drawn). Reference: web.dev's
+    // "good" cumulative layout shift is 0.1 or less; the controls should
+    // not move at all, so the whole page is held to 0.05.
+    for (w, hgt) in [(390, 844), (768, 1024), (1024, 768)] {
+        let mut h = Harness::start(w, hgt).await;
+        h.cdp("Page.addScriptToEvaluateOnNewDocument", serde_json::json!({"source": SHIFT_LOG})).await;
+        h.open("/", "add-line").await;
+        wait_for_service_worker(&h).await;
+        h.expect_text("offline-status", "Ready to work offline.").await;
+        let storage = h.wait_for("storage-status").await;
+        let deadline = std::time::Instant::now() + std::time::Duration::from_secs(10);
+        while storage.text().await.unwrap().is_empty() {
+            assert!(std::time::Instant::now() < deadline, "the storage status never came");
+            tokio::time::sleep(std::time::Duration::from_millis(50)).await;
+        }
+        tokio::time::sleep(std::time::Duration::from_millis(300)).await;
+        let shifts = h.client.execute("return window.shifts", vec![]).await.unwrap();
+        let list: Vec<(f64, String)> = serde_json::from_value(shifts).unwrap();
+        let total: f64 = list.iter().map(|s| s.0).sum();
+        println!("layout shifts while the page starts at {w}×{hgt}: {total:.4} in all, {list:?}");
+        assert!(total <= 0.05, "at {w}×{hgt} the page moved by {total:.4}: {list:?}");
+        h.finish().await;
+    }
+}
+
 #[tokio::test(flavor = "multi_thread")]
 #[ignore = "needs dist/ and chromedriver: scripts/test runs it"]
 async fn the_answer_stays_in_view_while_the_inputs_are_edited() {
@@ -1315,7 +1358,7 @@ async fn lighthouse_reports_its_scores_for_the_release_build() {
     let shown = |a: &str| report["audits"][a]["displayValue"].as_str().unwrap_or("?").to_owned();
     println!(
         "Lighthouse {} (mobile): performance {:.0}, accessibility {:.0}, best practices {:.0}; first paint {}, \
-         largest paint {}, blocking time {}, interactive {}",
+         largest paint {}, blocking time {}, interactive {}, layout shift {}",
         report["lighthouseVersion"].as_str().unwrap_or("?"),
         score("performance") * 100.0,
         score("accessibility") * 100.0,
@@ -1324,6 +1367,7 @@ async fn lighthouse_reports_its_scores_for_the_release_build() {
         shown("largest-contentful-paint"),
         shown("total-blocking-time"),
         shown("interactive"),
+        shown("cumulative-layout-shift"),
     );
     assert!(score("accessibility") >= 0.95, "accessibility {}", score("accessibility"));
     assert!(score("best-practices") >= 0.9, "best practices {}", score("best-practices"));
