@@ -15,8 +15,8 @@
 pub use crate::hydraulics::line::Circuit;
 use serde::{Deserialize, Serialize};
 
-use super::json;
 use super::units::{self, Dimension, Unit};
+use super::{json, records};
 use crate::hydraulics::field::Field;
 use crate::hydraulics::fluid::Glycol;
 
@@ -692,19 +692,19 @@ pub enum FluidFile {
 /// field that no kind has.
 #[derive(Default)]
 pub struct FluidFields {
-    kind: Option<String>,
-    temperature: Option<String>,
-    pressure: Option<String>,
-    glycol: Option<GlycolName>,
-    percent: Option<String>,
-    density_kg_m3: Option<String>,
-    viscosity_mpa_s: Option<String>,
-    kinematic_viscosity_mm2_s: Option<String>,
-    gas: Option<String>,
-    relative_density: Option<String>,
-    molar_mass: Option<String>,
-    z: Option<String>,
-    unknown: Option<String>,
+    pub(super) kind: Option<String>,
+    pub(super) temperature: Option<String>,
+    pub(super) pressure: Option<String>,
+    pub(super) glycol: Option<GlycolName>,
+    pub(super) percent: Option<String>,
+    pub(super) density_kg_m3: Option<String>,
+    pub(super) viscosity_mpa_s: Option<String>,
+    pub(super) kinematic_viscosity_mm2_s: Option<String>,
+    pub(super) gas: Option<String>,
+    pub(super) relative_density: Option<String>,
+    pub(super) molar_mass: Option<String>,
+    pub(super) z: Option<String>,
+    pub(super) unknown: Option<String>,
 }
 
 impl<'de> Deserialize<'de> for FluidFields {
@@ -1078,23 +1078,18 @@ impl SheetFile {
         }
         // Look at format and version before the full shape, so a newer file
         // is reported as newer rather than as malformed.
-        #[derive(Deserialize)]
-        struct Head {
-            format: Option<String>,
-            version: Option<u32>,
-        }
         let tree = json::parse(text).map_err(|e| SheetError::Syntax(e.to_string()))?;
-        let head: Head = json::from_tree(&tree).map_err(|e| SheetError::Syntax(e.to_string()))?;
-        match head.format.as_deref() {
+        let (format, version) = records::head(&tree).map_err(|e| SheetError::Syntax(e.to_string()))?;
+        match format.as_deref() {
             Some(FORMAT) => {}
             other => return Err(SheetError::NotASheet(other.unwrap_or("missing").to_owned())),
         }
-        match head.version {
+        match version {
             Some(v) if v > VERSION => return Err(SheetError::Version(v)),
             Some(v) if v >= 1 => {}
             _ => return Err(SheetError::Syntax("version must be a whole number from 1".to_owned())),
         }
-        let sheet: SheetFile = json::from_tree(&tree).map_err(|e| SheetError::Syntax(e.to_string()))?;
+        let sheet = SheetFile::read(&tree).map_err(|e| SheetError::Syntax(e.to_string()))?;
         sheet.units.resolve().map_err(SheetError::Units)?;
         sheet.check_limits()?;
         Ok(sheet)

@@ -1,44 +1,23 @@
-//! JSON in: the one reader for sheet files, links and storage, on both
+//! JSON in: the one parser for sheet files, links and storage, on both
 //! targets.
 //!
-//! The text is parsed once into a tree by one small, non-generic parser
-//! (RFC 8259: no comments, no trailing commas, no NaN), and serde reads the
-//! tree through [`Reader`], by the kind of value each type asks for (a
-//! string, a list, an object; any value where a type takes any).
-//! serde_json's reader is generic over each type
-//! it reads, so the page's module held a copy of its parser per list and
-//! struct type (about 36 KB of code); this keeps one copy of the parser and
-//! a small dispatch per type. Every key of an object reaches the visitor,
-//! so `deny_unknown_fields` and "duplicate field" work as with serde_json.
-//! A reading error says where in the file it is: a line and column for
-//! text that is not JSON, a path (`line 4, fluid`) for JSON of the wrong
-//! shape.
+//! The text is parsed once into a tree ([`Node`]) by one small,
+//! non-generic parser (RFC 8259: no comments, no trailing commas, no NaN),
+//! and each record is read from the tree by hand (`sheet::records`).
+//! serde_json's reader is generic over each type it reads, so the page's
+//! module held a copy of its parser per list and struct type (about 36 KB
+//! of code), and serde's derived readers a copy of every field's checks
+//! (51 KB). A reading error says where in the file it is: a line and
+//! column for text that is not JSON, a path (`line 4, fluid`) for JSON of
+//! the wrong shape.
 
 use std::fmt;
 
-use serde::de::{self, DeserializeOwned, DeserializeSeed, IntoDeserializer, Visitor};
+use serde::de;
 
 /// Lists and objects nested this deep are refused (serde_json's own limit:
 /// 127 deep is read), so a hostile file cannot exhaust the stack.
 const MAX_DEPTH: usize = 128;
-
-/// Reads a value from JSON text.
-///
-/// # Errors
-/// [`Error`] when the text is not JSON or not the shape of `T`; never
-/// panics, whatever the text.
-pub fn from_str<T: DeserializeOwned>(text: &str) -> Result<T, Error> {
-    from_tree(&parse(text)?)
-}
-
-/// Reads a value from an already parsed tree (a text read once for two
-/// looks).
-///
-/// # Errors
-/// [`Error`] when the tree is not the shape of `T`.
-pub fn from_tree<T: DeserializeOwned>(tree: &Node) -> Result<T, Error> {
-    T::deserialize(Reader(tree))
-}
 
 /// A JSON value, as parsed. Object members keep their order and any
 /// repeated key, so the reader can refuse a repeated field.
@@ -84,17 +63,17 @@ impl Error {
         self
     }
 
-    // One copy of each, called from every field and item a type reads
-    // (inlined, each was a copy per field).
+    /// The same error, for a value under `key` of an object.
     #[inline(never)]
     #[cold]
-    fn under_key(self, key: &str) -> Error {
+    pub fn under_key(self, key: &str) -> Error {
         self.within(Step::Key(key.to_owned()))
     }
 
+    /// The same error, for the item at `index` (from 0) of a list.
     #[inline(never)]
     #[cold]
-    fn under_index(self, index: usize) -> Error {
+    pub fn under_index(self, index: usize) -> Error {
         self.within(Step::Index(index))
     }
 }
@@ -394,233 +373,5 @@ impl Parser<'_> {
             n => n,
         };
         char::from_u32(code).ok_or_else(|| self.fail("invalid unicode code point"))
-    }
-}
-
-/// serde's reader over a parsed tree.
-#[derive(Clone, Copy)]
-pub struct Reader<'a>(pub &'a Node);
-
-impl<'de> de::Deserializer<'de> for Reader<'_> {
-    type Error = Error;
-
-    fn deserialize_any<V: Visitor<'de>>(self, visitor: V) -> Result<V::Value, Error> {
-        match self.0 {
-            Node::Null => visitor.visit_unit(),
-            Node::Bool(b) => visitor.visit_bool(*b),
-            Node::Unsigned(n) => visitor.visit_u64(*n),
-            Node::Signed(n) => visitor.visit_i64(*n),
-            Node::Float(x) => visitor.visit_f64(*x),
-            Node::Text(s) => visitor.visit_str(s),
-            Node::List(_) => self.deserialize_seq(visitor),
-            Node::Object(_) => self.deserialize_map(visitor),
-        }
-    }
-
-    fn deserialize_option<V: Visitor<'de>>(self, visitor: V) -> Result<V::Value, Error> {
-        match self.0 {
-            Node::Null => visitor.visit_none(),
-            _ => visitor.visit_some(self),
-        }
-    }
-
-    fn deserialize_newtype_struct<V: Visitor<'de>>(self, _name: &'static str, visitor: V) -> Result<V::Value, Error> {
-        visitor.visit_newtype_struct(self)
-    }
-
-    fn deserialize_enum<V: Visitor<'de>>(
-        self,
-        _name: &'static str,
-        _variants: &'static [&'static str],
-        visitor: V,
-    ) -> Result<V::Value, Error> {
-        match self.0 {
-            Node::Text(s) => visitor.visit_enum(s.as_str().into_deserializer()),
-            Node::Object(members) if members.len() == 1 => {
-                let (key, value) = &members[0];
-                visitor.visit_enum(Variant { key, value }).map_err(|e| e.under_key(key))
-            }
-            _ => Err(self.refused(&"a string or an object with one key")),
-        }
-    }
-
-    fn deserialize_ignored_any<V: Visitor<'de>>(self, visitor: V) -> Result<V::Value, Error> {
-        visitor.visit_unit()
-    }
-
-    // Each kind of value asked for is read by its own short path, so a
-    // type's reader holds only the visits it can take (a visitor's other
-    // visits are its refusals, one copy each per type).
-    fn deserialize_bool<V: Visitor<'de>>(self, visitor: V) -> Result<V::Value, Error> {
-        match self.0 {
-            Node::Bool(b) => visitor.visit_bool(*b),
-            _ => Err(self.refused(&visitor)),
-        }
-    }
-
-    fn deserialize_str<V: Visitor<'de>>(self, visitor: V) -> Result<V::Value, Error> {
-        match self.0 {
-            Node::Text(s) => visitor.visit_str(s),
-            _ => Err(self.refused(&visitor)),
-        }
-    }
-
-    fn deserialize_seq<V: Visitor<'de>>(self, visitor: V) -> Result<V::Value, Error> {
-        match self.0 {
-            Node::List(items) => {
-                let mut seq = Items { items: items.iter(), index: 0 };
-                let value = visitor.visit_seq(&mut seq)?;
-                match seq.items.len() {
-                    0 => Ok(value),
-                    _ => Err(de::Error::invalid_length(items.len(), &"fewer elements in the list")),
-                }
-            }
-            _ => Err(self.refused(&visitor)),
-        }
-    }
-
-    fn deserialize_map<V: Visitor<'de>>(self, visitor: V) -> Result<V::Value, Error> {
-        match self.0 {
-            Node::Object(members) => visitor.visit_map(Members { members: members.iter(), value: None }),
-            _ => Err(self.refused(&visitor)),
-        }
-    }
-
-    fn deserialize_struct<V: Visitor<'de>>(
-        self,
-        _name: &'static str,
-        _fields: &'static [&'static str],
-        visitor: V,
-    ) -> Result<V::Value, Error> {
-        self.deserialize_map(visitor)
-    }
-
-    fn deserialize_string<V: Visitor<'de>>(self, visitor: V) -> Result<V::Value, Error> {
-        self.deserialize_str(visitor)
-    }
-
-    fn deserialize_identifier<V: Visitor<'de>>(self, visitor: V) -> Result<V::Value, Error> {
-        self.deserialize_str(visitor)
-    }
-
-    fn deserialize_tuple<V: Visitor<'de>>(self, _len: usize, visitor: V) -> Result<V::Value, Error> {
-        self.deserialize_seq(visitor)
-    }
-
-    fn deserialize_unit<V: Visitor<'de>>(self, visitor: V) -> Result<V::Value, Error> {
-        match self.0 {
-            Node::Null => visitor.visit_unit(),
-            _ => Err(self.refused(&visitor)),
-        }
-    }
-
-    serde::forward_to_deserialize_any! {
-        i8 i16 i32 i64 i128 u8 u16 u32 u64 u128 f32 f64 char
-        bytes byte_buf unit_struct tuple_struct
-    }
-}
-
-impl Reader<'_> {
-    fn refused(&self, expected: &dyn de::Expected) -> Error {
-        de::Error::invalid_type(self.unexpected(), expected)
-    }
-
-    fn unexpected(&self) -> de::Unexpected<'_> {
-        match self.0 {
-            Node::Null => de::Unexpected::Unit,
-            Node::Bool(b) => de::Unexpected::Bool(*b),
-            Node::Unsigned(n) => de::Unexpected::Unsigned(*n),
-            Node::Signed(n) => de::Unexpected::Signed(*n),
-            Node::Float(x) => de::Unexpected::Float(*x),
-            Node::Text(s) => de::Unexpected::Str(s),
-            Node::List(_) => de::Unexpected::Seq,
-            Node::Object(_) => de::Unexpected::Map,
-        }
-    }
-}
-
-struct Items<'a> {
-    items: std::slice::Iter<'a, Node>,
-    index: usize,
-}
-
-impl<'de> de::SeqAccess<'de> for Items<'_> {
-    type Error = Error;
-
-    fn next_element_seed<T: DeserializeSeed<'de>>(&mut self, seed: T) -> Result<Option<T::Value>, Error> {
-        let Some(item) = self.items.next() else { return Ok(None) };
-        let index = self.index;
-        self.index += 1;
-        seed.deserialize(Reader(item)).map(Some).map_err(|e| e.under_index(index))
-    }
-
-    fn size_hint(&self) -> Option<usize> {
-        Some(self.items.len())
-    }
-}
-
-struct Members<'a> {
-    members: std::slice::Iter<'a, (String, Node)>,
-    value: Option<(&'a str, &'a Node)>,
-}
-
-impl<'de> de::MapAccess<'de> for Members<'_> {
-    type Error = Error;
-
-    fn next_key_seed<K: DeserializeSeed<'de>>(&mut self, seed: K) -> Result<Option<K::Value>, Error> {
-        let Some((key, value)) = self.members.next() else { return Ok(None) };
-        self.value = Some((key, value));
-        seed.deserialize(key.as_str().into_deserializer()).map(Some)
-    }
-
-    fn next_value_seed<V: DeserializeSeed<'de>>(&mut self, seed: V) -> Result<V::Value, Error> {
-        match self.value.take() {
-            Some((key, value)) => seed.deserialize(Reader(value)).map_err(|e| e.under_key(key)),
-            None => Err(de::Error::custom("a value asked for before its key")),
-        }
-    }
-
-    fn size_hint(&self) -> Option<usize> {
-        Some(self.members.len())
-    }
-}
-
-/// An enum written as an object of one key: the variant and its content.
-struct Variant<'a> {
-    key: &'a str,
-    value: &'a Node,
-}
-
-impl<'de, 'a> de::EnumAccess<'de> for Variant<'a> {
-    type Error = Error;
-    type Variant = Reader<'a>;
-
-    fn variant_seed<V: DeserializeSeed<'de>>(self, seed: V) -> Result<(V::Value, Reader<'a>), Error> {
-        let variant = seed.deserialize(self.key.into_deserializer())?;
-        Ok((variant, Reader(self.value)))
-    }
-}
-
-impl<'de> de::VariantAccess<'de> for Reader<'_> {
-    type Error = Error;
-
-    fn unit_variant(self) -> Result<(), Error> {
-        match self.0 {
-            Node::Null => Ok(()),
-            _ => Err(de::Error::invalid_type(self.unexpected(), &"unit variant")),
-        }
-    }
-
-    fn newtype_variant_seed<T: DeserializeSeed<'de>>(self, seed: T) -> Result<T::Value, Error> {
-        seed.deserialize(self)
-    }
-
-    // As a list and an object are read elsewhere: by their own paths.
-    fn tuple_variant<V: Visitor<'de>>(self, _len: usize, visitor: V) -> Result<V::Value, Error> {
-        de::Deserializer::deserialize_seq(self, visitor)
-    }
-
-    fn struct_variant<V: Visitor<'de>>(self, _fields: &'static [&'static str], visitor: V) -> Result<V::Value, Error> {
-        de::Deserializer::deserialize_map(self, visitor)
     }
 }

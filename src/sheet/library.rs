@@ -18,8 +18,8 @@
 use serde::{Deserialize, Serialize};
 
 use super::file::{compact_json, SheetError, SheetFile};
-use super::json;
 use super::order::sorted_by;
+use super::records;
 
 /// Key of the index.
 pub const INDEX_KEY: &str = "headroom.v1.index";
@@ -160,12 +160,7 @@ pub fn display_name(project: &str) -> String {
 /// The project name in stored text, read loosely (any version, damaged
 /// shapes allowed) for listing only.
 fn peek_name(text: &str) -> Option<String> {
-    #[derive(Deserialize)]
-    struct Head {
-        #[serde(default)]
-        project: String,
-    }
-    json::from_str::<Head>(text).ok().map(|h| display_name(&h.project))
+    records::from_text(text, records::project).ok().map(|p| display_name(&p))
 }
 
 fn sheet_key(id: &str) -> String {
@@ -189,7 +184,7 @@ impl<K: Kv> Library<K> {
 
     /// The stored worksheets in index order, rebuilding a damaged index.
     pub fn entries(&self) -> (Vec<Entry>, Option<Problem>) {
-        match self.kv.get(INDEX_KEY).map(|t| json::from_str::<Vec<Entry>>(&t)) {
+        match self.kv.get(INDEX_KEY).map(|t| records::from_text(&t, records::entries)) {
             None => (Vec::new(), None),
             Some(Ok(list)) => (list, None),
             Some(Err(_)) => {
@@ -206,7 +201,8 @@ impl<K: Kv> Library<K> {
     /// Run at start and whenever another tab changed the index, since two
     /// tabs writing it at once can each drop the other's entry.
     pub fn reconcile(&self) -> Vec<Entry> {
-        let listed: Vec<Entry> = self.kv.get(INDEX_KEY).and_then(|t| json::from_str(&t).ok()).unwrap_or_default();
+        let listed: Vec<Entry> =
+            self.kv.get(INDEX_KEY).and_then(|t| records::from_text(&t, records::entries).ok()).unwrap_or_default();
         let stored: Vec<String> =
             self.kv.keys().into_iter().filter_map(|k| k.strip_prefix(SHEET_PREFIX).map(str::to_owned)).collect();
         let stored = sorted_by(stored, &|a, b| a.cmp(b));
@@ -342,7 +338,7 @@ impl<K: Kv> Library<K> {
             .keys()
             .into_iter()
             .filter(|k| k.starts_with(TRASH_PREFIX))
-            .filter_map(|k| self.kv.get(&k).and_then(|t| json::from_str(&t).ok()))
+            .filter_map(|k| self.kv.get(&k).and_then(|t| records::from_text(&t, Trashed::read).ok()))
             .collect();
         sorted_by(list, &|a: &Trashed, b| b.deleted.cmp(&a.deleted))
     }
@@ -353,7 +349,7 @@ impl<K: Kv> Library<K> {
     /// [`Problem::NotSaved`] when the store refuses.
     pub fn restore(&self, id: &str) -> Result<(), Problem> {
         let key = format!("{TRASH_PREFIX}{id}");
-        let Some(t) = self.kv.get(&key).and_then(|t| json::from_str::<Trashed>(&t).ok()) else { return Ok(()) };
+        let Some(t) = self.kv.get(&key).and_then(|t| records::from_text(&t, Trashed::read).ok()) else { return Ok(()) };
         // Another sheet never shares an id, but never overwrite one.
         if self.kv.get(&sheet_key(id)).is_some() {
             return Err(Problem::Conflict { id: id.to_owned() });

@@ -18,6 +18,7 @@ pub mod order;
 pub mod panes;
 pub mod presets;
 pub mod reader;
+pub mod records;
 pub mod report;
 pub mod review;
 pub mod system;
