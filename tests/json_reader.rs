@@ -59,13 +59,19 @@ fn read_sheet(text: &str) -> Result<SheetFile, json::Error> {
 /// A sheet's shape: the hand-written readers give the same sheet as
 /// serde_json, or both refuse; and over the same tree the same sheet or
 /// the same refusal as serde's derived readers, word for word and at the
-/// same place. Whether read.
+/// same place. A sheet read is written back by the hand-written writer
+/// byte for byte as serde_json writes it, in both layouts. Whether read.
 fn same_sheet(text: &str) -> bool {
     let ours = read_sheet(text);
     assert_eq!(ours, serde_tree::from_str::<SheetFile>(text), "{text:?}");
     let theirs = serde_json::from_str::<SheetFile>(text);
     match (&ours, &theirs) {
-        (Ok(a), Ok(b)) => assert_eq!(a, b, "{text:?}"),
+        (Ok(a), Ok(b)) => {
+            assert_eq!(a, b, "{text:?}");
+            // And written back by hand as serde_json writes it.
+            assert_eq!(a.to_compact_json(), serde_json::to_string(a).unwrap(), "{text:?}");
+            assert_eq!(a.to_json(), serde_json::to_string_pretty(a).unwrap(), "{text:?}");
+        }
         (Err(_), Err(_)) => {}
         // Where the two part on purpose: a record written as a list
         // (`a_record_written_as_a_list_is_refused_though_serde_json_takes_it`).

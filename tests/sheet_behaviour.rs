@@ -203,6 +203,106 @@ fn compact_and_pretty_json_are_what_serde_json_writes() {
     assert_eq!(pretty_json(&empty), serde_json::to_string_pretty(&empty).unwrap());
 }
 
+#[test]
+fn a_sheet_with_every_field_set_is_written_as_serde_json_writes_it() {
+    // Every optional member given, every kind of fluid, both kinds of
+    // pipe, every kind of component, and a text holding every ASCII
+    // character (each control character has its own escape) and some
+    // beyond: both layouts byte for byte as serde_json writes them.
+    let every_char: String = (0u8..=0x7f).map(char::from).chain("é €😀".chars()).collect();
+    let line = |name: &str, fluid: serde_json::Value, pipe: serde_json::Value| {
+        serde_json::json!({
+            "name": name, "flow": "2 L/s",
+            "load": {"power": "40 kW", "delta_t": "6 K"},
+            "fed_from": "main", "diversity": "0.9",
+            "fixtures": {"supply": "hot", "items": [{"kind": "basin", "count": "3"}], "continuous": "0.1 L/s"},
+            "fluid": fluid, "pipe": pipe, "roughness": "0.05 mm", "aged": true, "length": "12 m",
+            "fittings": [{"fitting": "elbow90-long", "count": 2}, {"fitting": "tee-run", "count": "2.5"}],
+            "components": [
+                {"name": "V-1", "kind": "kv", "value": "16"},
+                {"name": "V-2", "kind": "cv", "value": "20"},
+                {"name": "coil", "kind": "rated", "drop": "30 kPa", "at_flow": "2 L/s"},
+                {"name": "BFV", "kind": "butterfly"},
+                {"name": "R", "kind": "reducer", "to_bore": "40 mm", "angle": "30"}
+            ],
+            "extra_k": "1.5", "equivalent_length": "3 m", "rise": "-2 m",
+            "method": "hazen-williams", "hazen_williams_c": "130",
+            "limits": {"max_drop_per_length": "300 Pa/m", "max_total_drop": "50 kPa", "max_velocity": "2 m/s",
+                       "min_velocity": "0.5 m/s", "velocity_by_size": "ashrae", "max_drop_percent": "10"},
+            "check_size": "DN 50", "smallest_size": "DN 20"
+        })
+    };
+    let sheet = serde_json::json!({
+        "format": "headroom-sheet", "version": 4, "project": every_char, "date": "2026-12-05",
+        "units": {"system": "us", "flow": "gpm", "pressure": "psi", "drop_per_length": "ft/100 ft", "length": "ft",
+                  "velocity": "ft/s", "temperature": "°F", "roughness": "in", "power": "Btu/h",
+                  "temperature_difference": "°F"},
+        "basis": {"circuit": "closed", "freeze_margin_k": 5, "every_size": true, "return_run": "entered",
+                  "demand": "en806-3"},
+        "system": {"source_pressure": "4 bar", "outlet_minimum": "1 bar",
+                   "pump": [{"flow": "1 L/s", "head": "10 m"}, {"flow": "2 L/s", "head": "8 m"}],
+                   "suction": {"pressure": "101 kPa", "height": "2 m", "loss": "1 kPa"}},
+        "lines": [
+            line("w", serde_json::json!({"kind": "water", "temperature": "7 °C", "pressure": "3 bar"}),
+                 serde_json::json!({"series": "steel-sch40"})),
+            line("g", serde_json::json!({"kind": "glycol", "glycol": "propylene", "percent": "30", "temperature": "-5 °C"}),
+                 serde_json::json!({"bore": {"diameter": "52.5", "material": "pe"}})),
+            line("c", serde_json::json!({"kind": "custom", "density_kg_m3": "870", "viscosity_mpa_s": "12",
+                                         "kinematic_viscosity_mm2_s": "14"}), serde_json::json!({"series": "copper-l"})),
+            line("a", serde_json::json!({"kind": "gas", "gas": "custom", "temperature": "20 °C", "pressure": "7 barg",
+                                         "relative_density": "0.6", "molar_mass": "18", "viscosity_mpa_s": "0.011",
+                                         "z": "0.98"}), serde_json::json!({"series": "steel-sch80"})),
+            line("s", serde_json::json!({"kind": "steam", "pressure": "8 barg", "temperature": "200 °C"}),
+                 serde_json::json!({"series": "steel-sch40"}))
+        ]
+    });
+    let file: SheetFile = serde_json::from_value(sheet).unwrap();
+    assert_eq!(file.to_compact_json(), serde_json::to_string(&file).unwrap());
+    assert_eq!(file.to_json(), serde_json::to_string_pretty(&file).unwrap());
+    assert_eq!(SheetFile::from_json(&file.to_compact_json()).unwrap(), file);
+    // Each member left out in turn where it may be.
+    let mut bare = file.clone();
+    bare.lines.truncate(1);
+    bare.units = Default::default();
+    bare.basis = Default::default();
+    bare.system = Default::default();
+    let l = &mut bare.lines[0];
+    (l.load, l.fed_from, l.diversity, l.fixtures, l.roughness) = (None, None, None, None, None);
+    (l.extra_k, l.equivalent_length, l.rise, l.hazen_williams_c) = (None, None, None, None);
+    (l.check_size, l.smallest_size, l.aged) = (None, None, false);
+    (l.fittings, l.components, l.limits) = (Vec::new(), Vec::new(), Default::default());
+    assert_eq!(bare.to_compact_json(), serde_json::to_string(&bare).unwrap());
+    assert_eq!(bare.to_json(), serde_json::to_string_pretty(&bare).unwrap());
+}
+
+#[test]
+fn the_device_store_writes_its_lists_as_serde_json_writes_them() {
+    // The index of stored worksheets and a deleted worksheet in the trash
+    // are written by hand; the reference is serde_json's `to_string` of
+    // the same records read back with their derived readers.
+    use headroom::sheet::library::{Entry, Kv, Library, MemoryKv, Trashed, INDEX_KEY, TRASH_PREFIX};
+    let text =
+        std::fs::read_to_string(format!("{}/examples/clinic-chilled-water.json", env!("CARGO_MANIFEST_DIR"))).unwrap();
+    let mut sheet = SheetFile::from_json(&text).unwrap();
+    let lib = Library::new(MemoryKv::default());
+    for (id, name) in [("a1", "Bay \"A\" \\ west\n\t÷ 5 °C"), ("b2", ""), ("c3", "\u{1}\u{1f} plain")] {
+        sheet.project = name.to_owned();
+        lib.save(id, &sheet, "2026-12-05T01:00:00Z", lib.revision(id)).unwrap();
+    }
+    lib.remove("b2", "2026-12-05T02:00:00Z").unwrap();
+    let index = lib.kv().get(INDEX_KEY).unwrap();
+    let entries: Vec<Entry> = serde_json::from_str(&index).unwrap();
+    assert_eq!(entries.len(), 2);
+    assert_eq!(index, serde_json::to_string(&entries).unwrap());
+    let trashed = lib.kv().get(&format!("{TRASH_PREFIX}b2")).unwrap();
+    let t: Trashed = serde_json::from_str(&trashed).unwrap();
+    assert_eq!(t.entry.id, "b2");
+    assert_eq!(trashed, serde_json::to_string(&t).unwrap());
+    // And read back by hand as written.
+    assert_eq!(lib.entries().0, entries);
+    assert_eq!(lib.trash(), vec![t]);
+}
+
 /// The fluid as serde's own reader for a tagged enum reads it: the shape
 /// the file's fluid had before it was read through one flat record. The
 /// reference for `fluids_are_read_as_serdes_tagged_enum_reads_them`.

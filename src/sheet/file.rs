@@ -1181,14 +1181,20 @@ impl SheetFile {
         self
     }
 
-    /// Writes the sheet as pretty JSON.
+    /// Writes the sheet as pretty JSON (written by hand, as serde_json's
+    /// `to_string_pretty` writes it).
     pub fn to_json(&self) -> String {
-        pretty_json(self)
+        let mut o = records::Out::new(true);
+        self.write(&mut o);
+        o.done()
     }
 
-    /// Writes the sheet as JSON without spaces (links and storage).
+    /// Writes the sheet as JSON without spaces (links and storage), as
+    /// serde_json's `to_string` writes it.
     pub fn to_compact_json(&self) -> String {
-        compact_json(self)
+        let mut o = records::Out::new(false);
+        self.write(&mut o);
+        o.done()
     }
 
     /// Resolved units (defaults where the file chose none), with the

@@ -17,7 +17,7 @@
 
 use serde::{Deserialize, Serialize};
 
-use super::file::{compact_json, SheetError, SheetFile};
+use super::file::{SheetError, SheetFile};
 use super::order::sorted_by;
 use super::records;
 
@@ -224,7 +224,7 @@ impl<K: Kv> Library<K> {
     }
 
     fn write_index(&self, list: &[Entry]) -> Result<(), StoreError> {
-        self.kv.set(INDEX_KEY, &compact_json(list))
+        self.kv.set(INDEX_KEY, &records::write_entries(list))
     }
 
     fn drop_from_index(&self, id: &str) {
@@ -324,7 +324,13 @@ impl<K: Kv> Library<K> {
             updated: String::new(),
         });
         let trashed = Trashed { entry, deleted: deleted.to_owned(), text };
-        self.kv.set(&format!("{TRASH_PREFIX}{id}"), &compact_json(&trashed)).map_err(Problem::NotSaved)?;
+        self.kv
+            .set(&format!("{TRASH_PREFIX}{id}"), &{
+                let mut o = records::Out::new(false);
+                trashed.write(&mut o);
+                o.done()
+            })
+            .map_err(Problem::NotSaved)?;
         self.kv.remove(&key);
         self.kv.remove(&rev_key(id));
         self.drop_from_index(id);

@@ -1,5 +1,6 @@
 //! The sheet file's records read by hand from the parsed tree
-//! ([`json::parse`]), for the page and the batch command alike.
+//! ([`super::json::parse`]) and written by hand ([`Out`]), for the page
+//! and the batch command alike.
 //!
 //! serde's derived readers held, per field of every record, its name
 //! match, its duplicate check and its value read, all inlined into one
@@ -10,8 +11,11 @@
 //! member's key before its value, the members in the file's order, then
 //! the first missing field in the record's order), because the derived
 //! readers stay as the reference: `tests/json_reader.rs` reads every
-//! example sheet, and every one damaged byte by byte, both ways and
-//! expects the same sheet or a refusal from both.
+//! example sheet, every one damaged byte by byte and every one with each
+//! member changed, both ways, and expects the same sheet or the same
+//! refusal. Written, a record comes out byte for byte as serde_json writes
+//! it with the derived writer (`tests/json_reader.rs`,
+//! `tests/sheet_behaviour.rs`).
 //!
 //! Every name list below is in the order the record declares its fields
 //! (serde names them in that order in "expected one of …").
@@ -661,4 +665,385 @@ pub(crate) fn project(node: &Node) -> Result<String> {
         Ok(())
     })?;
     Ok(project)
+}
+
+/// JSON written by hand, compact (links and storage) or indented by two
+/// spaces (files): byte for byte what serde_json's `to_string` and
+/// `to_string_pretty` write for the same record with its derived
+/// `Serialize` (`tests/sheet_behaviour.rs` holds it to that).
+pub(crate) struct Out {
+    s: String,
+    pretty: bool,
+    depth: usize,
+    /// Nothing written yet in the list or object just opened.
+    first: bool,
+}
+
+impl Out {
+    pub(crate) fn new(pretty: bool) -> Out {
+        Out { s: String::with_capacity(256), pretty, depth: 0, first: true }
+    }
+
+    pub(crate) fn done(self) -> String {
+        self.s
+    }
+
+    fn open(&mut self, bracket: char) {
+        self.s.push(bracket);
+        self.depth += 1;
+        self.first = true;
+    }
+
+    fn close(&mut self, bracket: char) {
+        self.depth -= 1;
+        if !self.first {
+            self.line();
+        }
+        self.s.push(bracket);
+        self.first = false;
+    }
+
+    fn line(&mut self) {
+        if self.pretty {
+            self.s.push('\n');
+            for _ in 0..self.depth {
+                self.s.push_str("  ");
+            }
+        }
+    }
+
+    /// Before a list's next item.
+    fn item(&mut self) {
+        if !self.first {
+            self.s.push(',');
+        }
+        self.first = false;
+        self.line();
+    }
+
+    /// Before an object's next member's value.
+    fn key(&mut self, key: &str) {
+        self.item();
+        self.text(key);
+        self.s.push_str(if self.pretty { ": " } else { ":" });
+    }
+
+    /// A string, escaped as serde_json escapes it: quote, backslash and
+    /// control characters only.
+    fn text(&mut self, v: &str) {
+        self.s.push('"');
+        for c in v.chars() {
+            match c {
+                '"' => self.s.push_str("\\\""),
+                '\\' => self.s.push_str("\\\\"),
+                '\n' => self.s.push_str("\\n"),
+                '\r' => self.s.push_str("\\r"),
+                '\t' => self.s.push_str("\\t"),
+                '\u{8}' => self.s.push_str("\\b"),
+                '\u{c}' => self.s.push_str("\\f"),
+                c if c < ' ' => {
+                    const HEX: &[u8; 16] = b"0123456789abcdef";
+                    self.s.push_str("\\u00");
+                    self.s.push(HEX[c as usize >> 4] as char);
+                    self.s.push(HEX[c as usize & 15] as char);
+                }
+                c => self.s.push(c),
+            }
+        }
+        self.s.push('"');
+    }
+
+    fn whole(&mut self, n: u32) {
+        self.s.push_str(&n.to_string());
+    }
+
+    fn member(&mut self, key: &str, v: &str) {
+        self.key(key);
+        self.text(v);
+    }
+
+    /// A member left out when it is empty (`skip_serializing_if`).
+    fn member_if(&mut self, key: &str, v: &str) {
+        if !v.is_empty() {
+            self.member(key, v);
+        }
+    }
+
+    /// A member left out when absent.
+    fn member_opt(&mut self, key: &str, v: &Option<String>) {
+        if let Some(v) = v {
+            self.member(key, v);
+        }
+    }
+
+    fn list<T>(&mut self, key: &str, items: &[T], write: fn(&T, &mut Out)) {
+        self.key(key);
+        self.open('[');
+        for x in items {
+            self.item();
+            write(x, self);
+        }
+        self.close(']');
+    }
+}
+
+impl SheetFile {
+    pub(crate) fn write(&self, o: &mut Out) {
+        o.open('{');
+        o.member("format", &self.format);
+        o.key("version");
+        o.whole(self.version);
+        o.member("project", &self.project);
+        o.member("date", &self.date);
+        o.key("units");
+        self.units.write(o);
+        if !self.basis.is_default() {
+            o.key("basis");
+            self.basis.write(o);
+        }
+        if !self.system.is_empty() {
+            o.key("system");
+            self.system.write(o);
+        }
+        o.list("lines", &self.lines, LineFile::write);
+        o.close('}');
+    }
+}
+
+impl UnitChoice {
+    fn write(&self, o: &mut Out) {
+        o.open('{');
+        o.member("system", if self.system == System::Us { "us" } else { "si" });
+        o.member_opt("flow", &self.flow);
+        o.member_opt("pressure", &self.pressure);
+        o.member_opt("drop_per_length", &self.drop_per_length);
+        o.member_opt("length", &self.length);
+        o.member_opt("velocity", &self.velocity);
+        o.member_opt("temperature", &self.temperature);
+        o.member_opt("roughness", &self.roughness);
+        o.member_opt("power", &self.power);
+        o.member_opt("temperature_difference", &self.temperature_difference);
+        o.close('}');
+    }
+}
+
+impl Basis {
+    fn write(&self, o: &mut Out) {
+        o.open('{');
+        if self.circuit == Circuit::Closed {
+            o.member("circuit", "closed");
+        }
+        if let Some(k) = self.freeze_margin_k {
+            o.key("freeze_margin_k");
+            o.whole(k.into());
+        }
+        if self.every_size {
+            o.key("every_size");
+            o.s.push_str("true");
+        }
+        if self.return_run == ReturnRun::Entered {
+            o.member("return_run", "entered");
+        }
+        if self.demand != Method::HunterTanks {
+            o.member("demand", self.demand.id());
+        }
+        o.close('}');
+    }
+}
+
+impl SystemFile {
+    fn write(&self, o: &mut Out) {
+        o.open('{');
+        o.member_if("source_pressure", &self.source_pressure);
+        o.member_if("outlet_minimum", &self.outlet_minimum);
+        if !self.pump.is_empty() {
+            o.list("pump", &self.pump, |p, o| {
+                o.open('{');
+                o.member("flow", &p.flow);
+                o.member("head", &p.head);
+                o.close('}');
+            });
+        }
+        if !self.suction.is_empty() {
+            o.key("suction");
+            o.open('{');
+            o.member_if("pressure", &self.suction.pressure);
+            o.member_if("height", &self.suction.height);
+            o.member_if("loss", &self.suction.loss);
+            o.close('}');
+        }
+        o.close('}');
+    }
+}
+
+impl LineFile {
+    fn write(&self, o: &mut Out) {
+        o.open('{');
+        o.member("name", &self.name);
+        o.member("flow", &self.flow);
+        if let Some(load) = &self.load {
+            o.key("load");
+            o.open('{');
+            o.member("power", &load.power);
+            o.member("delta_t", &load.delta_t);
+            o.close('}');
+        }
+        o.member_opt("fed_from", &self.fed_from);
+        o.member_opt("diversity", &self.diversity);
+        if let Some(f) = &self.fixtures {
+            o.key("fixtures");
+            o.open('{');
+            o.member("supply", ["total", "cold", "hot"][f.supply as usize]);
+            if !f.items.is_empty() {
+                o.list("items", &f.items, |x, o| {
+                    o.open('{');
+                    o.member("kind", &x.kind);
+                    o.member("count", &x.count);
+                    o.close('}');
+                });
+            }
+            o.member_if("continuous", &f.continuous);
+            o.close('}');
+        }
+        o.key("fluid");
+        self.fluid.write(o);
+        o.key("pipe");
+        o.open('{');
+        match &self.pipe {
+            PipeFile::Series(id) => o.member("series", id),
+            PipeFile::Bore { diameter, material } => {
+                o.key("bore");
+                o.open('{');
+                o.member("diameter", diameter);
+                o.member("material", material);
+                o.close('}');
+            }
+        }
+        o.close('}');
+        o.member_opt("roughness", &self.roughness);
+        if self.aged {
+            o.key("aged");
+            o.s.push_str("true");
+        }
+        o.member("length", &self.length);
+        if !self.fittings.is_empty() {
+            o.list("fittings", &self.fittings, |f, o| {
+                o.open('{');
+                o.member("fitting", &f.fitting);
+                // A valid count as a number, anything else as typed.
+                o.key("count");
+                match super::number::parse_count(&f.count) {
+                    Ok(n) => o.whole(n),
+                    Err(_) => o.text(&f.count),
+                }
+                o.close('}');
+            });
+        }
+        if !self.components.is_empty() {
+            o.list("components", &self.components, |c, o| {
+                o.open('{');
+                o.member("name", &c.name);
+                o.member("kind", c.kind.id());
+                o.member_if("value", &c.value);
+                o.member_if("drop", &c.drop);
+                o.member_if("at_flow", &c.at_flow);
+                o.member_if("to_bore", &c.to_bore);
+                o.member_if("angle", &c.angle);
+                o.close('}');
+            });
+        }
+        o.member_opt("extra_k", &self.extra_k);
+        o.member_opt("equivalent_length", &self.equivalent_length);
+        o.member_opt("rise", &self.rise);
+        o.member("method", self.method.id());
+        o.member_opt("hazen_williams_c", &self.hazen_williams_c);
+        o.key("limits");
+        o.open('{');
+        let l = &self.limits;
+        o.member_opt("max_drop_per_length", &l.max_drop_per_length);
+        o.member_opt("max_total_drop", &l.max_total_drop);
+        o.member_opt("max_velocity", &l.max_velocity);
+        o.member_opt("min_velocity", &l.min_velocity);
+        o.member_opt("velocity_by_size", &l.velocity_by_size);
+        o.member_opt("max_drop_percent", &l.max_drop_percent);
+        o.close('}');
+        o.member_opt("check_size", &self.check_size);
+        o.member_opt("smallest_size", &self.smallest_size);
+        o.close('}');
+    }
+}
+
+impl FluidFile {
+    /// Tagged by `kind`, then the kind's fields in order.
+    fn write(&self, o: &mut Out) {
+        o.open('{');
+        match self {
+            FluidFile::Water { temperature, pressure } => {
+                o.member("kind", "water");
+                o.member("temperature", temperature);
+                o.member_opt("pressure", pressure);
+            }
+            FluidFile::Glycol { glycol, percent, temperature } => {
+                o.member("kind", "glycol");
+                o.member("glycol", glycol.id());
+                o.member("percent", percent);
+                o.member("temperature", temperature);
+            }
+            FluidFile::Custom { density_kg_m3, viscosity_mpa_s, kinematic_viscosity_mm2_s } => {
+                o.member("kind", "custom");
+                o.member("density_kg_m3", density_kg_m3);
+                o.member_opt("viscosity_mpa_s", viscosity_mpa_s);
+                o.member_opt("kinematic_viscosity_mm2_s", kinematic_viscosity_mm2_s);
+            }
+            FluidFile::Gas { gas, temperature, pressure, relative_density, molar_mass, viscosity_mpa_s, z } => {
+                o.member("kind", "gas");
+                o.member("gas", gas);
+                o.member("temperature", temperature);
+                o.member("pressure", pressure);
+                o.member_opt("relative_density", relative_density);
+                o.member_opt("molar_mass", molar_mass);
+                o.member_opt("viscosity_mpa_s", viscosity_mpa_s);
+                o.member_opt("z", z);
+            }
+            FluidFile::Steam { pressure, temperature } => {
+                o.member("kind", "steam");
+                o.member("pressure", pressure);
+                o.member_opt("temperature", temperature);
+            }
+        }
+        o.close('}');
+    }
+}
+
+impl Entry {
+    fn write(&self, o: &mut Out) {
+        o.open('{');
+        o.member("id", &self.id);
+        o.member("name", &self.name);
+        o.member("updated", &self.updated);
+        o.close('}');
+    }
+}
+
+/// The device's list of stored worksheets, compact.
+pub(crate) fn write_entries(list: &[Entry]) -> String {
+    let mut o = Out::new(false);
+    o.open('[');
+    for e in list {
+        o.item();
+        e.write(&mut o);
+    }
+    o.close(']');
+    o.done()
+}
+
+impl Trashed {
+    pub(crate) fn write(&self, o: &mut Out) {
+        o.open('{');
+        o.key("entry");
+        self.entry.write(o);
+        o.member("deleted", &self.deleted);
+        o.member("text", &self.text);
+        o.close('}');
+    }
 }
