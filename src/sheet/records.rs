@@ -1,11 +1,11 @@
 //! The sheet file's records read by hand from the parsed tree
-//! ([`super::json::parse`]) and written by hand ([`Out`]), for the page
+//! ([`super::json::parse`]) and written by hand (`Out`), for the page
 //! and the batch command alike.
 //!
 //! serde's derived readers held, per field of every record, its name
 //! match, its duplicate check and its value read, all inlined into one
 //! function of 51 KB in the page's module. Here one non-generic loop
-//! ([`record`]) walks an object's members for every record, and a record
+//! (`record`) walks an object's members for every record, and a record
 //! says only which of its names a member is and how to read its value. The
 //! refusals are serde's own, in serde's words and in the same order (a
 //! member's key before its value, the members in the file's order, then
