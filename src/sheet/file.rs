@@ -561,59 +561,10 @@ impl ComponentKind {
     }
 }
 
-/// Writes a value as JSON without spaces (links and storage): byte for
-/// byte what `serde_json::to_string` writes.
-pub fn compact_json<T: Serialize + ?Sized>(value: &T) -> String {
-    write_json(value, Layout { pretty: None })
-}
-
-/// Writes a value as indented JSON (files): what
-/// `serde_json::to_string_pretty` writes.
+/// Writes a value as indented JSON (the batch command's results report;
+/// stored records are written by hand, `records::Out`).
 pub fn pretty_json<T: Serialize + ?Sized>(value: &T) -> String {
-    write_json(value, Layout { pretty: Some(serde_json::ser::PrettyFormatter::new()) })
-}
-
-fn write_json<T: Serialize + ?Sized>(value: &T, layout: Layout) -> String {
-    let mut out = Vec::with_capacity(256);
-    let mut writer = serde_json::Serializer::with_formatter(&mut out, layout);
-    match value.serialize(&mut writer) {
-        Ok(()) => String::from_utf8(out).unwrap_or_default(),
-        Err(_) => String::new(),
-    }
-}
-
-/// serde_json's compact or pretty layout, chosen at run time. One type for
-/// both, so the page's module holds one copy of each type's writer (serde
-/// makes a copy per formatter type: two layouts were two copies).
-struct Layout {
-    pretty: Option<serde_json::ser::PrettyFormatter<'static>>,
-}
-
-/// The methods where the two layouts differ (whitespace); the rest are
-/// the trait's own, shared by both.
-macro_rules! either_layout {
-    ($($name:ident($($arg:ident: $ty:ty),*);)*) => {$(
-        fn $name<W: ?Sized + std::io::Write>(&mut self, w: &mut W $(, $arg: $ty)*) -> std::io::Result<()> {
-            match &mut self.pretty {
-                Some(p) => p.$name(w $(, $arg)*),
-                None => serde_json::ser::CompactFormatter.$name(w $(, $arg)*),
-            }
-        }
-    )*};
-}
-
-impl serde_json::ser::Formatter for Layout {
-    either_layout! {
-        begin_array();
-        end_array();
-        begin_array_value(first: bool);
-        end_array_value();
-        begin_object();
-        end_object();
-        begin_object_key(first: bool);
-        begin_object_value();
-        end_object_value();
-    }
+    serde_json::to_string_pretty(value).unwrap_or_default()
 }
 
 fn is_false(b: &bool) -> bool {
