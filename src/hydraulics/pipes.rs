@@ -102,16 +102,23 @@ pub enum Naming {
     OutsideMm,
 }
 
+/// A nominal size's whole number ("12", "DN50" less its "DN"). Every
+/// nominal named in inches or by DN is whole numbers and fractions, so no
+/// decimal reader is needed (the page's module then holds none of `core`'s).
+fn whole(text: &str) -> Option<f64> {
+    text.parse::<u32>().ok().map(f64::from)
+}
+
 /// Parses "1-1/2", "3/4" or "12" as inches.
 fn inches(nominal: &str) -> Option<f64> {
     let frac = |t: &str| {
         let (a, b) = t.split_once('/')?;
-        Some(a.parse::<f64>().ok()? / b.parse::<f64>().ok()?)
+        Some(whole(a)? / whole(b)?)
     };
     match nominal.split_once('-') {
-        Some((whole, f)) => Some(whole.parse::<f64>().ok()? + frac(f)?),
+        Some((w, f)) => Some(whole(w)? + frac(f)?),
         None if nominal.contains('/') => frac(nominal),
-        None => nominal.parse().ok(),
+        None => whole(nominal),
     }
 }
 
@@ -320,9 +327,7 @@ impl Series {
         let bore_in = || self.bore(z).get::<uom::si::length::inch>();
         match self.naming {
             Naming::Nps | Naming::CopperTube => inches(z.nominal).unwrap_or_else(bore_in),
-            Naming::Dn => {
-                z.nominal.trim_start_matches("DN").parse::<f64>().map(dn_as_nps).unwrap_or_else(|_| bore_in())
-            }
+            Naming::Dn => whole(z.nominal.trim_start_matches("DN")).map_or_else(bore_in, dn_as_nps),
             Naming::OutsideMm => bore_in(),
         }
     }
@@ -805,6 +810,37 @@ mod tests {
         ids.sort_unstable();
         ids.dedup();
         assert_eq!(ids.len(), SERIES.len());
+    }
+
+    #[test]
+    fn nominals_read_as_whole_numbers_are_what_a_decimal_reader_reads() {
+        // Darby's diameter reads a nominal's numbers as whole numbers; core's
+        // decimal reader (f64::from_str) is the reference for the value.
+        let decimal = |t: &str| -> Option<f64> {
+            let frac =
+                |t: &str| t.split_once('/').and_then(|(a, b)| Some(a.parse::<f64>().ok()? / b.parse::<f64>().ok()?));
+            match t.split_once('-') {
+                Some((w, f)) => Some(w.parse::<f64>().ok()? + frac(f)?),
+                None if t.contains('/') => frac(t),
+                None => t.parse().ok(),
+            }
+        };
+        let mut read = 0;
+        for s in SERIES {
+            for z in s.sizes {
+                let (ours, theirs) = match s.naming {
+                    Naming::Nps | Naming::CopperTube => (inches(z.nominal), decimal(z.nominal)),
+                    Naming::Dn => {
+                        let n = z.nominal.trim_start_matches("DN");
+                        (whole(n), n.parse::<f64>().ok())
+                    }
+                    Naming::OutsideMm => continue,
+                };
+                assert!(ours.is_some() && ours == theirs, "{} {}: {ours:?} vs {theirs:?}", s.id, z.nominal);
+                read += 1;
+            }
+        }
+        assert!(read > 200, "{read}");
     }
 
     #[test]

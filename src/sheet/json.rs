@@ -287,8 +287,8 @@ impl Parser<'_> {
                 return Ok(if n == 0 { Node::Float(-0.0) } else { Node::Signed(n) });
             }
         }
-        match text.parse::<f64>() {
-            Ok(x) if x.is_finite() => Ok(Node::Float(x)),
+        match crate::sheet::number::float(text) {
+            Some(x) if x.is_finite() => Ok(Node::Float(x)),
             _ => Err(self.fail("number out of range")),
         }
     }

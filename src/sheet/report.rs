@@ -862,7 +862,7 @@ fn csv_field(s: &str) -> String {
     // Quote everything that could split a field, and defuse leading
     // characters that spreadsheets would run as a formula (OWASP, "CSV
     // Injection": =, +, -, @, tab and carriage return).
-    let s = if s.starts_with(['=', '+', '-', '@', '\t', '\r']) && s.parse::<f64>().is_err() {
+    let s = if s.starts_with(['=', '+', '-', '@', '\t', '\r']) && crate::sheet::number::float(s).is_none() {
         format!("'{s}")
     } else {
         s.to_owned()
