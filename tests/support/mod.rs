@@ -59,6 +59,16 @@ pub struct StaticServer {
 
 impl StaticServer {
     pub fn start(root: PathBuf) -> Self {
+        Self::serve(root, false)
+    }
+
+    /// As a static host serves the page: each file gzip -9 (what
+    /// `tests/dist_budget.rs` counts) to a browser that accepts it.
+    pub fn start_gzip(root: PathBuf) -> Self {
+        Self::serve(root, true)
+    }
+
+    fn serve(root: PathBuf, gzip: bool) -> Self {
         let server = Arc::new(tiny_http::Server::http("127.0.0.1:0").expect("bind 127.0.0.1"));
         let port = server.server_addr().to_ip().expect("an IP address").port();
         let requests = Arc::new(Mutex::new(Vec::new()));
@@ -72,10 +82,25 @@ impl StaticServer {
                 let relative = if relative.is_empty() { "index.html" } else { relative };
                 let safe = Path::new(relative).components().all(|c| matches!(c, Component::Normal(_)));
                 let file = root.join(relative);
+                let accepts_gzip = request.headers().iter().any(|h| {
+                    h.field.equiv("Accept-Encoding")
+                        && h.value.as_str().split(',').any(|e| e.trim().starts_with("gzip"))
+                });
                 let response = match std::fs::read(&file) {
                     Ok(bytes) if safe => {
                         let header = tiny_http::Header::from_bytes("Content-Type", content_type(&file)).unwrap();
-                        tiny_http::Response::from_data(bytes).with_header(header).boxed()
+                        if gzip && accepts_gzip {
+                            use std::io::Write;
+                            let mut z = flate2::write::GzEncoder::new(Vec::new(), flate2::Compression::best());
+                            z.write_all(&bytes).unwrap();
+                            let encoding = tiny_http::Header::from_bytes("Content-Encoding", "gzip").unwrap();
+                            tiny_http::Response::from_data(z.finish().unwrap())
+                                .with_header(header)
+                                .with_header(encoding)
+                                .boxed()
+                        } else {
+                            tiny_http::Response::from_data(bytes).with_header(header).boxed()
+                        }
                     }
                     _ => tiny_http::Response::from_string("not found").with_status_code(404).boxed(),
                 };
