@@ -372,6 +372,84 @@ fn numbers_read_through_the_browsers_parser_are_cores_bit_for_bit() {
 }
 
 #[wasm_bindgen_test]
+fn numbers_written_in_the_browser_are_cores_character_for_character() {
+    // The page writes every figure with `hydraulics::digits`: 128-bit
+    // rounding, then the browser's toFixed / toExponential / String /
+    // BigInt where that does not fit. The reference is core's own `{:.N}`,
+    // `{:.Ne}`, `{}`, `{:e}` and `{:+.N}` (compiled into this test, not into
+    // the page), character for character. The browser's fallbacks are also
+    // run on every value directly, ties (0.5, 2.5, 0.125 …, where toFixed
+    // rounds away from zero and core to even) included.
+    use headroom::hydraulics::digits::{browser_fixed, browser_sci, Fixed, Sci, Short, ShortExp, Signed};
+    let mut x: u64 = 0x2545_f491_4f6c_dd1d;
+    let mut next = move || {
+        x ^= x << 13;
+        x ^= x >> 7;
+        x ^= x << 17;
+        x
+    };
+    let mut values = vec![
+        0.0,
+        -0.0,
+        0.5,
+        1.5,
+        2.5,
+        -2.5,
+        0.25,
+        0.75,
+        0.125,
+        0.375,
+        9.5,
+        99.5,
+        95.0,
+        25.0,
+        0.05,
+        0.15,
+        1e21,
+        1e22,
+        1.5e300,
+        -1.5e-300,
+        5e-324,
+        2.2250738585072014e-308,
+        f64::MAX,
+        f64::MIN_POSITIVE,
+        f64::NAN,
+        f64::INFINITY,
+        f64::NEG_INFINITY,
+        9.96,
+        99.96,
+        1e-7,
+        1.5e-7,
+        0.000001,
+        123456789012345680000.0,
+        18.5,
+        1.0,
+    ];
+    for _ in 0..3_000 {
+        values.push(f64::from_bits(next()));
+        values.push((next() % 1_000_000) as f64 * 10f64.powi((next() % 40) as i32 - 20) / 1000.0);
+        values.push((next() % 100_000) as f64 / f64::from(1 << (next() % 8)));
+    }
+    let mut checked = 0;
+    for &v in &values {
+        assert_eq!(Short(v).to_string(), format!("{v}"), "{{}} of {v:e}");
+        assert_eq!(ShortExp(v).to_string(), format!("{v:e}"), "{{:e}} of {v:e}");
+        for n in [0, 1, 2, 3, 5, 17] {
+            assert_eq!(Fixed(v, n).to_string(), format!("{v:.n$}"), "{{:.{n}}} of {v:e}");
+            assert_eq!(Sci(v, n).to_string(), format!("{v:.n$e}"), "{{:.{n}e}} of {v:e}");
+            assert_eq!(Signed(v, n).to_string(), format!("{v:+.n$}"), "{{:+.{n}}} of {v:e}");
+            if v.is_finite() {
+                let a = v.abs();
+                assert_eq!(browser_fixed(a, n), format!("{a:.n$}"), "toFixed({n}) of {a:e}");
+                assert_eq!(browser_sci(a, n), format!("{a:.n$e}"), "toExponential({n}) of {a:e}");
+            }
+            checked += 1;
+        }
+    }
+    assert!(checked > 50_000, "{checked}");
+}
+
+#[wasm_bindgen_test]
 fn the_panic_overlay_shows_the_message_as_text_with_a_reload_button() {
     fatal::show_fatal("bad <b>thing</b> happened");
     let document = web_sys::window().unwrap().document().unwrap();

@@ -83,7 +83,7 @@ pub fn isothermal(p1: f64, rho1: f64, g: f64, k: f64) -> Isothermal {
     let f = |p2: f64| p1 * p1 - p2 * p2 - c * (k + 2.0 * (p1 / p2).ln());
     let df = |p2: f64| -2.0 * p2 + 2.0 * c / p2;
     let (mut lo, mut hi) = (p_star, p1);
-    let mut p2 = (p1 * p1 - c * k).max(c).sqrt().clamp(lo, hi);
+    let mut p2 = crate::hydraulics::digits::clamp((p1 * p1 - c * k).max(c).sqrt(), lo, hi);
     for _ in 0..100 {
         let fx = f(p2);
         if fx > 0.0 {

@@ -210,8 +210,10 @@ impl std::fmt::Display for DemandError {
         match self {
             DemandError::BeyondCurve { units, unit, method, max } => write!(
                 f,
-                "{units} {unit} is beyond the {method} curve, which ends at {max} {unit}: size this main by another \
-                 method"
+                "{} {unit} is beyond the {method} curve, which ends at {} {unit}: size this main by another \
+                 method",
+                crate::hydraulics::digits::Short(*units),
+                crate::hydraulics::digits::Short(*max)
             ),
         }
     }
@@ -361,7 +363,7 @@ pub fn en806_l_s(total_lu: f64, largest_lu: f64) -> Result<f64, DemandError> {
     if total_lu > 5000.0 {
         return Err(DemandError::BeyondCurve { units: total_lu, unit: "LU", method: "EN 806-3", max: 5000.0 });
     }
-    let largest = largest_lu.clamp(f64::MIN_POSITIVE, total_lu);
+    let largest = crate::hydraulics::digits::clamp(largest_lu, f64::MIN_POSITIVE, total_lu);
     let line = |(x0, y0): (f64, f64), (x1, y1): (f64, f64), x: f64| {
         (y0.ln() + (y1.ln() - y0.ln()) * (x.ln() - x0.ln()) / (x1.ln() - x0.ln())).exp()
     };

@@ -54,12 +54,14 @@ pub enum FrictionError {
     RelativeRoughness(f64),
 }
 
+use crate::hydraulics::digits::Short;
+
 impl std::fmt::Display for FrictionError {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
         match self {
-            FrictionError::Reynolds(re) => write!(f, "Reynolds number {re} must be positive"),
+            FrictionError::Reynolds(re) => write!(f, "Reynolds number {} must be positive", Short(*re)),
             FrictionError::RelativeRoughness(r) => {
-                write!(f, "relative roughness {r} must be between 0 and 0.1")
+                write!(f, "relative roughness {} must be between 0 and 0.1", Short(*r))
             }
         }
     }

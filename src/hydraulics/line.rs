@@ -7,6 +7,7 @@
 //! Total drop = friction over (length + equivalent length) + ΣK ρV²/2 +
 //! ρ g Δz.
 
+use crate::hydraulics::digits::{Fixed, Short};
 use uom::si::f64::{Length, Pressure, ThermodynamicTemperature, Velocity, VolumeRate};
 use uom::si::length::meter;
 use uom::si::pressure::pascal;
@@ -252,7 +253,7 @@ impl std::fmt::Display for LineError {
             LineError::NotForGas { why, .. } => write!(f, "{why}"),
             LineError::NoSizes => write!(f, "the pipe series has no sizes"),
             LineError::OutOfRange { what, min, max, .. } => {
-                write!(f, "{what} must be between {min} and {max} (SI units)")
+                write!(f, "{what} must be between {} and {} (SI units)", Short(*min), Short(*max))
             }
             LineError::NotComputable => write!(f, "these inputs are beyond what the methods can compute"),
             LineError::NoMaximum => write!(
@@ -262,10 +263,11 @@ impl std::fmt::Display for LineError {
             ),
             LineError::FreezeMargin { freezing_c, margin_k } => write!(
                 f,
-                "this mixture freezes at {:.1} °C; the sheet keeps {margin_k} K clear of that, so the \
-                 temperature must be at least {:.1} °C (or use a stronger mixture)",
-                freezing_c,
-                freezing_c + margin_k
+                "this mixture freezes at {} °C; the sheet keeps {} K clear of that, so the \
+                 temperature must be at least {} °C (or use a stronger mixture)",
+                Fixed(*freezing_c, 1),
+                Short(*margin_k),
+                Fixed(freezing_c + margin_k, 1)
             ),
         }
     }

@@ -6,6 +6,7 @@
 
 pub mod compressible;
 pub mod demand;
+pub mod digits;
 pub mod field;
 pub mod fluid;
 pub mod friction;

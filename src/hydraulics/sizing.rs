@@ -3,6 +3,7 @@
 //! meets them all. Also check mode (one named size), capacity (the largest
 //! flow each size can carry within the limits) and the explain trace.
 
+use crate::hydraulics::digits::Fixed;
 use uom::si::f64::{Length, Velocity, VolumeRate};
 use uom::si::volume_rate::cubic_meter_per_second;
 
@@ -300,9 +301,9 @@ pub fn size(line: &Valid) -> Result<Sizing, LineError> {
         let p = &c.point;
         if let Some(g) = p.gas.filter(|g| g.fraction() > OUTSIDE_METHOD) {
             warnings.push(format!(
-                "the drop is {:.0} % of the inlet pressure: past about 40 % the isothermal equation is outside its \
+                "the drop is {} % of the inlet pressure: past about 40 % the isothermal equation is outside its \
                  use (the gas cools and may approach sonic speed); treat this answer as indicative only",
-                g.fraction() * 100.0
+                Fixed(g.fraction() * 100.0, 0)
             ));
         }
         if p.static_drop.value < 0.0
@@ -310,18 +311,19 @@ pub fn size(line: &Valid) -> Result<Sizing, LineError> {
             && line.limits.max_total_drop.is_some()
         {
             warnings.push(format!(
-                "the line falls {:.3} m: the fall gives back {:.0} Pa, which the total drop counts; friction and \
-                 fittings alone take {:.0} Pa",
-                -line.rise.value,
-                -p.static_drop.value,
-                p.friction_drop.value + p.fittings_drop.value
+                "the line falls {} m: the fall gives back {} Pa, which the total drop counts; friction and \
+                 fittings alone take {} Pa",
+                Fixed(-line.rise.value, 3),
+                Fixed(-p.static_drop.value, 0),
+                Fixed(p.friction_drop.value + p.fittings_drop.value, 0)
             ));
         }
     }
     if let Some(freezing_c) = line.fluid.freezing_point_c() {
         warnings.push(format!(
-            "{:.1} K above the mixture's freezing point ({freezing_c:.1} °C)",
-            line.temperature.get::<uom::si::thermodynamic_temperature::degree_celsius>() - freezing_c
+            "{} K above the mixture's freezing point ({} °C)",
+            Fixed(line.temperature.get::<uom::si::thermodynamic_temperature::degree_celsius>() - freezing_c, 1),
+            Fixed(freezing_c, 1)
         ));
     }
     Ok(Sizing { properties: props, candidates, proposed, failing_at_largest, verdict, warnings })

@@ -3,6 +3,8 @@
 //! the operating point of every candidate size. Pure numbers and SVG path
 //! text, so it is tested natively; the page only places it.
 
+use crate::hydraulics::digits::clamp;
+use crate::hydraulics::digits::{Fixed, Short, ShortExp};
 use crate::hydraulics::friction::{colebrook, laminar, RE_LAMINAR_MAX, RE_TURBULENT_MIN};
 use crate::hydraulics::sizing::Sizing;
 
@@ -42,7 +44,7 @@ fn path(points: impl Iterator<Item = (f64, f64)>) -> String {
     let mut out = String::new();
     for (i, (x, y)) in points.enumerate() {
         out.push_str(if i == 0 { "M" } else { "L" });
-        out.push_str(&format!("{x:.1} {y:.1}"));
+        out.push_str(&format!("{} {}", Fixed(x, 1), Fixed(y, 1)));
     }
     out
 }
@@ -107,8 +109,8 @@ pub fn points(sizing: &Sizing) -> Vec<Point> {
             let clipped = re < RE_RANGE.0 || re > RE_RANGE.1 || f < F_RANGE.0 || f > F_RANGE.1;
             Point {
                 nominal: c.nominal,
-                x: x_of(re.clamp(RE_RANGE.0, RE_RANGE.1)),
-                y: y_of(f.clamp(F_RANGE.0, F_RANGE.1)),
+                x: x_of(clamp(re, RE_RANGE.0, RE_RANGE.1)),
+                y: y_of(clamp(f, F_RANGE.0, F_RANGE.1)),
                 proposed: sizing.proposed == Some(i),
                 passes: c.passes(),
                 clipped,
@@ -132,20 +134,21 @@ fn build_background() -> Chart {
             let pts: Vec<(f64, f64)> = (0..=steps)
                 .map(|i| {
                     let re = RE_LAMINAR_MAX * (RE_RANGE.1 / RE_LAMINAR_MAX).powf(i as f64 / steps as f64);
-                    let f = colebrook(re, rr).unwrap_or(F_RANGE.0).clamp(F_RANGE.0, F_RANGE.1);
+                    let f = clamp(colebrook(re, rr).unwrap_or(F_RANGE.0), F_RANGE.0, F_RANGE.1);
                     (x_of(re), y_of(f))
                 })
                 .collect();
             let label_at = *pts.last().unwrap_or(&(0.0, 0.0));
             Curve {
-                label: if rr == 0.0 { "smooth".to_owned() } else { format!("ε/D {rr:e}") },
+                label: if rr == 0.0 { "smooth".to_owned() } else { format!("ε/D {}", ShortExp(rr)) },
                 d: path(pts.into_iter()),
                 label_at,
             }
         })
         .collect();
     let x_ticks = (3..=8).map(|e| (x_of(10f64.powi(e)), format!("1e{e}"))).collect();
-    let y_ticks = [0.01, 0.015, 0.02, 0.03, 0.04, 0.05, 0.07, 0.1].iter().map(|&f| (y_of(f), format!("{f}"))).collect();
+    let y_ticks =
+        [0.01, 0.015, 0.02, 0.03, 0.04, 0.05, 0.07, 0.1].iter().map(|&f| (y_of(f), Short(f).to_string())).collect();
     Chart {
         laminar: laminar_line,
         curves,

@@ -6,6 +6,8 @@
 use super::file::Units;
 use super::system::Summary;
 use super::units::show;
+use crate::hydraulics::digits::clamp;
+use crate::hydraulics::digits::Fixed;
 
 /// Drawing width in SVG user units.
 pub const WIDTH: f64 = 360.0;
@@ -47,12 +49,12 @@ pub fn plot(sum: &Summary, u: &Units) -> Option<Plot> {
         return None;
     }
     let x = |q: f64| LEFT + q / q_max * (WIDTH - LEFT - RIGHT);
-    let y = |h: f64| HEIGHT - BOTTOM - h.clamp(0.0, h_max) / h_max * (HEIGHT - TOP - BOTTOM);
+    let y = |h: f64| HEIGHT - BOTTOM - clamp(h, 0.0, h_max) / h_max * (HEIGHT - TOP - BOTTOM);
     let points = |f: &dyn Fn(f64) -> f64, to: f64| {
         (0..=40)
             .map(|i| {
                 let q = to * f64::from(i) / 40.0;
-                format!("{:.1},{:.1}", x(q), y(f(q)))
+                format!("{},{}", Fixed(x(q), 1), Fixed(y(f(q)), 1))
             })
             .collect::<Vec<_>>()
             .join(" ")

@@ -9,6 +9,7 @@ use super::duty_plot::{self, Plot};
 use super::markup::Markup;
 use super::report::{designation, Detail, Outcome};
 use super::units::format_number;
+use crate::hydraulics::digits::{Fixed, Short};
 use crate::hydraulics::line::Pipe;
 use crate::hydraulics::sizing::Step;
 
@@ -184,7 +185,7 @@ pub fn step_rows(steps: &[Step]) -> String {
 }
 
 fn num(v: f64) -> String {
-    format!("{v:.1}")
+    Fixed(v, 1).to_string()
 }
 
 /// The Moody chart's grid, axes, laminar line and Colebrook curves: the
@@ -229,7 +230,7 @@ pub fn moody_background() -> String {
     let at =
         [("class", "axis"), ("x", &*num(px + pw / 2.0)), ("y", &*num(chart::HEIGHT - 4.0)), ("text-anchor", "middle")];
     m.el("text", &at, "Reynolds number Re");
-    let turn = format!("rotate(-90 14 {mid:.1})");
+    let turn = format!("rotate(-90 14 {})", Fixed(mid, 1));
     let at = [("class", "axis"), ("x", "14"), ("y", &*num(mid)), ("text-anchor", "middle"), ("transform", &*turn)];
     m.el("text", &at, "f");
     m.finish()
@@ -255,9 +256,12 @@ pub fn moody_points(o: &Outcome) -> String {
 pub fn duty_figure(m: &mut Markup, plot: &Plot) {
     let (l, t, r, b) = duty_plot::frame();
     m.open("figure", &[("class", "duty-plot"), ("data-testid", "duty-plot")]);
-    let view_box = format!("0 0 {} {}", duty_plot::WIDTH, duty_plot::HEIGHT);
+    let view_box = format!("0 0 {} {}", Short(duty_plot::WIDTH), Short(duty_plot::HEIGHT));
     m.open("svg", &[("viewBox", &view_box), ("role", "img"), ("aria-label", &plot.description)]);
-    m.empty("polyline", &[("class", "axis"), ("points", &format!("{l},{t} {l},{b} {r},{b}"))]);
+    m.empty(
+        "polyline",
+        &[("class", "axis"), ("points", &format!("{0},{1} {0},{2} {3},{2}", Short(l), Short(t), Short(b), Short(r)))],
+    );
     for (x, s) in &plot.x_ticks {
         m.el("text", &[("class", "tick"), ("x", &num(*x)), ("y", &num(b + 14.0)), ("text-anchor", "middle")], s);
     }

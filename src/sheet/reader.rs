@@ -8,6 +8,7 @@
 //! - The fluid is read first: mass flows, heads and head-per-length limits
 //!   need its density.
 
+use crate::hydraulics::digits::Short;
 use uom::si::dynamic_viscosity::pascal_second;
 use uom::si::f64::{DynamicViscosity, Length, MassDensity, Pressure, ThermodynamicTemperature, Velocity, VolumeRate};
 use uom::si::length::meter;
@@ -286,7 +287,7 @@ impl Reader<'_> {
         );
         if !own_blank {
             if let Some(p) = own.filter(|p| !(p.is_finite() && *p > 0.0)) {
-                self.fail(Field::LoadPower, format!("the heat load must be greater than zero, not {p} W"));
+                self.fail(Field::LoadPower, format!("the heat load must be greater than zero, not {} W", Short(p)));
                 return None;
             }
         }
@@ -335,7 +336,8 @@ impl Reader<'_> {
             };
             match parse_decimal(item.count.trim()) {
                 Ok(c) if c.is_finite() && c >= 0.0 && c.fract() == 0.0 && c <= 100_000.0 => counts[k] += c,
-                Ok(c) => self.fail(Field::FixtureCount, format!("a fixture count is a whole number from 0, not {c}")),
+                Ok(c) => self
+                    .fail(Field::FixtureCount, format!("a fixture count is a whole number from 0, not {}", Short(c))),
                 Err(e) => self.fail(Field::FixtureCount, e.to_string()),
             }
         }

@@ -20,7 +20,8 @@
 //! Every name list below is in the order the record declares its fields
 //! (serde names them in that order in "expected one of …").
 
-use serde::de::{Error as _, Unexpected};
+use crate::hydraulics::digits::Short;
+use serde::de::Error as _;
 
 use super::file::{
     Basis, Circuit, ComponentFile, ComponentKind, FittingCount, FixtureCountFile, FixturesFile, FluidFields, FluidFile,
@@ -34,24 +35,37 @@ use crate::hydraulics::fluid::Glycol;
 
 type Result<T> = std::result::Result<T, Error>;
 
-/// What a value is, in serde's words for a refusal.
-fn unexpected(node: &Node) -> Unexpected<'_> {
-    match node {
-        Node::Null => Unexpected::Unit,
-        Node::Bool(b) => Unexpected::Bool(*b),
-        Node::Unsigned(n) => Unexpected::Unsigned(*n),
-        Node::Signed(n) => Unexpected::Signed(*n),
-        Node::Float(x) => Unexpected::Float(*x),
-        Node::Text(s) => Unexpected::Str(s),
-        Node::List(_) => Unexpected::Seq,
-        Node::Object(_) => Unexpected::Map,
+/// What a value is, in serde's words for a refusal: serde's `Unexpected`
+/// as it displays, word for word, written here because serde's own
+/// formats a float with `core`'s float formatting, which the page's module
+/// then holds (a float goes through `digits::Short`, with ".0" added to a
+/// whole number as serde adds it).
+struct What<'a>(&'a Node);
+
+impl std::fmt::Display for What<'_> {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        match self.0 {
+            Node::Null => f.write_str("unit value"),
+            Node::Bool(b) => write!(f, "boolean `{b}`"),
+            Node::Unsigned(n) => write!(f, "integer `{n}`"),
+            Node::Signed(n) => write!(f, "integer `{n}`"),
+            Node::Float(x) => {
+                let shown = Short(*x).to_string();
+                let point = if x.is_finite() && !shown.contains('.') { ".0" } else { "" };
+                write!(f, "floating point `{shown}{point}`")
+            }
+            Node::Text(s) => write!(f, "string {s:?}"),
+            Node::List(_) => f.write_str("sequence"),
+            Node::Object(_) => f.write_str("map"),
+        }
     }
 }
 
+/// serde's `invalid_type` refusal.
 #[cold]
 #[inline(never)]
 fn refused(node: &Node, expected: &str) -> Error {
-    Error::invalid_type(unexpected(node), &expected)
+    Error::custom(format_args!("invalid type: {}, expected {expected}", What(node)))
 }
 
 /// Reads an object's members in order. A key must be one of `names` (with
@@ -119,7 +133,9 @@ fn flag(node: &Node) -> Result<bool> {
 fn whole(node: &Node, max: u64, kind: &str) -> Result<u64> {
     match node {
         Node::Unsigned(n) if *n <= max => Ok(*n),
-        Node::Unsigned(_) | Node::Signed(_) => Err(Error::invalid_value(unexpected(node), &kind)),
+        Node::Unsigned(_) | Node::Signed(_) => {
+            Err(Error::custom(format_args!("invalid value: {}, expected {kind}", What(node))))
+        }
         _ => Err(refused(node, kind)),
     }
 }
@@ -193,7 +209,7 @@ fn count(node: &Node) -> Result<String> {
     match node {
         Node::Unsigned(n) => Ok(n.to_string()),
         Node::Signed(n) => Ok(n.to_string()),
-        Node::Float(x) => Ok(x.to_string()),
+        Node::Float(x) => Ok(Short(*x).to_string()),
         Node::Text(s) => Ok(s.clone()),
         _ => Err(refused(node, "a count (a number or its text)")),
     }
@@ -540,7 +556,7 @@ impl PipeFile {
         let Some(content) = content else {
             // A bare id names a variant but gives it no content.
             let kind = if i == 0 { "newtype variant" } else { "struct variant" };
-            return Err(Error::invalid_type(Unexpected::UnitVariant, &kind));
+            return Err(Error::custom(format_args!("invalid type: unit variant, expected {kind}")));
         };
         let pipe = if i == 0 {
             text(content).map(PipeFile::Series)

@@ -1,6 +1,7 @@
 //! Results of a whole sheet, and their three written forms: a readable
 //! table, CSV and JSON. Units are the sheet's own.
 
+use crate::hydraulics::digits::{Fixed, Short, Signed};
 use serde::Serialize;
 
 use super::file::{FieldError, LineFile, SheetFile, SystemFile, Units};
@@ -164,7 +165,7 @@ pub fn evaluate_line_in(number: usize, lf: &LineFile, units: &Units, carried: Op
                         "{q} for {} ({} own + {}{} from its branches)",
                         w(c.load_w),
                         w(c.load_w - d * c.from_branches_w),
-                        if d < 1.0 { format!("{d} × ") } else { String::new() },
+                        if d < 1.0 { format!("{} × ", Short(d)) } else { String::new() },
                         w(c.from_branches_w)
                     );
                     if c.typed_branches > 0 {
@@ -265,7 +266,7 @@ fn conv(si: f64, unit: &'static Unit, rho: f64, sig: usize) -> String {
 fn headroom_pct(c: &Candidate) -> String {
     c.binding
         .and_then(|b| c.checks.iter().find(|k| k.limit == b))
-        .map(|k| format!("{:+.0} %", k.headroom * 100.0))
+        .map(|k| format!("{} %", Signed(k.headroom * 100.0, 0)))
         .unwrap_or_default()
 }
 
@@ -444,7 +445,7 @@ impl Figures {
                         limit_text(k.limit, k.value),
                         limit_text(k.limit, k.allowed)
                     ),
-                    headroom: format!("{:+.0} %", k.headroom * 100.0),
+                    headroom: format!("{} %", Signed(k.headroom * 100.0, 0)),
                     met: k.met(),
                 })
                 .collect(),
@@ -745,7 +746,7 @@ pub fn system_lines_of(
             "Pump runs at {} and {} on the system curve: {} the duty flow{}",
             show(q, u.flow, rho, 4),
             pa(h),
-            if pct >= 0.0 { format!("{:.0} % above", pct) } else { format!("{:.0} % BELOW", -pct) },
+            if pct >= 0.0 { format!("{} % above", Fixed(pct, 0)) } else { format!("{} % BELOW", Fixed(-pct, 0)) },
             if pct < 0.0 { " — this pump does not meet the duty" } else { "" }
         ));
     }
@@ -896,7 +897,7 @@ pub fn csv(sheet: &SheetFile, reports: &[LineReport]) -> String {
                     let headroom = c
                         .binding
                         .and_then(|b| c.checks.iter().find(|k| k.limit == b))
-                        .map(|k| format!("{:.1}", k.headroom * 100.0))
+                        .map(|k| Fixed(k.headroom * 100.0, 1).to_string())
                         .unwrap_or_default();
                     out.push_str(&format!(
                         "{},{name},{},{},{} mm,{},{},{},{},{},{},{},{},{},{},{},{},{headroom},{},{}\n",

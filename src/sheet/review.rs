@@ -10,6 +10,7 @@ use super::markup::Markup;
 use super::panes::{duty_figure, TRANSITION};
 use super::report::{designation, LineReport, CAUTION};
 use super::units::format_number;
+use crate::hydraulics::digits::Short;
 use crate::hydraulics::line::{Method, Pipe};
 use crate::hydraulics::losses::Fitting;
 
@@ -208,7 +209,7 @@ fn line_record(m: &mut Markup, number: usize, f: &LineFile, r: &LineReport) {
             let mu = o.sizing.properties.viscosity_pa_s();
             let method = match o.line.method {
                 Method::DarcyWeisbach => "Darcy–Weisbach, Colebrook".to_owned(),
-                Method::HazenWilliams { c } => format!("Hazen–Williams, C = {c}"),
+                Method::HazenWilliams { c } => format!("Hazen–Williams, C = {}", Short(c)),
             };
             let bores = match o.line.pipe {
                 Pipe::Series(_) => "standard inside diameters",

@@ -11,6 +11,7 @@
 //! density, so a parsed value stays a [`Measure`] until [`Measure::to_si`]
 //! is given one.
 
+use crate::hydraulics::digits::{Fixed, Sci, ShortExp};
 use std::fmt;
 
 use super::number::{parse_decimal, NumberError};
@@ -329,7 +330,7 @@ impl fmt::Display for UnitError {
                  (L/s, m³/h, kg/h …)"
             ),
             UnitError::OutOfReach { value, unit } => {
-                write!(f, "'{value:e} {unit}' is too far from any real value to compute with")
+                write!(f, "'{} {unit}' is too far from any real value to compute with", ShortExp(*value))
             }
         }
     }
@@ -534,10 +535,10 @@ pub fn format_number(value: f64, significant: usize) -> String {
     let significant = significant.clamp(1, 17);
     let magnitude = value.abs().log10().floor() as i32;
     if !(-4..9).contains(&magnitude) {
-        return format!("{:.*e}", significant - 1, value);
+        return Sci(value, significant - 1).to_string();
     }
     let decimals = (significant as i32 - 1 - magnitude).max(0) as usize;
-    format!("{value:.decimals$}")
+    Fixed(value, decimals).to_string()
 }
 
 /// An SI value shown in `unit` to `significant` figures with its symbol;

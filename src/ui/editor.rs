@@ -2,6 +2,7 @@
 //! text input drawn by [`LineText`] from its [`Field`]. The edits themselves
 //! are plain methods on `LineFile` (`sheet::edit`), tested natively.
 
+use crate::hydraulics::digits::Short;
 use leptos::prelude::*;
 
 use super::fields::{errors_except, TextField};
@@ -546,7 +547,9 @@ fn MethodFields() -> impl IntoView {
     let is_hw = move || method() == MethodName::HazenWilliams;
     let hw_hint = Signal::derive(move || {
         shape.with(|f| {
-            f.material().map(|m| format!("default {} for {}", m.hazen_williams_c().0, m.name())).unwrap_or_default()
+            f.material()
+                .map(|m| format!("default {} for {}", Short(m.hazen_williams_c().0), m.name()))
+                .unwrap_or_default()
         })
     });
     view! {
@@ -679,7 +682,7 @@ fn FixtureFields() -> impl IntoView {
                                     let s = supply();
                                     let mut opts: Vec<_> = m.kinds().iter().map(|k| {
                                         let sel = k.id == current;
-                                        view! { <option value=k.id selected=sel>{format!("{} — {} {}", k.label, k.units(s), m.unit())}</option> }.into_any()
+                                        view! { <option value=k.id selected=sel>{format!("{} — {} {}", k.label, Short(k.units(s)), m.unit())}</option> }.into_any()
                                     }).collect();
                                     if demand::kind(m, &current).is_none() {
                                         opts.push(view! { <option value=current.clone() selected=true>{format!("{current} (not a {} fixture)", m.unit())}</option> }.into_any());

@@ -1,6 +1,7 @@
 //! What the selected line's numbers say: the proposal, every size around
 //! it, the Moody chart and the worked steps.
 
+use crate::hydraulics::digits::Short;
 use leptos::prelude::*;
 
 use super::state::Slot;
@@ -149,7 +150,7 @@ pub fn LineResults(
                 </table>
             </details>
             <figure class="moody" class:hidden=none>
-                <svg viewBox=format!("0 0 {} {}", chart::WIDTH, chart::HEIGHT) role="img" aria-labelledby="moody-title" data-testid="moody">
+                <svg viewBox=format!("0 0 {} {}", Short(chart::WIDTH), Short(chart::HEIGHT)) role="img" aria-labelledby="moody-title" data-testid="moody">
                     <title id="moody-title">"Moody chart: friction factor against Reynolds number, with each size's operating point"</title>
                     <g inner_html=panes::moody_background()></g>
                     <g class="points" inner_html=move || points.get()></g>

@@ -1,6 +1,7 @@
 //! The list of lines: each with its answer at a glance, selection, order,
 //! copy and delete with undo; and the sum of drops along a chosen path.
 
+use crate::hydraulics::digits::Fixed;
 use leptos::prelude::*;
 
 use crate::hydraulics::line::Circuit;
@@ -293,7 +294,7 @@ impl Window {
 
     /// The room that stands for `rows` rows not drawn.
     fn pad(&self, rows: usize) -> Option<String> {
-        self.windowed.then(|| format!("{:.1}px", rows as f64 * self.pitch))
+        self.windowed.then(|| format!("{}px", Fixed(rows as f64 * self.pitch, 1)))
     }
 }
 

@@ -1,6 +1,7 @@
 //! The worksheets kept on this device: open, rename, copy, delete (to a
 //! trash), start a new one; the trash; entries kept aside as unreadable.
 
+use crate::hydraulics::digits::Short;
 use leptos::prelude::*;
 
 use super::keep::{blank, download, Keeper, TRASH_DAYS};
@@ -43,7 +44,7 @@ pub fn ShelfPanel() -> impl IntoView {
             </ul>
             {move || (!keeper.trash.with(Vec::is_empty)).then(|| view! {
                 <h3>"Trash"</h3>
-                <p class="hint">{format!("Deleted worksheets are kept here for {TRASH_DAYS} days, then emptied.")}</p>
+                <p class="hint">{format!("Deleted worksheets are kept here for {} days, then emptied.", Short(TRASH_DAYS))}</p>
                 <ul class="shelf-list" data-testid="trash-list">
                     {keeper.trash.get().into_iter().map(|t| {
                         let (a, b) = (t.entry.id.clone(), t.entry.id.clone());

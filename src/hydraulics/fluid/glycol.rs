@@ -64,7 +64,7 @@ fn tables(g: Glycol) -> (&'static [f64; 11], &'static Packed, &'static Packed) {
 fn bracket(x: f64) -> (usize, f64) {
     let f = &table::FRACTIONS;
     let step = f[1] - f[0];
-    let pos = ((x - f[0]) / step).clamp(0.0, (f.len() - 1) as f64);
+    let pos = crate::hydraulics::digits::clamp((x - f[0]) / step, 0.0, (f.len() - 1) as f64);
     let i = (pos.floor() as usize).min(f.len() - 2);
     (i, pos - i as f64)
 }
@@ -107,7 +107,7 @@ fn locate(g: Glycol, fraction: f64, t: ThermodynamicTemperature) -> Result<(usiz
         return Err(FluidError::TemperatureRange { t_c, min_c: table::T_MIN_C, max_c: T_MAX_C });
     }
     let (i, wx) = bracket(fraction);
-    let pos = ((t_c - table::T_MIN_C) / table::T_STEP_C).clamp(0.0, (table::NT - 1) as f64);
+    let pos = crate::hydraulics::digits::clamp((t_c - table::T_MIN_C) / table::T_STEP_C, 0.0, (table::NT - 1) as f64);
     let j = (pos.floor() as usize).min(table::NT - 2);
     Ok((i, wx, j, pos - j as f64))
 }

@@ -120,62 +120,81 @@ pub enum FluidError {
     },
 }
 
+use crate::hydraulics::digits::{Fixed, Short};
+
 impl std::fmt::Display for FluidError {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
         match *self {
             FluidError::TemperatureRange { t_c, min_c, max_c } => {
-                write!(f, "temperature {t_c:.1} °C is outside {min_c}–{max_c} °C for this fluid")
+                write!(
+                    f,
+                    "temperature {} °C is outside {}–{} °C for this fluid",
+                    Fixed(t_c, 1),
+                    Short(min_c),
+                    Short(max_c)
+                )
             }
             FluidError::PressureRange { p_pa, max_pa } => write!(
                 f,
-                "{:.1} MPa is above the {:.0} MPa absolute that Headroom evaluates water at",
-                p_pa / 1e6,
-                max_pa / 1e6
+                "{} MPa is above the {} MPa absolute that Headroom evaluates water at",
+                Fixed(p_pa / 1e6, 1),
+                Fixed(max_pa / 1e6, 0)
             ),
             FluidError::Boils { t_c, p_pa, p_sat_pa } => write!(
                 f,
-                "water at {t_c:.1} °C boils below {:.1} kPa absolute; {:.1} kPa is too low",
-                p_sat_pa / 1e3,
-                p_pa / 1e3
+                "water at {} °C boils below {} kPa absolute; {} kPa is too low",
+                Fixed(t_c, 1),
+                Fixed(p_sat_pa / 1e3, 1),
+                Fixed(p_pa / 1e3, 1)
             ),
             FluidError::Freezes { t_c, freeze_c } => {
-                write!(f, "the mixture freezes at {freeze_c:.1} °C; {t_c:.1} °C is below that")
+                write!(f, "the mixture freezes at {} °C; {} °C is below that", Fixed(freeze_c, 1), Fixed(t_c, 1))
             }
             FluidError::Concentration { fraction, min, max } => write!(
                 f,
-                "glycol strength {:.0} % is outside {:.0}–{:.0} % by mass",
-                fraction * 100.0,
-                min * 100.0,
-                max * 100.0
+                "glycol strength {} % is outside {}–{} % by mass",
+                Fixed(fraction * 100.0, 0),
+                Fixed(min * 100.0, 0),
+                Fixed(max * 100.0, 0)
             ),
             FluidError::Custom(what) => write!(f, "{what} must be a positive number"),
             FluidError::GasPressure { p_pa, min_pa, max_pa } => write!(
                 f,
-                "{:.1} kPa absolute is outside the {:.0} kPa to {:.0} MPa absolute that Headroom evaluates gases at",
-                p_pa / 1e3,
-                min_pa / 1e3,
-                max_pa / 1e6
+                "{} kPa absolute is outside the {} kPa to {} MPa absolute that Headroom evaluates gases at",
+                Fixed(p_pa / 1e3, 1),
+                Fixed(min_pa / 1e3, 0),
+                Fixed(max_pa / 1e6, 0)
             ),
             FluidError::SteamPressure { p_pa, min_pa, max_pa } => write!(
                 f,
-                "{:.1} kPa absolute is outside the {:.0} kPa to {:.0} MPa absolute that Headroom evaluates steam at",
-                p_pa / 1e3,
-                min_pa / 1e3,
-                max_pa / 1e6
+                "{} kPa absolute is outside the {} kPa to {} MPa absolute that Headroom evaluates steam at",
+                Fixed(p_pa / 1e3, 1),
+                Fixed(min_pa / 1e3, 0),
+                Fixed(max_pa / 1e6, 0)
             ),
             FluidError::NotNearIdeal { z, floor } => write!(
                 f,
-                "the gas is too far from ideal here (Z = {z:.3}, below {floor}) for the virial correlation: it may \
-                 be near condensing; use a custom gas with a compressibility factor from a reliable source"
+                "the gas is too far from ideal here (Z = {}, below {}) for the virial correlation: it may \
+                 be near condensing; use a custom gas with a compressibility factor from a reliable source",
+                Fixed(z, 3),
+                Short(floor)
             ),
             FluidError::RelativeDensity { value, min, max } => {
-                write!(f, "relative density {value} is outside {min}–{max} for a methane-rich natural gas")
+                write!(
+                    f,
+                    "relative density {} is outside {}–{} for a methane-rich natural gas",
+                    Short(value),
+                    Short(min),
+                    Short(max)
+                )
             }
             FluidError::WetSteam { t_c, t_sat_c, p_pa } => write!(
                 f,
-                "{t_c:.1} °C is below the saturation temperature {t_sat_c:.1} °C at {:.1} kPa absolute: that is wet \
+                "{} °C is below the saturation temperature {} °C at {} kPa absolute: that is wet \
                  steam or water, which Headroom does not size; leave the temperature blank for dry saturated steam",
-                p_pa / 1e3
+                Fixed(t_c, 1),
+                Fixed(t_sat_c, 1),
+                Fixed(p_pa / 1e3, 1)
             ),
             FluidError::NoSpecificHeat => write!(
                 f,
