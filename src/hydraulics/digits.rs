@@ -365,9 +365,9 @@ pub fn short_from(x: f64, shortest: fn(f64) -> String, exp: bool) -> String {
     // Rust.
     let (m, e) = parts(x);
     let last = at - d.len() as i64;
-    let whole: Option<u128> = d.parse().ok();
+    let whole: Option<u64> = d.parse().ok();
     if let (Some(w), Some(twice)) = (whole, last.checked_neg().and_then(|n| exact(m, e + 1, n))) {
-        if twice == 2 * w + 1 {
+        if twice == 2 * u128::from(w) + 1 {
             d = (w + 1).to_string();
             if d.len() as i64 > at - last {
                 at += 1;
