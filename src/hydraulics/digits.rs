@@ -9,8 +9,8 @@
 //! rounded here, exactly, in 128-bit whole numbers (the value m·2^e scaled
 //! by 10^n, half to even as `core` rounds), and only a figure too large or
 //! too small for that, or the shortest form, is asked of the browser
-//! (`toFixed`, `toExponential`, `String`, `BigInt`, whose ties are then set
-//! half to even). `tests/browser.rs` holds every one to `core`'s; the
+//! (`toFixed`, `toExponential`, `String`, `BigInt`; where a value lies
+//! exactly halfway, their choice is then set to `core`'s). `tests/browser.rs` holds every one to `core`'s; the
 //! 128-bit rounding is also held to it natively ([`fixed_with`],
 //! [`sci_with`]).
 
@@ -200,6 +200,17 @@ fn parts(x: f64) -> (u64, i32) {
 /// m·2^e·10^n rounded to a whole number, half to even; `None` where that
 /// does not fit in 128 bits.
 fn scaled(m: u64, e: i32, n: i64) -> Option<u128> {
+    divided(m, e, n).map(|(q, _)| q)
+}
+
+/// m·2^e·10^n when that is a whole number that fits in 128 bits.
+fn exact(m: u64, e: i32, n: i64) -> Option<u128> {
+    divided(m, e, n).filter(|(_, whole)| *whole).map(|(q, _)| q)
+}
+
+/// m·2^e·10^n as num/den in 128 bits: the quotient rounded half to even,
+/// and whether nothing was left over.
+fn divided(m: u64, e: i32, n: i64) -> Option<(u128, bool)> {
     let mut num = u128::from(m);
     let mut den: u128 = 1;
     let five = 5u128.checked_pow(u32::try_from(n.unsigned_abs()).ok()?)?;
@@ -225,41 +236,7 @@ fn scaled(m: u64, e: i32, n: i64) -> Option<u128> {
     if r > den - r || (r == den - r && q & 1 == 1) {
         q += 1;
     }
-    Some(q)
-}
-
-/// m·2^e·10^n when that is a whole number that fits in 128 bits.
-fn exact(m: u64, e: i32, n: i64) -> Option<u128> {
-    let q = scaled(m, e, n)?;
-    q_is_exact(m, e, n, q).then_some(q)
-}
-
-/// Whether m·2^e·10^n is exactly the whole number q.
-fn q_is_exact(m: u64, e: i32, n: i64, q: u128) -> bool {
-    // m·2^e·10^n = q  ⇔  m·2^(e+n)·5^n = q; both sides as num/den.
-    let five = |k: i64| u32::try_from(k).ok().and_then(|k| 5u128.checked_pow(k));
-    let (mut left, mut right) = (u128::from(m), q);
-    if n >= 0 {
-        match five(n).and_then(|f| left.checked_mul(f)) {
-            Some(v) => left = v,
-            None => return false,
-        }
-    } else {
-        match five(-n).and_then(|f| right.checked_mul(f)) {
-            Some(v) => right = v,
-            None => return false,
-        }
-    }
-    let a = i64::from(e) + n;
-    let Ok(shift) = u32::try_from(a.unsigned_abs()) else { return false };
-    if shift >= 128 {
-        return false;
-    }
-    if a >= 0 {
-        left.leading_zeros() >= shift && left << shift == right
-    } else {
-        right.leading_zeros() >= shift && right << shift == left
-    }
+    Some((q, r == 0))
 }
 
 /// A whole number's decimal digits.
@@ -317,10 +294,10 @@ pub fn sci_with(x: f64, p: usize, slow: fn(f64, usize) -> String) -> String {
     if m == 0 {
         return if p == 0 { format!("{sign}0e0") } else { format!("{sign}0.{}e0", zeros()) };
     }
-    let (Ok(pi), Some(low)) = (i64::try_from(p), 10u128.checked_pow(p as u32)) else {
+    let powers = u32::try_from(p).ok().and_then(|p| Some((10u128.checked_pow(p)?, 10u128.checked_pow(p + 1)?)));
+    let (Ok(pi), Some((low, high))) = (i64::try_from(p), powers) else {
         return format!("{sign}{}", slow(x.abs(), p));
     };
-    let high = low * 10;
     // The power of ten of the first digit: log10's guess, then moved by one
     // while the rounded mantissa falls outside [10^p, 10^(p+1)).
     let mut k = x.abs().log10().floor() as i64;
