@@ -73,3 +73,101 @@ fn dist_fits_the_gzip_budget() {
     println!("budget (gzip total): {budget} bytes; headroom {} bytes", budget as i64 - gz_total as i64);
     assert!(gz_total <= budget, "dist/ is {gz_total} bytes gzipped, over the {budget}-byte budget");
 }
+
+/// wasm-opt is told the first 1 KB of memory is never used
+/// (`--low-memory-unused` in www/index.html), which lets it fold constant
+/// offsets into loads and stores. That holds while the linker puts nothing
+/// there: every data segment at 1,024 or above, and the stack's top (the
+/// module's first global, `__stack_pointer`) above it too, the stack growing
+/// down from it. A layout that broke this would make the flag unsound.
+#[test]
+#[ignore = "needs the release dist/: scripts/test runs it"]
+fn the_module_leaves_the_first_kilobyte_of_memory_unused() {
+    let dist = Path::new(env!("CARGO_MANIFEST_DIR")).join("dist");
+    let mut all = Vec::new();
+    files(&dist, &mut all);
+    let wasm = all.iter().find(|p| p.extension().is_some_and(|e| e == "wasm")).expect("a .wasm in dist/");
+    let bytes = std::fs::read(wasm).unwrap();
+    assert_eq!(&bytes[..8], b"\0asm\x01\0\0\0", "a wasm module, version 1");
+    let (mut stack_top, mut segments) = (None, Vec::new());
+    let mut at = 8;
+    while at < bytes.len() {
+        let id = bytes[at];
+        at += 1;
+        let size = leb(&bytes, &mut at) as usize;
+        let end = at + size;
+        let mut p = at;
+        match id {
+            // Globals: the first is the stack pointer, a mutable i32 set
+            // by `i32.const`.
+            6 => {
+                assert!(leb(&bytes, &mut p) > 0, "the module has globals");
+                assert_eq!(
+                    (bytes[p], bytes[p + 1], bytes[p + 2]),
+                    (0x7f, 1, 0x41),
+                    "first global: mut i32 = i32.const"
+                );
+                p += 3;
+                stack_top = Some(sleb(&bytes, &mut p));
+            }
+            // Data: each active segment's place in memory, `i32.const` N.
+            11 => {
+                for _ in 0..leb(&bytes, &mut p) {
+                    let kind = leb(&bytes, &mut p);
+                    assert!(
+                        kind == 0 || kind == 1,
+                        "data segment kind {kind}: only 0 (active, memory 0) and 1 (passive)"
+                    );
+                    if kind == 0 {
+                        assert_eq!(bytes[p], 0x41, "an active segment placed by i32.const");
+                        p += 1;
+                        let offset = sleb(&bytes, &mut p);
+                        assert_eq!(bytes[p], 0x0b, "a constant expression's end");
+                        p += 1;
+                        segments.push(offset);
+                    }
+                    let len = leb(&bytes, &mut p) as usize;
+                    p += len;
+                }
+                assert_eq!(p, end, "the data section read to its end");
+            }
+            _ => {}
+        }
+        at = end;
+    }
+    let stack_top = stack_top.expect("a global section");
+    assert!(!segments.is_empty(), "the module has data");
+    let lowest = *segments.iter().min().unwrap();
+    println!("stack top {stack_top}, lowest data segment {lowest} ({} segments)", segments.len());
+    assert!(lowest >= 1024, "a data segment at {lowest}, inside the first 1 KB");
+    assert!(stack_top >= 1024, "the stack's top at {stack_top}, inside the first 1 KB");
+}
+
+fn leb(bytes: &[u8], at: &mut usize) -> u64 {
+    let (mut value, mut shift) = (0u64, 0);
+    loop {
+        let b = bytes[*at];
+        *at += 1;
+        value |= u64::from(b & 0x7f) << shift;
+        shift += 7;
+        if b & 0x80 == 0 {
+            return value;
+        }
+    }
+}
+
+fn sleb(bytes: &[u8], at: &mut usize) -> i64 {
+    let (mut value, mut shift) = (0i64, 0);
+    loop {
+        let b = bytes[*at];
+        *at += 1;
+        value |= i64::from(b & 0x7f) << shift;
+        shift += 7;
+        if b & 0x80 == 0 {
+            if shift < 64 && b & 0x40 != 0 {
+                value -= 1 << shift;
+            }
+            return value;
+        }
+    }
+}
