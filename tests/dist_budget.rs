@@ -168,18 +168,15 @@ fn leb(bytes: &[u8], at: &mut usize) -> u64 {
     }
 }
 
+/// A signed LEB128 number: the unsigned reading, less 2^bits when the
+/// last byte's sign bit is set.
 fn sleb(bytes: &[u8], at: &mut usize) -> i64 {
-    let (mut value, mut shift) = (0i64, 0);
-    loop {
-        let b = bytes[*at];
-        *at += 1;
-        value |= i64::from(b & 0x7f) << shift;
-        shift += 7;
-        if b & 0x80 == 0 {
-            if shift < 64 && b & 0x40 != 0 {
-                value -= 1 << shift;
-            }
-            return value;
-        }
+    let start = *at;
+    let value = leb(bytes, at) as i64;
+    let bits = 7 * (*at - start);
+    if bits < 64 && bytes[*at - 1] & 0x40 != 0 {
+        value - (1i64 << bits)
+    } else {
+        value
     }
 }
