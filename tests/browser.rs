@@ -450,6 +450,51 @@ fn numbers_written_in_the_browser_are_cores_character_for_character() {
 }
 
 #[wasm_bindgen_test]
+fn a_downloads_name_keeps_the_letters_and_digits_char_is_alphanumeric_keeps() {
+    // The page names a download from the project with the browser's regular
+    // expression `\p{Alphabetic}` / `\p{N}`. The reference is the rule it
+    // replaced, written with core's `char::is_alphanumeric` (Unicode's
+    // Alphabetic and Numeric properties; compiled into this test, not into
+    // the page): every scalar value in every plane, 25 to a name, each
+    // after an "a" so a refused one shows as a dash between letters.
+    use headroom::ui::keep::file_stem;
+    fn reference(project: &str) -> String {
+        let s: String =
+            project.chars().map(|c| if c.is_alphanumeric() { c.to_ascii_lowercase() } else { '-' }).collect();
+        let s = s.split('-').filter(|p| !p.is_empty()).collect::<Vec<_>>().join("-");
+        if s.is_empty() {
+            "worksheet".to_owned()
+        } else {
+            s.chars().take(60).collect()
+        }
+    }
+    for (project, stem) in [
+        ("Harbourside clinic — chilled water", "harbourside-clinic-chilled-water"),
+        ("Serre n°3 : arrosage, été 2027", "serre-n-3-arrosage-été-2027"),
+        ("Котельная №2", "Котельная-2"),
+        ("温室 ½ B-2", "温室-½-b-2"),
+        ("  --  ", "worksheet"),
+        ("", "worksheet"),
+    ] {
+        assert_eq!(file_stem(project), stem, "{project}");
+        assert_eq!(reference(project), stem, "{project}");
+    }
+    let long = "Pump house ".repeat(9);
+    assert_eq!(file_stem(&long), reference(&long));
+    assert_eq!(file_stem(&long).chars().count(), 60);
+    let all: Vec<char> = (0..=0x10_ffffu32).filter_map(char::from_u32).collect();
+    let mut kept = 0;
+    for chunk in all.chunks(25) {
+        let project: String = chunk.iter().flat_map(|&c| ['a', c]).collect();
+        let ours = file_stem(&project);
+        assert_eq!(ours, reference(&project), "U+{:04X}..U+{:04X}", chunk[0] as u32, chunk[chunk.len() - 1] as u32);
+        kept += chunk.iter().filter(|c| c.is_alphanumeric()).count();
+    }
+    // Unicode 17 has about 140,000 letters and digits; the loop saw them all.
+    assert!(all.len() == 1_112_064 && kept > 130_000, "{} scalar values, {kept} kept", all.len());
+}
+
+#[wasm_bindgen_test]
 fn the_panic_overlay_shows_the_message_as_text_with_a_reload_button() {
     fatal::show_fatal("bad <b>thing</b> happened");
     let document = web_sys::window().unwrap().document().unwrap();

@@ -327,7 +327,7 @@ impl Series {
         let bore_in = || self.bore(z).get::<uom::si::length::inch>();
         match self.naming {
             Naming::Nps | Naming::CopperTube => inches(z.nominal).unwrap_or_else(bore_in),
-            Naming::Dn => whole(z.nominal.trim_start_matches("DN")).map_or_else(bore_in, dn_as_nps),
+            Naming::Dn => whole(z.nominal.strip_prefix("DN").unwrap_or(z.nominal)).map_or_else(bore_in, dn_as_nps),
             Naming::OutsideMm => bore_in(),
         }
     }

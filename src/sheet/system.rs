@@ -132,17 +132,23 @@ pub fn tree_of(lines: &[Joint]) -> Tree {
     let n = lines.len();
     let mut parent = vec![None; n];
     let mut problems = Vec::new();
-    let mut by_name: std::collections::HashMap<&str, Vec<usize>> = std::collections::HashMap::new();
-    for (i, l) in lines.iter().enumerate() {
-        by_name.entry(l.name.trim()).or_default().push(i);
-    }
+    // The lines in the order of their names, so the lines of one name sit
+    // together and are found by halving (not a hash map: std's would bring
+    // its hasher into the page's module for this one use).
+    let names: Vec<&str> = lines.iter().map(|l| l.name.trim()).collect();
+    let by_name = order_by(n, &|a, b| names[a].cmp(names[b]));
+    let named = |from: &str| {
+        let first = by_name.partition_point(|&i| names[i] < from);
+        let past = by_name.partition_point(|&i| names[i] <= from);
+        &by_name[first..past]
+    };
     for (i, l) in lines.iter().enumerate() {
         let Some(from) = l.fed_from.as_deref().map(str::trim).filter(|t| !t.is_empty()) else { continue };
-        match by_name.get(from).map(Vec::as_slice) {
-            None | Some([]) => problems.push((i, format!("no line is named “{from}” to feed this one"))),
-            Some([j]) if *j == i => problems.push((i, "a line cannot be fed from itself".to_owned())),
-            Some([j]) => parent[i] = Some(*j),
-            Some(_) => problems.push((i, format!("more than one line is named “{from}”: rename one so it is clear"))),
+        match named(from) {
+            [] => problems.push((i, format!("no line is named “{from}” to feed this one"))),
+            [j] if *j == i => problems.push((i, "a line cannot be fed from itself".to_owned())),
+            [j] => parent[i] = Some(*j),
+            _ => problems.push((i, format!("more than one line is named “{from}”: rename one so it is clear"))),
         }
     }
     // Cut circles: walk up from each line; a line met twice is in a circle.

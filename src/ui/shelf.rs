@@ -64,7 +64,7 @@ pub fn ShelfPanel() -> impl IntoView {
                 <p class="hint">"These stored entries were damaged. They are kept exactly as found: download the text to recover what you can."</p>
                 <ul class="shelf-list" data-testid="aside-list">
                     {keeper.aside.get().into_iter().map(|(key, text)| {
-                        let label = key.trim_start_matches(ASIDE_PREFIX).to_owned();
+                        let label = key.strip_prefix(ASIDE_PREFIX).unwrap_or(&key).to_owned();
                         let name = format!("headroom-kept-aside-{}.txt", label.replace(|c: char| !c.is_ascii_alphanumeric(), "-"));
                         let k = key.clone();
                         view! {
