@@ -83,7 +83,10 @@ fn dist_fits_the_gzip_budget() {
 /// the linker places nothing there: every data segment at 1,024 or above,
 /// and the stack's top (the module's first global, `__stack_pointer`)
 /// too. A layout that broke this would make the setting unsound. And the
-/// names the functions were sorted by are not shipped.
+/// names the functions were sorted by are not shipped. And wasm-opt is
+/// told to take some exports out (`--remove-exports`: the stream classes
+/// of Leptos's server-function client): every export the glue calls
+/// (`wasm.name`) is still there.
 #[test]
 #[ignore = "needs the release dist/: scripts/test runs it"]
 fn the_module_suits_the_settings_it_was_optimised_with() {
@@ -93,7 +96,7 @@ fn the_module_suits_the_settings_it_was_optimised_with() {
     let wasm = all.iter().find(|p| p.extension().is_some_and(|e| e == "wasm")).expect("a .wasm in dist/");
     let bytes = std::fs::read(wasm).unwrap();
     assert_eq!(&bytes[..8], b"\0asm\x01\0\0\0", "a wasm module, version 1");
-    let (mut stack_top, mut segments) = (None, Vec::new());
+    let (mut stack_top, mut segments, mut exports) = (None, Vec::new(), Vec::new());
     let mut at = 8;
     while at < bytes.len() {
         let id = bytes[at];
@@ -121,6 +124,16 @@ fn the_module_suits_the_settings_it_was_optimised_with() {
                 );
                 p += 3;
                 stack_top = Some(sleb(&bytes, &mut p));
+            }
+            // Exports: each one's name, then its kind and index.
+            7 => {
+                for _ in 0..leb(&bytes, &mut p) {
+                    let len = leb(&bytes, &mut p) as usize;
+                    exports.push(String::from_utf8(bytes[p..p + len].to_vec()).unwrap());
+                    p += len + 1;
+                    leb(&bytes, &mut p);
+                }
+                assert_eq!(p, end, "the export section read to its end");
             }
             // Data: each active segment's place in memory, `i32.const` N.
             11 => {
@@ -153,6 +166,28 @@ fn the_module_suits_the_settings_it_was_optimised_with() {
     println!("stack top {stack_top}, lowest data segment {lowest} ({} segments)", segments.len());
     assert!(lowest >= 1024, "a data segment at {lowest}, inside the first 1 KB");
     assert!(stack_top >= 1024, "the stack's top at {stack_top}, inside the first 1 KB");
+    let glue = all
+        .iter()
+        .find(|p| {
+            let name = p.file_name().unwrap().to_string_lossy();
+            name.starts_with("headroom-") && name.ends_with(".js")
+        })
+        .expect("the module's glue in dist/");
+    let glue = std::fs::read_to_string(glue).unwrap();
+    let mut called: Vec<&str> = glue
+        .match_indices("wasm.")
+        .filter(|(i, _)| !glue[..*i].ends_with(|c: char| c.is_ascii_alphanumeric() || c == '_' || c == '$' || c == '.'))
+        .map(|(i, _)| {
+            let rest = &glue[i + 5..];
+            &rest[..rest.find(|c: char| !(c.is_ascii_alphanumeric() || c == '_' || c == '$')).unwrap_or(rest.len())]
+        })
+        .collect();
+    called.sort_unstable();
+    called.dedup();
+    println!("the glue calls {} of the module's {} exports", called.len(), exports.len());
+    assert!(called.len() > 10, "the glue's calls into the module found ({called:?})");
+    let missing: Vec<&&str> = called.iter().filter(|c| !exports.iter().any(|e| e == *c)).collect();
+    assert!(missing.is_empty(), "the glue calls what the module does not export: {missing:?}");
 }
 
 fn leb(bytes: &[u8], at: &mut usize) -> u64 {
