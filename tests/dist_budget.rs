@@ -20,6 +20,15 @@ fn budget() -> u64 {
         .expect("Cargo.toml [package.metadata.headroom] dist_gzip_budget_bytes")
 }
 
+/// The release build's folder and every file in it, sorted.
+fn dist() -> (PathBuf, Vec<PathBuf>) {
+    let dist = Path::new(env!("CARGO_MANIFEST_DIR")).join("dist");
+    let mut all = Vec::new();
+    files(&dist, &mut all);
+    all.sort();
+    (dist, all)
+}
+
 fn files(dir: &Path, out: &mut Vec<PathBuf>) {
     for entry in std::fs::read_dir(dir).expect("read dist/") {
         let path = entry.unwrap().path();
@@ -47,10 +56,7 @@ fn gzip_len(bytes: &[u8]) -> u64 {
 #[test]
 #[ignore = "needs the release dist/: scripts/test runs it"]
 fn dist_fits_the_gzip_budget() {
-    let dist = Path::new(env!("CARGO_MANIFEST_DIR")).join("dist");
-    let mut all = Vec::new();
-    files(&dist, &mut all);
-    all.sort();
+    let (dist, all) = dist();
     assert!(
         all.iter().any(|p| p.extension().is_some_and(|e| e == "wasm")),
         "no .wasm in {}: run `trunk build --release`",
@@ -90,9 +96,7 @@ fn dist_fits_the_gzip_budget() {
 #[test]
 #[ignore = "needs the release dist/: scripts/test runs it"]
 fn the_module_suits_the_settings_it_was_optimised_with() {
-    let dist = Path::new(env!("CARGO_MANIFEST_DIR")).join("dist");
-    let mut all = Vec::new();
-    files(&dist, &mut all);
+    let (_, all) = dist();
     let wasm = all.iter().find(|p| p.extension().is_some_and(|e| e == "wasm")).expect("a .wasm in dist/");
     let bytes = std::fs::read(wasm).unwrap();
     assert_eq!(&bytes[..8], b"\0asm\x01\0\0\0", "a wasm module, version 1");
