@@ -760,6 +760,68 @@ async fn valves_smallest_size_and_velocity_by_size_are_set_from_the_editor() {
 }
 
 #[wasm_bindgen_test]
+async fn typing_into_a_listed_row_keeps_it_and_a_removed_row_takes_the_rest_with_their_counts() {
+    // The editor's three lists (fittings here, valves and equipment below)
+    // share one keyed loop: typing a count or a name must leave the row's
+    // elements in place (a redrawn input loses its focus under the
+    // fingers), a new kind redraws that row only, and removing a row must
+    // not leave a kept row showing the removed one's count.
+    let (root, sheet) = mount_sheet(|s| chilled(s, "Plant-room header", "6"));
+    let first = sheet.lines.with_untracked(|v| v[0].id);
+    sheet.selected.set(Some(first));
+    next_frame().await;
+    let input = |id: &str| -> HtmlInputElement { find(&root, id).unchecked_into() };
+    click(&root, "add-fitting");
+    click(&root, "add-fitting");
+    next_frame().await;
+    choose(&root, "fitting-0", "elbow90-welded");
+    choose(&root, "fitting-1", "elbow90-welded");
+    next_frame().await;
+    let (count0, count1) = (input("fitting-0-count"), input("fitting-1-count"));
+    type_into(&root, "fitting-0-count", "4");
+    type_into(&root, "fitting-1-count", "7");
+    next_frame().await;
+    assert!(input("fitting-0-count").is_same_node(Some(&count0)), "typing a count kept the row");
+    assert!(input("fitting-1-count").is_same_node(Some(&count1)));
+    // A new kind for the first row redraws it, not the second.
+    let select0 = find(&root, "fitting-0");
+    choose(&root, "fitting-0", "tee-branch-flanged");
+    next_frame().await;
+    assert!(!find(&root, "fitting-0").is_same_node(Some(&select0)), "a new kind redraws its row");
+    assert!(input("fitting-1-count").is_same_node(Some(&count1)), "the other row is kept");
+    assert_eq!(input("fitting-0-count").value(), "4", "the redrawn row shows its count");
+    // Back to the same kind as the second row, then remove the first: the
+    // one row left is the second, with its count (7), not the first's (4).
+    choose(&root, "fitting-0", "elbow90-welded");
+    next_frame().await;
+    let remove: HtmlElement =
+        root.query_selector("[aria-label='remove this fitting']").unwrap().unwrap().unchecked_into();
+    remove.click();
+    next_frame().await;
+    assert_eq!(root.query_selector_all("[data-testid$='-count'][data-testid^='fitting-']").unwrap().length(), 1);
+    assert_eq!(input("fitting-0-count").value(), "7");
+    let file = sheet.lines.with_untracked(|v| v[0].file.get_untracked());
+    assert_eq!(file.fittings.len(), 1);
+    assert_eq!((file.fittings[0].fitting.as_str(), file.fittings[0].count.as_str()), ("elbow90-welded", "7"));
+    // Valves and equipment: a name typed keeps the row; a new kind shows
+    // that kind's fields.
+    click(&root, "add-component");
+    next_frame().await;
+    let name = input("component-0-name");
+    type_into(&root, "component-0-name", "BV-2");
+    next_frame().await;
+    assert!(input("component-0-name").is_same_node(Some(&name)), "typing a name kept the row");
+    choose(&root, "component-0-kind", "rated");
+    next_frame().await;
+    assert_eq!(input("component-0-name").value(), "BV-2");
+    assert!(
+        root.query_selector("[data-testid='component-0-at_flow']").unwrap().is_some(),
+        "a rated drop asks for its flow"
+    );
+    assert!(root.query_selector("[data-testid='component-0-value']").unwrap().is_none());
+}
+
+#[wasm_bindgen_test]
 async fn a_flow_can_come_from_a_heat_load_and_the_typed_flow_is_kept() {
     // As a person would: switch the flow to a heat load, type 45 kW and
     // 6 K; the page shows the derived flow and sizes with it, exactly as the

@@ -569,6 +569,18 @@ fn MethodFields() -> impl IntoView {
     }
 }
 
+/// The rows of one of the editor's lists (valves and equipment, fixtures,
+/// fittings), from each row's kind id, keyed by the list's length, the
+/// row's place and its kind (not what is typed into it): typing into a row
+/// keeps the row and its focus; a new kind redraws that row; a row added or
+/// removed redraws them all. One keyed loop for the three lists, so it is
+/// compiled once, not once per list.
+fn keyed_rows(kinds: Signal<Vec<String>>, row: Callback<(usize, String), AnyView>) -> impl IntoView {
+    let each =
+        move || kinds.with(|k| k.iter().enumerate().map(|(i, kind)| (k.len(), i, kind.clone())).collect::<Vec<_>>());
+    view! { <For each=each key=|r| r.clone() children=move |(_, i, kind)| row.run((i, kind))/> }
+}
+
 /// Valves and equipment given as the trade gives them: Kv or Cv, a drop at
 /// a rated flow, a butterfly valve, a reducer.
 #[component]
@@ -578,12 +590,7 @@ fn ComponentList() -> impl IntoView {
     use crate::sheet::file::ComponentKind;
     let line = expect_context::<Slot>();
     let file = line.file;
-    let rows = move || {
-        shape.with(|f| {
-            let n = f.components.len();
-            f.components.iter().map(|c| c.kind).enumerate().map(|(i, k)| (n, i, k)).collect::<Vec<_>>()
-        })
-    };
+    let kinds = Signal::derive(move || shape.with(|f| f.components.iter().map(|c| c.kind.id().to_owned()).collect()));
     let text = move |i: usize, which: &'static str, label: &'static str, hint: &'static str| {
         let value = move || {
             shape.with(|f| {
@@ -610,7 +617,9 @@ fn ComponentList() -> impl IntoView {
     view! {
         <div class="fittings components" data-testid="components">
             <span class="label">"Valves and equipment (Kv/Cv, rated drop, butterfly, reducer)"</span>
-            <For each=rows key=|r| *r children=move |(_, i, kind)| view! {
+            {keyed_rows(kinds, Callback::new(move |(i, kind): (usize, String)| {
+                let kind = ComponentKind::from_id(&kind).unwrap_or_default();
+                view! {
                 <div class="component-row">
                     <select aria-label="component kind" data-testid=format!("component-{i}-kind")
                         on:change=move |ev| { if let Some(k) = ComponentKind::from_id(&event_target_value(&ev)) { file.update(|f| f.set_component_kind(i, k)) } }>
@@ -627,7 +636,8 @@ fn ComponentList() -> impl IntoView {
                     <button type="button" class="quiet" aria-label="remove this component"
                         on:click=move |_| file.update(|f| f.remove_component(i))>"✕"</button>
                 </div>
-            }/>
+                }.into_any()
+            }))}
             <span class="field-error" data-testid="components-error" aria-live="polite">{move || mirror.error(Field::Components).get()}</span>
             <button type="button" class="quiet" data-testid="add-component" on:click=move |_| file.update(|f| f.add_component())>
                 "+ Add a valve or equipment"
@@ -649,13 +659,10 @@ fn FixtureFields() -> impl IntoView {
     // Memos, so a keystroke in a count does not redraw every row's options.
     let supply = Memo::new(move |_| shape.with(|f| f.fixtures.as_ref().map(|x| x.supply).unwrap_or_default()));
     let supply = move || supply.get();
-    let rows = move || {
-        shape.with(|f| {
-            let items = f.fixtures.as_ref().map(|x| x.items.clone()).unwrap_or_default();
-            let n = items.len();
-            items.into_iter().enumerate().map(|(i, r)| (n, i, r)).collect::<Vec<_>>()
-        })
-    };
+    let kinds = Signal::derive(move || {
+        shape
+            .with(|f| f.fixtures.as_ref().map(|x| x.items.iter().map(|r| r.kind.clone()).collect()).unwrap_or_default())
+    });
     view! {
         <div class="field">
             <label for="fixture-supply">"Supply"</label>
@@ -669,8 +676,8 @@ fn FixtureFields() -> impl IntoView {
         </div>
         <div class="fittings" data-testid="fixtures">
             <span class="label">{move || format!("Fixtures served ({} each)", method.get().unit())}</span>
-            <For each=rows key=|(n, i, r)| (*n, *i, r.kind.clone()) children=move |(_, i, r)| {
-                let current = r.kind.clone();
+            {keyed_rows(kinds, Callback::new(move |(i, current): (usize, String)| {
+                let count = shape.with_untracked(|f| f.fixtures.as_ref().and_then(|x| x.items.get(i)).map(|r| r.count.clone()));
                 view! {
                     <div class="fitting-row">
                         <select aria-label="fixture" data-testid=format!("fixture-{i}")
@@ -692,13 +699,13 @@ fn FixtureFields() -> impl IntoView {
                             }
                         </select>
                         <input type="text" inputmode="numeric" aria-label="how many" class="count"
-                            data-testid=format!("fixture-{i}-count") prop:value=r.count.clone()
+                            data-testid=format!("fixture-{i}-count") prop:value=count.unwrap_or_default()
                             on:input=move |ev| { let n = event_target_value(&ev); file.update(|f| f.set_fixture_count(i, n)) }/>
                         <button type="button" class="quiet" aria-label="remove this fixture"
                             on:click=move |_| file.update(|f| f.remove_fixture(i))>"✕"</button>
                     </div>
-                }
-            }/>
+                }.into_any()
+            }))}
             <button type="button" class="quiet" data-testid="add-fixture"
                 on:click=move |_| { let k = method.get_untracked().kinds()[0].id; file.update(|f| f.add_fixture(k)) }>
                 "+ Add a fixture"
@@ -719,19 +726,12 @@ fn FittingList() -> impl IntoView {
     let mirror = expect_context::<Mirror>();
     let shape = mirror.shape;
     let file = expect_context::<Slot>().file;
-    // Keyed by list length, position and kind (not count), so typing a
-    // count keeps focus and removing a row re-draws the rows after it.
-    let rows = move || {
-        shape.with(|f| {
-            let n = f.fittings.len();
-            f.fittings.iter().cloned().enumerate().map(|(i, fc)| (n, i, fc)).collect::<Vec<_>>()
-        })
-    };
+    let kinds = Signal::derive(move || shape.with(|f| f.fittings.iter().map(|fc| fc.fitting.clone()).collect()));
     view! {
         <div class="fittings" data-testid="fittings">
             <span class="label">"Fittings and valves (3-K method, Darby 2001)"</span>
-            <For each=rows key=|(n, i, fc)| (*n, *i, fc.fitting.clone()) children=move |(_, i, fc)| {
-                let current = fc.fitting.clone();
+            {keyed_rows(kinds, Callback::new(move |(i, current): (usize, String)| {
+                let count = shape.with_untracked(|f| f.fittings.get(i).map(|fc| fc.count.clone()));
                 view! {
                     <div class="fitting-row">
                         <select aria-label="fitting" data-testid=format!("fitting-{i}")
@@ -742,7 +742,7 @@ fn FittingList() -> impl IntoView {
                             }).collect_view()}
                         </select>
                         <input type="text" inputmode="numeric" aria-label="how many" class="count"
-                            data-testid=format!("fitting-{i}-count") prop:value=fc.count.clone()
+                            data-testid=format!("fitting-{i}-count") prop:value=count.unwrap_or_default()
                             on:input=move |ev| { let n = event_target_value(&ev); file.update(|f| f.set_fitting_count(i, n)) }/>
                         <span class="field-error" data-testid=format!("fitting-{i}-count-error") aria-live="polite">
                             {move || shape.with(|f| f.fittings.get(i).and_then(|r| parse_count(&r.count).err()).map(|e| e.to_string()).unwrap_or_default())}
@@ -750,8 +750,8 @@ fn FittingList() -> impl IntoView {
                         <button type="button" class="quiet" aria-label="remove this fitting"
                             on:click=move |_| file.update(|f| f.remove_fitting(i))>"✕"</button>
                     </div>
-                }
-            }/>
+                }.into_any()
+            }))}
             <button type="button" class="quiet" data-testid="add-fitting" on:click=move |_| file.update(|f| f.add_fitting())>
                 "+ Add a fitting"
             </button>
