@@ -84,16 +84,20 @@ fn dist_fits_the_gzip_budget() {
 /// gzip -9, every landed feature included).
 const GOAL_GZIP_BYTES: u64 = 150_000;
 
+/// The gzip -9 total of some files.
+fn gzip_total(files: &[PathBuf]) -> u64 {
+    files.iter().map(|p| gzip_len(&std::fs::read(p).unwrap())).sum()
+}
+
 /// A yardstick page's release build under `target/` (scripts/test builds
-/// it), its files sorted, and their gzip -9 total.
-fn yardstick(folder: &str) -> (Vec<PathBuf>, u64) {
+/// it), its files sorted.
+fn yardstick(folder: &str) -> Vec<PathBuf> {
     let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("target").join(folder);
     assert!(dir.join("index.html").is_file(), "{} missing: scripts/test build makes it", dir.display());
     let mut all = Vec::new();
     files(&dir, &mut all);
     all.sort();
-    let total = all.iter().map(|p| gzip_len(&std::fs::read(p).unwrap())).sum();
-    (all, total)
+    all
 }
 
 /// How much of the size goal Leptos and Headroom's core take before a
@@ -107,9 +111,10 @@ fn yardstick(folder: &str) -> (Vec<PathBuf>, u64) {
 #[test]
 #[ignore = "needs dist/, target/bare-dist and target/core-page-dist: scripts/test builds them"]
 fn the_core_on_a_bare_leptos_page_beside_the_goal() {
-    let app: u64 = dist().1.iter().map(|p| gzip_len(&std::fs::read(p).unwrap())).sum();
-    let (_, bare) = yardstick("bare-dist");
-    let (files, core) = yardstick("core-page-dist");
+    let app = gzip_total(&dist().1);
+    let bare = gzip_total(&yardstick("bare-dist"));
+    let files = yardstick("core-page-dist");
+    let core = gzip_total(&files);
     let wasm = files.iter().find(|p| p.extension().is_some_and(|e| e == "wasm")).expect("a .wasm in core-page-dist");
     let module = std::fs::read(wasm).unwrap();
     let has = |text: &str| module.windows(text.len()).any(|w| w == text.as_bytes());
