@@ -134,6 +134,28 @@ fn the_core_on_a_bare_leptos_page_beside_the_goal() {
     );
 }
 
+/// The yardstick pages are built the way Headroom is: their rust links ask
+/// wasm-opt for what `www/index.html` asks (each page needs its own link,
+/// so the settings are written four times; this holds them together).
+#[test]
+fn the_yardsticks_are_optimised_as_the_page_is() {
+    let root = Path::new(env!("CARGO_MANIFEST_DIR"));
+    let settings = |page: &str| -> Vec<String> {
+        let html = std::fs::read_to_string(root.join(page)).unwrap();
+        ["data-wasm-opt=\"", "data-wasm-opt-params=\""]
+            .iter()
+            .map(|attr| {
+                let at = html.find(attr).unwrap_or_else(|| panic!("{page} has no {attr}")) + attr.len();
+                html[at..].split('"').next().unwrap().to_owned()
+            })
+            .collect()
+    };
+    let page = settings("www/index.html");
+    for yardstick in ["benches/bare/index.html", "benches/first-screen/index.html", "benches/core-page/index.html"] {
+        assert_eq!(settings(yardstick), page, "{yardstick} asks wasm-opt for other settings than www/index.html");
+    }
+}
+
 /// wasm-opt is told the first 1 KB of memory is unused
 /// (`--low-memory-unused` in www/index.html): it then folds a constant C
 /// under 1 KB into a load's or store's offset without proving that the
