@@ -149,8 +149,7 @@ async fn edit_to_results_time_on_a_200_line_sheet() {
     let big = time_edits(&h).await;
     // A tablet: the same edits with Chromium's CPU throttled 4×.
     h.cdp("Emulation.setCPUThrottlingRate", serde_json::json!({"rate": 4})).await;
-    let tablet = time_edits(&h).await;
-    let tablet_bare = time_bare_changes(&h).await;
+    let (tablet, tablet_bare, tablet_over) = time_edits_beside_bare(&h).await;
     let tablet_painted = tablet.painted[tablet.painted.len() / 2];
     let typed_tablet = typed_keys(&h).await;
     // The same, with the answer panel on the screen (a screen wide enough
@@ -177,10 +176,11 @@ async fn edit_to_results_time_on_a_200_line_sheet() {
     }
     let mid = |s: &[f64]| s[s.len() / 2];
     println!(
-        "200-line sheet, CPU throttled 4×, the same changes of the flow's text with no input event (the browser's own frame for them, none of our code): → painted: median {:.1} ms, worst {:.1} ms; the edit's median over it {:+.1} ms",
+        "200-line sheet, CPU throttled 4×, changes of the flow's text with no input event, taken in turn with the edits above (the browser's own frame for them, none of our code): → painted: median {:.1} ms, worst {:.1} ms; the edit's median over it {:+.1} ms; each edit over the bare change beside it: median {:+.1} ms",
         mid(&tablet_bare.painted),
         tablet_bare.painted[tablet_bare.painted.len() - 1],
-        tablet_painted - mid(&tablet_bare.painted)
+        tablet_painted - mid(&tablet_bare.painted),
+        mid(&tablet_over)
     );
     for (label, (keys, slow)) in [("CPU 1×", typed), ("CPU throttled 4×", typed_tablet)] {
         // Keystrokes under 16 ms are not reported (the API's floor): they
@@ -554,16 +554,21 @@ async fn rows_cut_off(h: &Harness) -> Vec<String> {
 /// after the paint). Edits are 60 ms apart, like typing, so one edit's save
 /// (queued after its results) does not fall into the next measurement.
 async fn time_edits(h: &Harness) -> Timings {
-    timed_changes(h, true).await
+    timed_changes(h, &[true; 25]).await.0
 }
 
-/// The same 25 changes of the flow field's text with no `input` event:
-/// none of our code runs, so what is timed is the browser's own frame for
-/// that change on this page, on this machine, at this moment — the floor
-/// under the edit's figures. Ends with one untimed `input` event, so the
-/// page takes the text the field shows.
-async fn time_bare_changes(h: &Harness) -> Timings {
-    let t = timed_changes(h, false).await;
+/// 25 edits of the flow beside 25 changes of its text with no `input`
+/// event — none of our code runs, so a bare change times the browser's own
+/// frame for that change on this page, on this machine, at that moment:
+/// the floor under the edit's figures. Taken in pairs, in turn (an edit
+/// then a bare change, then a bare change then an edit), so a busy moment
+/// of the machine falls on both alike. Returns the edits, the bare changes
+/// and each pair's edit minus its bare change (painted), each sorted. Ends
+/// with one untimed `input` event, so the page takes the text the field
+/// shows.
+async fn time_edits_beside_bare(h: &Harness) -> (Timings, Timings, Vec<f64>) {
+    let order: Vec<bool> = (0..25).flat_map(|p| [p % 2 == 0, p % 2 == 1]).collect();
+    let (edits, bare, painted) = timed_changes(h, &order).await;
     h.client
         .execute(
             "document.querySelector('[data-testid=flow]').dispatchEvent(new Event('input', { bubbles: true }))",
@@ -571,10 +576,20 @@ async fn time_bare_changes(h: &Harness) -> Timings {
         )
         .await
         .unwrap();
-    t
+    let mut over: Vec<f64> = painted
+        .chunks(2)
+        .zip(order.chunks(2))
+        .map(|(t, fired)| if fired[0] { t[0] - t[1] } else { t[1] - t[0] })
+        .collect();
+    over.sort_by(f64::total_cmp);
+    (edits, bare, over)
 }
 
-async fn timed_changes(h: &Harness, fire: bool) -> Timings {
+/// Changes the flow field's text once per entry of `fire`, 60 ms apart,
+/// firing the `input` event where the entry is true. Returns the timings
+/// of the changes that fired, those of the ones that did not (each sorted),
+/// and every change's painted time in the order made.
+async fn timed_changes(h: &Harness, fire: &[bool]) -> (Timings, Timings, Vec<f64>) {
     // Three clocks per edit: the next frame (the answer in it), that frame
     // painted, and the frame after it painted (by then the parts that
     // follow a frame behind the answer — the list's row, the system box,
@@ -586,10 +601,10 @@ async fn timed_changes(h: &Harness, fire: bool) -> Timings {
         const update = [], painted = [], all = [];
         let k = 0;
         function step() {
-            if (k === 25) { done([update, painted, all]); return; }
+            if (k === fire.length) { done([update, painted, all]); return; }
             const t0 = performance.now();
-            input.value = String(10 + k);
-            if (fire) input.dispatchEvent(new Event('input', { bubbles: true }));
+            input.value = String(10 + k % 25);
+            if (fire[k]) input.dispatchEvent(new Event('input', { bubbles: true }));
             requestAnimationFrame(() => {
                 update.push(performance.now() - t0);
                 setTimeout(() => {
@@ -602,13 +617,22 @@ async fn timed_changes(h: &Harness, fire: bool) -> Timings {
         }
         step();
     "#;
-    let v = h.client.execute_async(script, vec![serde_json::Value::Bool(fire)]).await.unwrap();
-    let series = |i: usize| {
-        let mut t: Vec<f64> = v[i].as_array().unwrap().iter().map(|t| t.as_f64().unwrap()).collect();
+    let v = h.client.execute_async(script, vec![serde_json::json!(fire)]).await.unwrap();
+    let series = |i: usize, fired: bool| {
+        let mut t: Vec<f64> = v[i]
+            .as_array()
+            .unwrap()
+            .iter()
+            .zip(fire)
+            .filter(|(_, &f)| f == fired)
+            .map(|(t, _)| t.as_f64().unwrap())
+            .collect();
         t.sort_by(f64::total_cmp);
         t
     };
-    Timings { update: series(0), painted: series(1), all: series(2) }
+    let timings = |fired: bool| Timings { update: series(0, fired), painted: series(1, fired), all: series(2, fired) };
+    let in_order = v[1].as_array().unwrap().iter().map(|t| t.as_f64().unwrap()).collect();
+    (timings(true), timings(false), in_order)
 }
 
 /// One series of timed edits, each sorted.
