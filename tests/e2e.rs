@@ -147,7 +147,8 @@ async fn edit_to_results_time_on_a_200_line_sheet() {
     assert_eq!(lines_in_sheet(&h).await, 200);
     assert_eq!(rows_cut_off(&h).await, Vec::<String>::new());
     let big = time_edits(&h).await;
-    // A tablet: the same edits with Chromium's CPU throttled 4×.
+    // A tablet: the same edits with Chromium's CPU throttled 4×, each
+    // beside a change of the text that runs none of our code.
     h.cdp("Emulation.setCPUThrottlingRate", serde_json::json!({"rate": 4})).await;
     let (tablet, tablet_bare, tablet_over) = time_edits_beside_bare(&h).await;
     let tablet_painted = tablet.painted[tablet.painted.len() / 2];
